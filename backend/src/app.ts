@@ -1,0 +1,105 @@
+// Builds the Express app: security headers, sessions in PostgreSQL, CSRF, the API routes and the built client.
+import { RequestContext, type MikroORM } from '@mikro-orm/postgresql';
+import connectPgSimple from 'connect-pg-simple';
+import cookieParser from 'cookie-parser';
+import express, { type Express } from 'express';
+import session from 'express-session';
+import helmet from 'helmet';
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import pg from 'pg';
+import { authRoutes } from './auth/auth.routes';
+import { createPassport } from './auth/passport';
+import { buildsRoutes } from './builds/builds.routes';
+import type { AppConfig } from './config';
+import { crewRoutes, inviteLinkRoutes } from './crew/crew.routes';
+import { csrfProtection } from './http/csrf';
+import { errorMiddleware, NotFound } from './http/errors';
+import type { Mailer } from './mail/mailer';
+
+export interface AppDeps {
+  orm: MikroORM;
+  config: AppConfig;
+  mailer: Mailer;
+}
+
+export interface RunningApp {
+  app: Express;
+  /** Closes what the app opened itself (the session store's pool). */
+  close(): Promise<void>;
+}
+
+export function createApp({ orm, config, mailer }: AppDeps): RunningApp {
+  const app = express();
+  app.set('trust proxy', 'loopback');
+  app.disable('x-powered-by');
+
+  app.use(
+    helmet({
+      strictTransportSecurity: config.secureCookies,
+      contentSecurityPolicy: {
+        useDefaults: true,
+        directives: {
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'font-src': ["'self'", 'data:'],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'upgrade-insecure-requests': config.secureCookies ? [] : null,
+        },
+      },
+    }),
+  );
+  app.use(express.json({ limit: '1mb' }));
+  app.use(cookieParser());
+  // Every request gets its own identity map: never the global EntityManager.
+  app.use((_req, _res, next) => RequestContext.create(orm.em, next));
+
+  const sessionPool = new pg.Pool({ ...config.db, database: config.db.dbName, max: 4 });
+  const PgStore = connectPgSimple(session);
+  app.use(
+    session({
+      name: 'tallyhood.sid',
+      store: new PgStore({ pool: sessionPool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 15 * 60 }),
+      secret: config.sessionSecret,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: config.secureCookies, maxAge: 30 * 24 * 60 * 60 * 1000 },
+    }),
+  );
+  const passport = createPassport();
+  app.use(passport.initialize());
+  app.use(passport.session());
+
+  const api = express.Router();
+  api.use(csrfProtection(config.secureCookies));
+  api.get('/health', async (_req, res) => {
+    try {
+      await orm.em.getConnection().execute('select 1');
+      res.json({ status: 'ok', database: 'up' });
+    } catch {
+      res.status(503).json({ status: 'degraded', database: 'down' });
+    }
+  });
+  api.use('/auth', authRoutes(passport, mailer, config));
+  api.use('/invites', inviteLinkRoutes());
+  api.use('/builds', buildsRoutes());
+  api.use('/builds/:buildId', crewRoutes(mailer, config));
+  api.use(() => {
+    throw new NotFound('That API route');
+  });
+  app.use('/api', api);
+
+  const index = path.join(config.clientDist, 'index.html');
+  if (existsSync(index)) {
+    app.use(express.static(config.clientDist, { index: false, maxAge: '1h' }));
+    app.get('/{*splat}', (_req, res) => res.sendFile(index));
+  }
+  app.use(errorMiddleware);
+
+  return {
+    app,
+    async close() {
+      await sessionPool.end();
+    },
+  };
+}

@@ -1,0 +1,56 @@
+// Accounts: sign-up and password reset by an e-mailed one-time link.
+import { LockMode } from '@mikro-orm/core';
+import type { EntityManager } from '@mikro-orm/postgresql';
+import type { ResetConfirmRequest, SignUpRequest, UserDto } from '../../../shared/api/auth';
+import type { AppConfig } from '../config';
+import { Conflict, ValidationFailed } from '../http/errors';
+import type { Mailer } from '../mail/mailer';
+import { passwordResetMail } from '../mail/templates';
+import { hashPassword, hashToken, newToken } from './passwords';
+import { PasswordReset } from './password-reset.entity';
+import { User } from './user.entity';
+
+const RESET_LIFETIME_MS = 60 * 60 * 1000;
+
+export function userDto(user: User): UserDto {
+  return { id: user.id, email: user.email, displayName: user.displayName };
+}
+
+export async function createAccount(em: EntityManager, input: Omit<SignUpRequest, 'inviteToken'>): Promise<User> {
+  const email = input.email.toLowerCase();
+  if (await em.count(User, { email })) {
+    throw new Conflict('An account with this e-mail already exists. Sign in instead, or reset the password.', {
+      email: 'An account with this e-mail already exists.',
+    });
+  }
+  const user = em.create(User, { email, displayName: input.displayName, passwordHash: await hashPassword(input.password) });
+  await em.flush();
+  return user;
+}
+
+/** Sends a reset link when the account exists; says nothing either way so addresses cannot be probed. */
+export async function requestPasswordReset(em: EntityManager, mailer: Mailer, config: AppConfig, email: string): Promise<void> {
+  const user = await em.findOne(User, { email: email.toLowerCase() });
+  if (!user) return;
+  const { token, tokenHash } = newToken();
+  em.create(PasswordReset, { user, tokenHash, expiresAt: new Date(Date.now() + RESET_LIFETIME_MS) });
+  await em.flush();
+  await mailer.send(passwordResetMail({ to: user.email, link: `${config.appUrl}/reset-password/${token}` }));
+}
+
+export async function confirmPasswordReset(em: EntityManager, input: ResetConfirmRequest): Promise<User> {
+  return em.transactional(async (tx) => {
+    const reset = await tx.findOne(
+      PasswordReset,
+      { tokenHash: hashToken(input.token), usedAt: null, expiresAt: { $gt: new Date() } },
+      { populate: ['user'], lockMode: LockMode.PESSIMISTIC_WRITE },
+    );
+    if (!reset) throw new ValidationFailed({ token: 'This reset link has expired or was already used. Ask for a new one.' }, 'This reset link has expired or was already used.');
+    reset.usedAt = new Date();
+    reset.user.passwordHash = await hashPassword(input.password);
+    await tx.flush();
+    // Sign the account out everywhere: sessions opened with the old password end.
+    await tx.getConnection().execute(`delete from "session" where sess -> 'passport' ->> 'user' = ?`, [reset.user.id]);
+    return reset.user;
+  });
+}

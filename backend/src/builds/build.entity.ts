@@ -1,0 +1,40 @@
+// A car build: the unit every part, receipt and member belongs to.
+import { EntitySchema, OptionalProps } from '@mikro-orm/core';
+import { randomUUID } from 'node:crypto';
+import { BUILD_STATUSES, type BuildStatus } from '../../../shared/enums';
+
+export class Build {
+  [OptionalProps]?: 'createdAt' | 'updatedAt' | 'version' | 'vehicle' | 'locale' | 'status' | 'startedOn' | 'targetDate' | 'archivedAt';
+  id: string = randomUUID();
+  name!: string;
+  vehicle = '';
+  /** ISO 4217 code, fixed at creation. */
+  currency!: string;
+  /** BCP 47 tag: formats and day-first or month-first dates. */
+  locale = 'en-US';
+  status: BuildStatus = 'planning';
+  startedOn: string | null = null;
+  targetDate: string | null = null;
+  archivedAt: Date | null = null;
+  version = 1;
+  createdAt: Date = new Date();
+  updatedAt: Date = new Date();
+}
+
+export const BuildSchema = new EntitySchema<Build>({
+  class: Build,
+  properties: {
+    id: { type: 'uuid', primary: true },
+    name: { type: 'string', length: 120 },
+    vehicle: { type: 'string', length: 200, default: '' },
+    currency: { type: 'string', length: 3 },
+    locale: { type: 'string', length: 35, default: 'en-US' },
+    status: { enum: true, items: () => [...BUILD_STATUSES], nativeEnumName: undefined, default: 'planning' },
+    startedOn: { type: 'date', nullable: true },
+    targetDate: { type: 'date', nullable: true },
+    archivedAt: { type: 'datetime', nullable: true },
+    version: { type: 'integer', version: true },
+    createdAt: { type: 'datetime', defaultRaw: 'now()' },
+    updatedAt: { type: 'datetime', defaultRaw: 'now()', onUpdate: () => new Date() },
+  },
+});

@@ -1,0 +1,45 @@
+// Every environment variable the server reads, parsed and defaulted in one place.
+import path from 'node:path';
+
+export interface AppConfig {
+  port: number;
+  appUrl: string;
+  production: boolean;
+  db: { host: string; port: number; user: string; password: string; dbName: string };
+  sessionSecret: string;
+  secureCookies: boolean;
+  smtp: { host: string; port: number; from: string };
+  clientDist: string;
+}
+
+function integer(value: string | undefined, fallback: number, name: string): number {
+  if (value === undefined || value === '') return fallback;
+  if (!/^\d+$/.test(value)) throw new Error(`${name} must be a whole number, got "${value}".`);
+  return Number(value);
+}
+
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
+  const production = env.NODE_ENV === 'production';
+  const port = integer(env.PORT, 3000, 'PORT');
+  if (production && !env.SESSION_SECRET) throw new Error('SESSION_SECRET must be set in production.');
+  return {
+    port,
+    appUrl: (env.APP_URL ?? `http://127.0.0.1:${port}`).replace(/\/$/, ''),
+    production,
+    db: {
+      host: env.PGHOST ?? '127.0.0.1',
+      port: integer(env.PGPORT, 54329, 'PGPORT'),
+      user: env.PGUSER ?? 'tallyhood',
+      password: env.PGPASSWORD ?? 'tallyhood',
+      dbName: env.PGDATABASE ?? 'tallyhood',
+    },
+    sessionSecret: env.SESSION_SECRET ?? 'tallyhood-development-session-secret',
+    secureCookies: env.COOKIE_SECURE === 'true',
+    smtp: {
+      host: env.SMTP_HOST ?? '127.0.0.1',
+      port: integer(env.SMTP_PORT, 2525, 'SMTP_PORT'),
+      from: env.MAIL_FROM ?? 'Tallyhood <no-reply@tallyhood.test>',
+    },
+    clientDist: env.CLIENT_DIST ?? path.resolve(__dirname, '../../dist/tallyhood/browser'),
+  };
+}

@@ -1,0 +1,8 @@
+// The explicit list of entity schemas (no folder discovery: tsx and esbuild emit no decorator metadata).
+import { PasswordResetSchema } from '../auth/password-reset.entity';
+import { UserSchema } from '../auth/user.entity';
+import { BuildSchema } from '../builds/build.entity';
+import { MembershipSchema } from '../builds/membership.entity';
+import { InviteSchema } from '../crew/invite.entity';
+
+export const entities = [UserSchema, PasswordResetSchema, BuildSchema, MembershipSchema, InviteSchema];

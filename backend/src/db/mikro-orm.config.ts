@@ -1,0 +1,31 @@
+// MikroORM configuration, shared by the server, the migration runner, the seed and the tests.
+import { defineConfig } from '@mikro-orm/postgresql';
+import { Migrator } from '@mikro-orm/migrations';
+import path from 'node:path';
+import { loadConfig } from '../config';
+import { entities } from './entities';
+
+export function ormConfig(db = loadConfig().db) {
+  return defineConfig({
+    host: db.host,
+    port: db.port,
+    user: db.user,
+    password: db.password,
+    dbName: db.dbName,
+    entities,
+    extensions: [Migrator],
+    discovery: { warnWhenNoEntities: true },
+    migrations: {
+      path: path.resolve(__dirname, '../../../migrations'),
+      pathTs: path.resolve(__dirname, '../../../migrations'),
+      glob: '!(*.d).{js,ts}',
+      transactional: true,
+      snapshot: false,
+      emit: 'ts',
+    },
+    pool: { min: 0, max: 10 },
+    debug: false,
+  });
+}
+
+export default ormConfig();

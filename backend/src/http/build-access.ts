@@ -1,0 +1,43 @@
+// The one guard every build route uses: it loads the caller's membership of the build in the URL and checks
+// the role. Someone who is not a member learns nothing: not even that the build exists (404, not 403).
+import { RequestContext } from '@mikro-orm/core';
+import type { EntityManager } from '@mikro-orm/postgresql';
+import type { RequestHandler, Response } from 'express';
+import type { BuildRole } from '../../../shared/enums';
+import { Membership } from '../builds/membership.entity';
+import { Forbidden, NotFound, Unauthenticated } from './errors';
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+export function isUuid(value: unknown): value is string {
+  return typeof value === 'string' && UUID.test(value);
+}
+
+export function em(): EntityManager {
+  return RequestContext.getEntityManager() as EntityManager;
+}
+
+/** Requires a signed-in user. */
+export const signedIn: RequestHandler = (req, _res, next) => {
+  next(req.user ? undefined : new Unauthenticated());
+};
+
+/** Requires a membership of :buildId with one of the roles; puts it in res.locals.membership. */
+export function buildRole(...roles: BuildRole[]): RequestHandler {
+  return async (req, res, next) => {
+    if (!req.user) throw new Unauthenticated();
+    const buildId = req.params.buildId;
+    if (!isUuid(buildId)) throw new NotFound('That build');
+    const membership = await em().findOne(Membership, { build: buildId, user: req.user.id }, { populate: ['build'] });
+    if (!membership) throw new NotFound('That build');
+    if (!roles.includes(membership.role)) throw new Forbidden();
+    res.locals.membership = membership;
+    next();
+  };
+}
+
+export const ANY_MEMBER: BuildRole[] = ['owner', 'crew', 'reviewer'];
+
+export function membershipOf(res: Response): Membership {
+  return res.locals.membership as Membership;
+}

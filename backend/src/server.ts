@@ -1,0 +1,35 @@
+// Starts the API and the built client on 127.0.0.1.
+import { MikroORM } from '@mikro-orm/postgresql';
+import { createApp } from './app';
+import { loadConfig } from './config';
+import { ormConfig } from './db/mikro-orm.config';
+import { createMailer } from './mail/mailer';
+
+async function main() {
+  const config = loadConfig();
+  const orm = await MikroORM.init(ormConfig(config.db));
+  const mailer = createMailer(config.smtp);
+  const { app, close } = createApp({ orm, config, mailer });
+  const server = app.listen(config.port, '127.0.0.1', (error?: Error) => {
+    if (error) {
+      console.error(`Tallyhood could not listen on 127.0.0.1:${config.port}: ${error.message}`);
+      process.exit(1);
+    }
+    console.log(`Tallyhood is serving on ${config.appUrl}`);
+  });
+  const stop = () => {
+    server.close(async () => {
+      await close();
+      mailer.close();
+      await orm.close();
+      process.exit(0);
+    });
+  };
+  process.on('SIGINT', stop);
+  process.on('SIGTERM', stop);
+}
+
+main().catch((error) => {
+  console.error('Tallyhood failed to start:', error);
+  process.exit(1);
+});

@@ -1,0 +1,121 @@
+// Request schemas and response types for builds and their crew.
+import { z } from 'zod';
+import { code as currencyByCode } from 'currency-codes';
+import { BUILD_STATUSES, BuildRole, BuildStatus, INVITABLE_ROLES, InvitableRole } from '../enums';
+import { emailSchema } from './auth';
+
+const isoDate = z
+  .string()
+  .regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-11-14.')
+  .refine((value) => !Number.isNaN(Date.parse(`${value}T00:00:00Z`)) && new Date(`${value}T00:00:00Z`).toISOString().startsWith(value), 'That date does not exist.');
+
+const optionalIsoDate = z.union([isoDate, z.null()]).optional();
+
+export const currencyCodeSchema = z
+  .string({ error: 'Choose a currency.' })
+  .trim()
+  .toUpperCase()
+  .refine((value) => /^[A-Z]{3}$/.test(value) && !!currencyByCode(value), 'Choose an ISO 4217 currency code such as USD or EUR.');
+
+export const localeSchema = z
+  .string()
+  .trim()
+  .refine((value) => {
+    try {
+      return Intl.getCanonicalLocales(value).length === 1;
+    } catch {
+      return false;
+    }
+  }, 'Use a language tag such as en-US or en-GB.');
+
+const buildFields = {
+  name: z.string({ error: 'Give the build a name.' }).trim().min(1, 'Give the build a name.').max(120, 'A name is at most 120 characters.'),
+  vehicle: z.string().trim().max(200, 'The vehicle is at most 200 characters.').default(''),
+  currency: currencyCodeSchema,
+  locale: localeSchema.default('en-US'),
+  status: z.enum(BUILD_STATUSES, { error: `Choose one of: ${BUILD_STATUSES.join(', ')}.` }).default('planning'),
+  startedOn: optionalIsoDate,
+  targetDate: optionalIsoDate,
+};
+
+function targetAfterStart(value: { startedOn?: string | null; targetDate?: string | null }, context: z.RefinementCtx) {
+  if (value.startedOn && value.targetDate && value.targetDate < value.startedOn) {
+    context.addIssue({ code: 'custom', path: ['targetDate'], message: 'The target date is before the start date.' });
+  }
+}
+
+export const createBuildRequest = z.object(buildFields).superRefine(targetAfterStart);
+export type CreateBuildRequest = z.input<typeof createBuildRequest>;
+
+/** The currency is fixed at creation: every amount of the build is in it. */
+export const updateBuildRequest = z
+  .object({
+    name: buildFields.name.optional(),
+    vehicle: z.string().trim().max(200, 'The vehicle is at most 200 characters.').optional(),
+    locale: localeSchema.optional(),
+    status: buildFields.status.optional().transform((value) => value),
+    startedOn: optionalIsoDate,
+    targetDate: optionalIsoDate,
+    version: z.number({ error: 'Send the version you last saw.' }).int().min(1),
+  })
+  .strict()
+  .superRefine(targetAfterStart);
+export type UpdateBuildRequest = z.input<typeof updateBuildRequest>;
+
+export interface BuildDto {
+  id: string;
+  name: string;
+  vehicle: string;
+  currency: string;
+  locale: string;
+  status: BuildStatus;
+  startedOn: string | null;
+  targetDate: string | null;
+  archived: boolean;
+  version: number;
+  /** The caller's role on this build. */
+  role: BuildRole;
+  createdAt: string;
+}
+
+export const inviteRequest = z.object({
+  email: emailSchema,
+  role: z.enum(INVITABLE_ROLES, { error: 'Choose crew or reviewer.' }),
+});
+export type InviteRequest = z.infer<typeof inviteRequest>;
+
+export const changeRoleRequest = z.object({
+  role: z.enum(['owner', 'crew', 'reviewer'], { error: 'Choose owner, crew or reviewer.' }),
+});
+export type ChangeRoleRequest = z.infer<typeof changeRoleRequest>;
+
+export interface MemberDto {
+  userId: string;
+  email: string;
+  displayName: string;
+  role: BuildRole;
+  joinedAt: string;
+}
+
+export interface InviteDto {
+  id: string;
+  email: string;
+  role: InvitableRole;
+  expiresAt: string;
+  createdAt: string;
+}
+
+export interface MembersResponse {
+  members: MemberDto[];
+  /** Pending invites; listed for the owner only. */
+  invites: InviteDto[];
+}
+
+/** GET /api/invites/:token: what a person sees before accepting. */
+export interface InvitePreviewDto {
+  buildName: string;
+  role: InvitableRole;
+  email: string;
+  invitedBy: string;
+  expiresAt: string;
+}
