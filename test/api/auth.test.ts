@@ -1,0 +1,162 @@
+// Accounts against the real PostgreSQL: sign-up, sign-in, sign-out, CSRF, rate limits and password reset.
+import { PasswordReset } from '../../backend/src/auth/password-reset.entity';
+import { User } from '../../backend/src/auth/user.entity';
+import { ApiClient, TEST_PASSWORD, signedUpClient, uniqueEmail } from '../support/api-client';
+import { startTestApp, type TestApp } from '../support/test-app';
+
+let t: TestApp;
+beforeAll(async () => {
+  t = await startTestApp();
+});
+afterAll(() => t.close());
+
+async function userCount(email: string) {
+  return t.orm.em.fork().count(User, { email: email.toLowerCase() });
+}
+
+describe('health', () => {
+  it('reports the database as up', async () => {
+    const res = await new ApiClient(t.app).get('/api/health');
+    expect(res.status).toBe(200);
+    expect(res.body).toEqual({ status: 'ok', database: 'up' });
+  });
+});
+
+describe('sign-up and sign-in', () => {
+  it('creates an account, signs it in, and signs it out', async () => {
+    const client = await new ApiClient(t.app).init();
+    const email = uniqueEmail('Mixed.Case');
+    const created = await client.post('/api/auth/sign-up', { email, displayName: 'Sam Ferrule', password: TEST_PASSWORD });
+    expect(created.status).toBe(201);
+    expect(created.body.user).toEqual({ id: expect.any(String), email: email.toLowerCase(), displayName: 'Sam Ferrule' });
+    expect(([] as string[]).concat(created.headers['set-cookie'] ?? []).join(';')).toMatch(/tallyhood\.sid=.*HttpOnly.*SameSite=Lax/i);
+
+    expect((await client.get('/api/auth/me')).body.user.email).toBe(email.toLowerCase());
+    expect((await client.post('/api/auth/sign-out')).status).toBe(204);
+    expect((await client.get('/api/auth/me')).body).toEqual({ user: null });
+
+    // E-mail is case-insensitive at sign-in too.
+    const again = await client.post('/api/auth/sign-in', { email: email.toUpperCase(), password: TEST_PASSWORD });
+    expect(again.status).toBe(200);
+    expect(again.body.user.displayName).toBe('Sam Ferrule');
+  });
+
+  it('stores an argon2id hash, never the password', async () => {
+    const { email } = await signedUpClient(t.app, 'hash');
+    const user = await t.orm.em.fork().findOneOrFail(User, { email });
+    expect(user.passwordHash).toMatch(/^\$argon2id\$v=19\$m=19456,t=2,p=1\$/);
+    expect(user.passwordHash).not.toContain(TEST_PASSWORD);
+  });
+
+  it('answers 400 naming each bad field and saves nothing', async () => {
+    const client = await new ApiClient(t.app).init();
+    const email = 'not-an-address';
+    const res = await client.post('/api/auth/sign-up', { email, displayName: '', password: 'short' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('validation_failed');
+    expect(Object.keys(res.body.error.fields).sort()).toEqual(['displayName', 'email', 'password']);
+    expect(res.body.error.fields.password).toBe('Use at least 10 characters for the password.');
+    expect(await userCount(email)).toBe(0);
+  });
+
+  it('refuses a second account for the same address, naming the field', async () => {
+    const { email } = await signedUpClient(t.app, 'twice');
+    const other = await new ApiClient(t.app).init();
+    const res = await other.post('/api/auth/sign-up', { email: email.toUpperCase(), displayName: 'Other', password: TEST_PASSWORD });
+    expect(res.status).toBe(409);
+    expect(res.body.error.fields).toEqual({ email: 'An account with this e-mail already exists.' });
+    expect(await userCount(email)).toBe(1);
+  });
+
+  it('answers 401 with one message for a wrong password and an unknown address', async () => {
+    const { email } = await signedUpClient(t.app, 'wrong');
+    const client = await new ApiClient(t.app).init();
+    const wrong = await client.post('/api/auth/sign-in', { email, password: 'not-the-password' });
+    const unknown = await client.post('/api/auth/sign-in', { email: uniqueEmail('nobody'), password: 'whatever-password' });
+    expect(wrong.status).toBe(401);
+    expect(unknown.status).toBe(401);
+    expect(wrong.body.error.message).toBe(unknown.body.error.message);
+  });
+
+  it('rate-limits sign-in attempts for one address', async () => {
+    const { email } = await signedUpClient(t.app, 'limit');
+    const client = await new ApiClient(t.app).init();
+    const statuses: number[] = [];
+    for (let i = 0; i < 11; i += 1) statuses.push((await client.post('/api/auth/sign-in', { email, password: 'wrong-password-x' })).status);
+    expect(statuses.slice(0, 10)).toEqual(Array(10).fill(401));
+    expect(statuses[10]).toBe(429);
+  });
+});
+
+describe('CSRF (double-submit cookie, OWASP CSRF Prevention Cheat Sheet)', () => {
+  it('rejects a state-changing request without the header, and one whose header does not match the cookie', async () => {
+    const { client } = await signedUpClient(t.app, 'csrf');
+    const agent = (client as unknown as { agent: import('supertest').Agent }).agent;
+    const missing = await agent.post('/api/builds').send({ name: 'No token', currency: 'USD' });
+    expect(missing.status).toBe(403);
+    expect(missing.body.error.code).toBe('csrf_failed');
+    const forged = await agent.post('/api/builds').set('X-XSRF-TOKEN', 'forged').send({ name: 'Forged', currency: 'USD' });
+    expect(forged.status).toBe(403);
+    expect((await client.get('/api/builds')).body.builds).toEqual([]);
+  });
+
+  it('sets a readable XSRF-TOKEN cookie on GET /api/auth/me', async () => {
+    const res = await new ApiClient(t.app).get('/api/auth/me');
+    const cookie = ([] as string[]).concat(res.headers['set-cookie'] ?? []).find((c) => c.startsWith('XSRF-TOKEN='));
+    expect(cookie).toBeDefined();
+    expect(cookie).not.toMatch(/HttpOnly/i);
+  });
+});
+
+describe('password reset', () => {
+  function tokenFrom(text: string): string {
+    const match = /reset-password\/([A-Za-z0-9_-]+)/.exec(text);
+    if (!match) throw new Error(`no reset link in: ${text}`);
+    return match[1];
+  }
+
+  it('mails a one-time link that sets a new password and signs out other sessions', async () => {
+    const { client: oldSession, email } = await signedUpClient(t.app, 'reset');
+    const client = await new ApiClient(t.app).init();
+    const asked = await client.post('/api/auth/password-reset', { email });
+    expect(asked.status).toBe(202);
+    const mail = await t.mail.waitFor((m) => m.to.includes(email) && m.subject === 'Reset your Tallyhood password');
+    expect(mail.text).toContain('one hour');
+    const token = tokenFrom(mail.text);
+
+    // Only the hash is stored.
+    const stored = await t.orm.em.fork().find(PasswordReset, { user: { email } });
+    expect(stored).toHaveLength(1);
+    expect(stored[0].tokenHash).toMatch(/^[0-9a-f]{64}$/);
+    expect(stored[0].tokenHash).not.toBe(token);
+
+    const newPassword = 'a-brand-new-password';
+    expect((await client.post('/api/auth/password-reset/confirm', { token, password: newPassword })).status).toBe(204);
+    expect((await oldSession.get('/api/auth/me')).body.user).toBeNull();
+    expect((await client.post('/api/auth/sign-in', { email, password: TEST_PASSWORD })).status).toBe(401);
+    expect((await client.post('/api/auth/sign-in', { email, password: newPassword })).status).toBe(200);
+
+    const reused = await client.post('/api/auth/password-reset/confirm', { token, password: 'yet-another-password' });
+    expect(reused.status).toBe(400);
+    expect(reused.body.error.fields.token).toMatch(/expired or was already used/);
+  });
+
+  it('refuses an expired link', async () => {
+    const { email } = await signedUpClient(t.app, 'expired');
+    const client = await new ApiClient(t.app).init();
+    await client.post('/api/auth/password-reset', { email });
+    const token = tokenFrom((await t.mail.waitFor((m) => m.to.includes(email))).text);
+    await t.orm.em.fork().nativeUpdate(PasswordReset, { user: { email } }, { expiresAt: new Date(Date.now() - 1000) });
+    const res = await client.post('/api/auth/password-reset/confirm', { token, password: 'another-new-password' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields).toHaveProperty('token');
+  });
+
+  it('answers the same for an unknown address and sends nothing', async () => {
+    const email = uniqueEmail('ghost');
+    const res = await (await new ApiClient(t.app).init()).post('/api/auth/password-reset', { email });
+    expect(res.status).toBe(202);
+    await new Promise((r) => setTimeout(r, 200));
+    expect(t.mail.messages.filter((m) => m.to.includes(email))).toHaveLength(0);
+  });
+});

@@ -1,0 +1,46 @@
+// Starts the real app for a test file: the test database (made fresh by npm test), a fake SMTP server, a port.
+import { MikroORM } from '@mikro-orm/postgresql';
+import type { Server } from 'node:http';
+import type { Express } from 'express';
+import { createApp } from '../../backend/src/app';
+import { loadConfig } from '../../backend/src/config';
+import { ormConfig } from '../../backend/src/db/mikro-orm.config';
+import { createMailer } from '../../backend/src/mail/mailer';
+import { startFakeMailServer, type FakeMailServer } from '../../backend/src/mail/fake-mail-server';
+
+export interface TestApp {
+  app: Express;
+  url: string;
+  orm: MikroORM;
+  mail: FakeMailServer;
+  close(): Promise<void>;
+}
+
+export async function startTestApp(options: { serveClient?: boolean } = {}): Promise<TestApp> {
+  const mail = await startFakeMailServer({ quiet: true });
+  const base = loadConfig({ ...process.env, PGDATABASE: process.env.PGDATABASE ?? 'tallyhood_test', PORT: '0' });
+  const orm = await MikroORM.init(ormConfig(base.db));
+  const mailer = createMailer({ ...base.smtp, port: mail.smtpPort });
+  // The URL (and so the links in mail) is only known once the server listens.
+  const config = { ...base, smtp: { ...base.smtp, port: mail.smtpPort }, clientDist: options.serveClient ? base.clientDist : '/nonexistent' };
+  const holder: { server?: Server } = {};
+  const running = createApp({ orm, config, mailer });
+  await new Promise<void>((resolve) => {
+    holder.server = running.app.listen(0, '127.0.0.1', () => resolve());
+  });
+  const port = (holder.server!.address() as { port: number }).port;
+  config.appUrl = `http://127.0.0.1:${port}`;
+  return {
+    app: running.app,
+    url: config.appUrl,
+    orm,
+    mail,
+    async close() {
+      await new Promise<void>((resolve) => holder.server!.close(() => resolve()));
+      await running.close();
+      mailer.close();
+      await mail.close();
+      await orm.close(true);
+    },
+  };
+}
