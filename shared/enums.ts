@@ -22,3 +22,34 @@ export const BUILD_STATUS_LABELS: Record<BuildStatus, string> = {
   finished: 'Finished',
   sold: 'Sold',
 };
+
+export const PART_STATUSES = ['planned', 'ordered', 'on_hand', 'installed', 'returned', 'sold'] as const;
+export type PartStatus = (typeof PART_STATUSES)[number];
+
+export const PART_STATUS_LABELS: Record<PartStatus, string> = {
+  planned: 'Planned',
+  ordered: 'Ordered',
+  on_hand: 'On the shelf',
+  installed: 'Fitted',
+  returned: 'Sent back',
+  sold: 'Sold on',
+};
+
+/** Statuses whose money is committed: the part was bought (the estimate is no longer "remaining"). */
+export const BOUGHT_STATUSES: readonly PartStatus[] = ['ordered', 'on_hand', 'installed', 'returned', 'sold'];
+
+/** The systems every new build starts with; the owner renames, reorders, archives and adds to them. */
+export const DEFAULT_SYSTEMS = [
+  'Engine',
+  'Wiring harness',
+  'Cooling',
+  'Fuel',
+  'Drivetrain',
+  'Exhaust',
+  'Brakes',
+  'Suspension',
+  'Safety and track inspection',
+  'Interior',
+  'Body',
+  'Tools and consumables',
+] as const;

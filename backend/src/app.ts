@@ -14,6 +14,8 @@ import { buildsRoutes } from './builds/builds.routes';
 import type { AppConfig } from './config';
 import { crewRoutes, inviteLinkRoutes } from './crew/crew.routes';
 import { csrfProtection } from './http/csrf';
+import { partsRoutes } from './parts/parts.routes';
+import { systemsRoutes } from './systems/systems.routes';
 import { errorMiddleware, NotFound } from './http/errors';
 import type { Mailer } from './mail/mailer';
 
@@ -84,6 +86,8 @@ export function createApp({ orm, config, mailer }: AppDeps): RunningApp {
   api.use('/invites', inviteLinkRoutes());
   api.use('/builds', buildsRoutes());
   api.use('/builds/:buildId', crewRoutes(mailer, config));
+  api.use('/builds/:buildId', systemsRoutes());
+  api.use('/builds/:buildId', partsRoutes());
   api.use(() => {
     throw new NotFound('That API route');
   });

@@ -8,6 +8,8 @@ export interface ApiErrorBody {
     message: string;
     /** Field name (dotted path for nested fields) to the problem with it. */
     fields?: Record<string, string>;
+    /** On a stale edit (code stale_version): the record as it is saved now. */
+    current?: unknown;
   };
 }
 

@@ -9,6 +9,8 @@ const ACTORS: Actor[] = ['owner', 'crew', 'reviewer', 'outsider', 'anonymous'];
 
 interface Fixture {
   buildId: string;
+  systemId: string;
+  partId: string;
   clients: Record<Actor, ApiClient>;
   userIds: Record<'owner' | 'crew' | 'reviewer', string>;
 }
@@ -22,6 +24,9 @@ interface RouteCase {
 
 const readable = { owner: 200, crew: 200, reviewer: 200, outsider: 404, anonymous: 401 };
 const ownerOnly = (ok: number) => ({ owner: ok, crew: 403, reviewer: 403, outsider: 404, anonymous: 401 });
+const editors = (ok: number) => ({ owner: ok, crew: ok, reviewer: 403, outsider: 404, anonymous: 401 });
+const PART = { description: 'Radiator hose', quantity: '2', unit: 'each', estimatedUnitCost: '18.40' };
+const CSV = 'system,description,quantity,unit,estimated unit cost\nCooling,Hose clamp,4,each,1.25\n';
 
 const ROUTES: RouteCase[] = [
   { name: 'GET /api/builds/:buildId', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}`), expected: readable },
@@ -60,6 +65,52 @@ const ROUTES: RouteCase[] = [
     call: (f, a) => f.clients[a].delete(`/api/builds/${f.buildId}/members/${f.userIds.crew}`),
     expected: { owner: 204, crew: 204, reviewer: 403, outsider: 404, anonymous: 401 },
   },
+  { name: 'GET /api/builds/:buildId/systems', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/systems`), expected: readable },
+  {
+    name: 'POST /api/builds/:buildId/systems',
+    call: (f, a) => f.clients[a].post(`/api/builds/${f.buildId}/systems`, { name: `Steering ${a}`, budget: '400.00' }),
+    expected: ownerOnly(201),
+  },
+  {
+    name: 'PATCH /api/builds/:buildId/systems/:systemId',
+    call: (f, a) => f.clients[a].patch(`/api/builds/${f.buildId}/systems/${f.systemId}`, { budget: '950.00', version: 1 }),
+    expected: ownerOnly(200),
+  },
+  {
+    name: 'PUT /api/builds/:buildId/contingency',
+    call: async (f, a) => {
+      const version = (await f.clients.owner.get(`/api/builds/${f.buildId}`)).body.version;
+      return f.clients[a].send('put', `/api/builds/${f.buildId}/contingency`, { contingencyBudget: '500.00', version });
+    },
+    expected: ownerOnly(200),
+  },
+  { name: 'GET /api/builds/:buildId/parts', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/parts`), expected: readable },
+  {
+    name: 'POST /api/builds/:buildId/parts',
+    call: (f, a) => f.clients[a].post(`/api/builds/${f.buildId}/parts`, { ...PART, systemId: f.systemId }),
+    expected: editors(201),
+  },
+  {
+    name: 'PATCH /api/builds/:buildId/parts/:partId',
+    call: (f, a) => f.clients[a].patch(`/api/builds/${f.buildId}/parts/${f.partId}`, { status: 'ordered', version: 1 }),
+    expected: editors(200),
+  },
+  { name: 'DELETE /api/builds/:buildId/parts/:partId', call: (f, a) => f.clients[a].delete(`/api/builds/${f.buildId}/parts/${f.partId}`), expected: editors(204) },
+  {
+    name: 'POST /api/builds/:buildId/parts/bulk',
+    call: (f, a) => f.clients[a].post(`/api/builds/${f.buildId}/parts/bulk`, { action: 'status', partIds: [f.partId], status: 'on_hand' }),
+    expected: editors(200),
+  },
+  {
+    name: 'POST /api/builds/:buildId/parts/import (preview)',
+    call: (f, a) => f.clients[a].sendText('post', `/api/builds/${f.buildId}/parts/import`, CSV),
+    expected: editors(200),
+  },
+  {
+    name: 'POST /api/builds/:buildId/parts/import?commit=true',
+    call: (f, a) => f.clients[a].sendText('post', `/api/builds/${f.buildId}/parts/import?commit=true`, CSV),
+    expected: editors(201),
+  },
 ];
 
 let t: TestApp;
@@ -82,8 +133,13 @@ async function fixture(): Promise<Fixture> {
     const token = /\/invites\/([A-Za-z0-9_-]+)/.exec(mail.text)![1];
     await person.client.post(`/api/invites/${token}/accept`);
   }
+  const systems = (await owner.client.get(`/api/builds/${buildId}/systems`)).body.systems;
+  const systemId = systems.find((x: { name: string }) => x.name === 'Cooling').id;
+  const partId = (await owner.client.post(`/api/builds/${buildId}/parts`, { ...PART, systemId })).body.id;
   return {
     buildId,
+    systemId,
+    partId,
     clients: { owner: owner.client, crew: crew.client, reviewer: reviewer.client, outsider: outsider.client, anonymous },
     userIds: { owner: owner.userId, crew: crew.userId, reviewer: reviewer.userId },
   };

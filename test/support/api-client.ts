@@ -35,6 +35,13 @@ export class ApiClient {
     return res;
   }
 
+  /** Sends a raw text body (CSV) with a content type. */
+  async sendText(method: 'post' | 'put', url: string, text: string, contentType = 'text/csv') {
+    const res = await this.agent[method](url).set('X-XSRF-TOKEN', this.csrf).set('Content-Type', contentType).send(text);
+    this.readToken(res.headers['set-cookie']);
+    return res;
+  }
+
   get(url: string) {
     return this.send('get', url);
   }

@@ -32,6 +32,7 @@ function logIn(req: Request, user: User): Promise<void> {
 export function authRoutes(passport: AppPassport, mailer: Mailer, config: AppConfig): Router {
   const router = Router();
   const signInLimit = limiter(15 * 60 * 1000, 10, 'sign-in');
+  const signUpLimit = limiter(15 * 60 * 1000, 10, 'sign-up');
   const resetLimit = limiter(60 * 60 * 1000, 5, 'reset');
 
   router.get('/me', (req, res) => {
@@ -39,7 +40,7 @@ export function authRoutes(passport: AppPassport, mailer: Mailer, config: AppCon
     res.json(body);
   });
 
-  router.post('/sign-up', signInLimit, validBody(signUpRequest), async (req, res) => {
+  router.post('/sign-up', signUpLimit, validBody(signUpRequest), async (req, res) => {
     const { inviteToken, ...account } = req.body;
     const user = await em().transactional(async (tx) => {
       const created = await createAccount(tx, account);

@@ -2,9 +2,11 @@
 import { EntitySchema, OptionalProps } from '@mikro-orm/core';
 import { randomUUID } from 'node:crypto';
 import { BUILD_STATUSES, type BuildStatus } from '../../../shared/enums';
+import { Decimal } from '../../../shared/money';
+import { DecimalType } from '../db/decimal-type';
 
 export class Build {
-  [OptionalProps]?: 'createdAt' | 'updatedAt' | 'version' | 'vehicle' | 'locale' | 'status' | 'startedOn' | 'targetDate' | 'archivedAt';
+  [OptionalProps]?: 'createdAt' | 'updatedAt' | 'version' | 'vehicle' | 'locale' | 'status' | 'startedOn' | 'targetDate' | 'archivedAt' | 'contingencyBudget';
   id: string = randomUUID();
   name!: string;
   vehicle = '';
@@ -16,6 +18,8 @@ export class Build {
   startedOn: string | null = null;
   targetDate: string | null = null;
   archivedAt: Date | null = null;
+  /** Held back for the unexpected; the build's budget is the systems' budgets plus this. */
+  contingencyBudget: Decimal = new Decimal(0);
   version = 1;
   createdAt: Date = new Date();
   updatedAt: Date = new Date();
@@ -33,6 +37,7 @@ export const BuildSchema = new EntitySchema<Build>({
     startedOn: { type: 'date', nullable: true },
     targetDate: { type: 'date', nullable: true },
     archivedAt: { type: 'datetime', nullable: true },
+    contingencyBudget: { type: DecimalType, default: '0' },
     version: { type: 'integer', version: true },
     createdAt: { type: 'datetime', defaultRaw: 'now()' },
     updatedAt: { type: 'datetime', defaultRaw: 'now()', onUpdate: () => new Date() },

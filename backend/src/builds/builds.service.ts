@@ -6,6 +6,7 @@ import type { User } from '../auth/user.entity';
 import { StaleVersion, ValidationFailed } from '../http/errors';
 import { Build } from './build.entity';
 import { Membership } from './membership.entity';
+import { addDefaultSystems } from '../systems/systems.service';
 
 export interface NewBuild {
   name: string;
@@ -45,6 +46,7 @@ export async function createBuild(em: EntityManager, owner: User, input: NewBuil
     targetDate: input.targetDate ?? null,
   });
   em.create(Membership, { build, user: owner, role: 'owner' });
+  addDefaultSystems(em, build);
   await em.flush();
   return build;
 }

@@ -17,6 +17,7 @@ export class Membership {
 export const MembershipSchema = new EntitySchema<Membership>({
   class: Membership,
   uniques: [{ properties: ['build', 'user'] }],
+  indexes: [{ name: 'membership_user_id_index', properties: ['user'] }],
   properties: {
     id: { type: 'uuid', primary: true },
     build: { kind: 'm:1', entity: () => Build, deleteRule: 'cascade' },

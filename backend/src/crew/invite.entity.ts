@@ -22,6 +22,7 @@ export class Invite {
 
 export const InviteSchema = new EntitySchema<Invite>({
   class: Invite,
+  indexes: [{ name: 'invite_build_id_index', properties: ['build'] }],
   properties: {
     id: { type: 'uuid', primary: true },
     build: { kind: 'm:1', entity: () => Build, deleteRule: 'cascade' },

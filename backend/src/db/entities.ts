@@ -4,5 +4,7 @@ import { UserSchema } from '../auth/user.entity';
 import { BuildSchema } from '../builds/build.entity';
 import { MembershipSchema } from '../builds/membership.entity';
 import { InviteSchema } from '../crew/invite.entity';
+import { PartSchema } from '../parts/part.entity';
+import { VehicleSystemSchema } from '../systems/vehicle-system.entity';
 
-export const entities = [UserSchema, PasswordResetSchema, BuildSchema, MembershipSchema, InviteSchema];
+export const entities = [UserSchema, PasswordResetSchema, BuildSchema, MembershipSchema, InviteSchema, VehicleSystemSchema, PartSchema];

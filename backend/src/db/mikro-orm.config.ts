@@ -23,6 +23,8 @@ export function ormConfig(db = loadConfig().db) {
       snapshot: false,
       emit: 'ts',
     },
+    // The session table belongs to connect-pg-simple; it is created by the first migration.
+    schemaGenerator: { skipTables: ['session'] },
     pool: { min: 0, max: 10 },
     debug: false,
   });

@@ -10,6 +10,8 @@ export class AppError extends Error {
     readonly code: string,
     message: string,
     readonly fields?: Record<string, string>,
+    /** Extra members of the error object, such as the current record on a stale edit. */
+    readonly extra?: Record<string, unknown>,
   ) {
     super(message);
   }
@@ -34,8 +36,9 @@ export class Conflict extends AppError {
 }
 
 export class StaleVersion extends AppError {
-  constructor(what = 'This record') {
-    super(409, 'stale_version', `${what} was changed by someone else since you opened it. Reload to see their changes, then try again.`);
+  /** `current` is the record as saved now, so the client can show what changed. */
+  constructor(what = 'This record', current?: unknown) {
+    super(409, 'stale_version', `${what} was changed by someone else since you opened it. Check their changes, then save again.`, undefined, current === undefined ? undefined : { current });
   }
 }
 
@@ -61,13 +64,13 @@ export function fieldsFromZod(error: z.ZodError): Record<string, string> {
   return fields;
 }
 
-export function errorBody(code: string, message: string, fields?: Record<string, string>): ApiErrorBody {
-  return { error: fields ? { code, message, fields } : { code, message } };
+export function errorBody(code: string, message: string, fields?: Record<string, string>, extra?: Record<string, unknown>): ApiErrorBody {
+  return { error: { code, message, ...(fields ? { fields } : {}), ...extra } };
 }
 
 export const errorMiddleware: ErrorRequestHandler = (err, _req, res, _next) => {
   if (err instanceof AppError) {
-    res.status(err.status).json(errorBody(err.code, err.message, err.fields));
+    res.status(err.status).json(errorBody(err.code, err.message, err.fields, err.extra));
     return;
   }
   if (err instanceof OptimisticLockError) {

@@ -1,0 +1,54 @@
+// A bill-of-materials line: a part a system needs, its estimate, and where it is from planned to fitted.
+import { EntitySchema, OptionalProps } from '@mikro-orm/core';
+import { randomUUID } from 'node:crypto';
+import { PART_STATUSES, type PartStatus } from '../../../shared/enums';
+import type { Decimal } from '../../../shared/money';
+import { UNITS, type Unit } from '../../../shared/units';
+import { Build } from '../builds/build.entity';
+import { DecimalType } from '../db/decimal-type';
+import { VehicleSystem } from '../systems/vehicle-system.entity';
+
+export class Part {
+  [OptionalProps]?: 'partNumber' | 'status' | 'storageLocation' | 'sourceUrl' | 'notes' | 'forSale' | 'askingPrice' | 'version' | 'createdAt' | 'updatedAt';
+  id: string = randomUUID();
+  build!: Build;
+  system!: VehicleSystem;
+  description!: string;
+  partNumber = '';
+  quantity!: Decimal;
+  unit!: Unit;
+  estimatedUnitCost!: Decimal;
+  status: PartStatus = 'planned';
+  storageLocation = '';
+  sourceUrl = '';
+  notes = '';
+  forSale = false;
+  askingPrice: Decimal | null = null;
+  version = 1;
+  createdAt: Date = new Date();
+  updatedAt: Date = new Date();
+}
+
+export const PartSchema = new EntitySchema<Part>({
+  class: Part,
+  indexes: [{ properties: ['build', 'system'] }, { properties: ['build', 'status'] }],
+  properties: {
+    id: { type: 'uuid', primary: true },
+    build: { kind: 'm:1', entity: () => Build, deleteRule: 'cascade' },
+    system: { kind: 'm:1', entity: () => VehicleSystem, deleteRule: 'restrict' },
+    description: { type: 'string', length: 200 },
+    partNumber: { type: 'string', length: 80, default: '' },
+    quantity: { type: DecimalType },
+    unit: { enum: true, items: () => [...UNITS] },
+    estimatedUnitCost: { type: DecimalType },
+    status: { enum: true, items: () => [...PART_STATUSES], default: 'planned' },
+    storageLocation: { type: 'string', length: 120, default: '' },
+    sourceUrl: { type: 'string', length: 2000, default: '' },
+    notes: { type: 'text', default: '' },
+    forSale: { type: 'boolean', default: false },
+    askingPrice: { type: DecimalType, nullable: true },
+    version: { type: 'integer', version: true },
+    createdAt: { type: 'datetime', defaultRaw: 'now()' },
+    updatedAt: { type: 'datetime', defaultRaw: 'now()', onUpdate: () => new Date() },
+  },
+});

@@ -1,0 +1,105 @@
+// Parts of the bill of materials: list, add, edit with a version check, remove, and bulk moves and status changes.
+import type { EntityManager } from '@mikro-orm/postgresql';
+import type { PartDto, UpdatePartRequest } from '../../../shared/api/parts';
+import type { PartStatus } from '../../../shared/enums';
+import { type Decimal, minorUnits, toWire } from '../../../shared/money';
+import type { Unit } from '../../../shared/units';
+import type { Build } from '../builds/build.entity';
+import { NotFound, StaleVersion } from '../http/errors';
+import { checkBudget, findSystem, partEstimate } from '../systems/systems.service';
+import { Part } from './part.entity';
+
+export interface PartInput {
+  systemId: string;
+  description: string;
+  partNumber: string;
+  quantity: Decimal;
+  unit: Unit;
+  estimatedUnitCost: Decimal;
+  status: PartStatus;
+  storageLocation: string;
+  sourceUrl: string;
+  notes: string;
+  forSale: boolean;
+  askingPrice: Decimal | null;
+}
+
+export type PartChanges = Partial<PartInput> & { version: number };
+
+export function partDto(part: Part, currency: string): PartDto {
+  return {
+    id: part.id,
+    systemId: part.system.id,
+    description: part.description,
+    partNumber: part.partNumber,
+    quantity: toWire(part.quantity),
+    unit: part.unit,
+    estimatedUnitCost: toWire(part.estimatedUnitCost),
+    estimatedTotal: toWire(partEstimate(part, currency), minorUnits(currency)),
+    status: part.status,
+    storageLocation: part.storageLocation,
+    sourceUrl: part.sourceUrl,
+    notes: part.notes,
+    forSale: part.forSale,
+    askingPrice: part.askingPrice === null ? null : toWire(part.askingPrice, minorUnits(currency)),
+    version: part.version,
+    updatedAt: part.updatedAt.toISOString(),
+  };
+}
+
+export async function listParts(em: EntityManager, build: Build, filter: { systemId?: string; status?: string }): Promise<Part[]> {
+  return em.find(
+    Part,
+    { build, ...(filter.systemId ? { system: filter.systemId } : {}), ...(filter.status ? { status: filter.status as PartStatus } : {}) },
+    { orderBy: { system: { sortOrder: 'asc' }, createdAt: 'asc' } },
+  );
+}
+
+export async function createPart(em: EntityManager, build: Build, input: PartInput): Promise<Part> {
+  const system = await findSystem(em, build, input.systemId, 'systemId');
+  if (input.askingPrice) checkBudget(build, 'askingPrice', input.askingPrice);
+  const { systemId: _systemId, ...fields } = input;
+  const part = em.create(Part, { ...fields, build, system });
+  await em.flush();
+  return part;
+}
+
+async function findPart(em: EntityManager, build: Build, partId: string): Promise<Part> {
+  const part = await em.findOne(Part, { id: partId, build });
+  if (!part) throw new NotFound('That part');
+  return part;
+}
+
+export async function updatePart(em: EntityManager, build: Build, partId: string, changes: PartChanges | UpdatePartRequest): Promise<Part> {
+  const part = await findPart(em, build, partId);
+  const { version, systemId, ...fields } = changes as PartChanges;
+  if (part.version !== version) throw new StaleVersion('This part', partDto(part, build.currency));
+  if (fields.askingPrice) checkBudget(build, 'askingPrice', fields.askingPrice);
+  if (systemId !== undefined) part.system = await findSystem(em, build, systemId, 'systemId');
+  for (const [key, value] of Object.entries(fields)) if (value !== undefined) (part as unknown as Record<string, unknown>)[key] = value;
+  await em.flush();
+  return part;
+}
+
+export async function deletePart(em: EntityManager, build: Build, partId: string): Promise<void> {
+  await em.removeAndFlush(await findPart(em, build, partId));
+}
+
+/** Moves parts to a system or sets their status, all or nothing; every id must be a part of this build. */
+export async function bulkUpdateParts(
+  em: EntityManager,
+  build: Build,
+  input: { partIds: string[]; action: 'move'; systemId: string } | { partIds: string[]; action: 'status'; status: PartStatus },
+): Promise<Part[]> {
+  const ids = [...new Set(input.partIds)];
+  const parts = await em.find(Part, { id: { $in: ids }, build });
+  if (parts.length !== ids.length) throw new NotFound('Some of those parts');
+  if (input.action === 'move') {
+    const system = await findSystem(em, build, input.systemId, 'systemId');
+    for (const part of parts) part.system = system;
+  } else {
+    for (const part of parts) part.status = input.status;
+  }
+  await em.flush();
+  return parts;
+}
