@@ -53,3 +53,47 @@ export const DEFAULT_SYSTEMS = [
   'Body',
   'Tools and consumables',
 ] as const;
+
+/** Where a receipt is on its way from photo to filed lines. */
+export const RECEIPT_STATES = ['queued', 'reading', 'to_check', 'filed', 'failed'] as const;
+export type ReceiptState = (typeof RECEIPT_STATES)[number];
+
+export const RECEIPT_STATE_LABELS: Record<ReceiptState, string> = {
+  queued: 'Waiting to be read',
+  reading: 'Reading',
+  to_check: 'Ready to check',
+  filed: 'Filed',
+  failed: 'Could not be read',
+};
+
+export const REVIEW_STATES = ['none', 'approved', 'questioned'] as const;
+export type ReviewState = (typeof REVIEW_STATES)[number];
+
+export const REVIEW_STATE_LABELS: Record<ReviewState, string> = {
+  none: 'Not reviewed',
+  approved: 'Approved',
+  questioned: 'Questioned',
+};
+
+export const CORE_STATES = ['owed', 'dropped_off', 'refunded', 'forfeited'] as const;
+export type CoreState = (typeof CORE_STATES)[number];
+
+export const CORE_STATE_LABELS: Record<CoreState, string> = {
+  owed: 'Old part still here',
+  dropped_off: 'Old part handed in',
+  refunded: 'Deposit back',
+  forfeited: 'Deposit lost',
+};
+
+/** What a receipt line is: money out for a part, money back for a return, a core deposit and its refund, a fee, a discount. */
+export const RECEIPT_LINE_KINDS = ['part', 'return', 'core_charge', 'core_refund', 'fee', 'discount'] as const;
+export type ReceiptLineKind = (typeof RECEIPT_LINE_KINDS)[number];
+
+export const RECEIPT_LINE_KIND_LABELS: Record<ReceiptLineKind, string> = {
+  part: 'Purchase',
+  return: 'Return',
+  core_charge: 'Core deposit',
+  core_refund: 'Core refund',
+  fee: 'Fee',
+  discount: 'Discount',
+};

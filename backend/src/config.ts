@@ -10,6 +10,7 @@ export interface AppConfig {
   secureCookies: boolean;
   smtp: { host: string; port: number; from: string };
   clientDist: string;
+  storage: { endpoint: string; region: string; bucket: string; accessKeyId: string; secretAccessKey: string; forcePathStyle: boolean };
 }
 
 function integer(value: string | undefined, fallback: number, name: string): number {
@@ -41,5 +42,14 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
       from: env.MAIL_FROM ?? 'Tallyhood <no-reply@tallyhood.test>',
     },
     clientDist: env.CLIENT_DIST ?? path.resolve(__dirname, '../../dist/tallyhood/browser'),
+    // Any S3-compatible store; the defaults reach the local fake that npm start and npm test run.
+    storage: {
+      endpoint: env.S3_ENDPOINT ?? 'http://127.0.0.1:4569',
+      region: env.S3_REGION ?? 'us-east-1',
+      bucket: env.S3_BUCKET ?? 'tallyhood-documents',
+      accessKeyId: env.S3_ACCESS_KEY_ID ?? 'S3RVER',
+      secretAccessKey: env.S3_SECRET_ACCESS_KEY ?? 'S3RVER',
+      forcePathStyle: env.S3_FORCE_PATH_STYLE !== 'false',
+    },
   };
 }

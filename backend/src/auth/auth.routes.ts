@@ -42,14 +42,14 @@ export function authRoutes(passport: AppPassport, mailer: Mailer, config: AppCon
 
   router.post('/sign-up', signUpLimit, validBody(signUpRequest), async (req, res) => {
     const { inviteToken, ...account } = req.body;
-    const user = await em().transactional(async (tx) => {
+    const { user, buildId } = await em().transactional(async (tx) => {
       const created = await createAccount(tx, account);
-      if (inviteToken) await acceptInvite(tx, created, inviteToken);
-      return created;
+      const joined = inviteToken ? await acceptInvite(tx, created, inviteToken) : null;
+      return { user: created, buildId: joined?.id };
     });
     await logIn(req, user);
     issueCsrfToken(res, config.secureCookies);
-    res.status(201).json({ user: userDto(user) });
+    res.status(201).json(buildId ? { user: userDto(user), buildId } : { user: userDto(user) });
   });
 
   router.post('/sign-in', signInLimit, validBody(signInRequest), (req, res, next) => {

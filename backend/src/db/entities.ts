@@ -6,5 +6,10 @@ import { MembershipSchema } from '../builds/membership.entity';
 import { InviteSchema } from '../crew/invite.entity';
 import { PartSchema } from '../parts/part.entity';
 import { VehicleSystemSchema } from '../systems/vehicle-system.entity';
+import { AuditEventSchema } from '../audit/audit-event.entity';
+import { CoreSchema } from '../receipts/core.entity';
+import { ReceiptLineSchema } from '../receipts/receipt-line.entity';
+import { ReceiptSchema } from '../receipts/receipt.entity';
+import { VendorSchema } from '../receipts/vendor.entity';
 
-export const entities = [UserSchema, PasswordResetSchema, BuildSchema, MembershipSchema, InviteSchema, VehicleSystemSchema, PartSchema];
+export const entities = [UserSchema, PasswordResetSchema, BuildSchema, MembershipSchema, InviteSchema, VehicleSystemSchema, PartSchema, VendorSchema, ReceiptSchema, ReceiptLineSchema, CoreSchema, AuditEventSchema];

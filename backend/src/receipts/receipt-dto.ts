@@ -1,0 +1,116 @@
+// Turns receipts and their lines into the API's shapes, with reconciliation and likely duplicates.
+import type { EntityManager } from '@mikro-orm/postgresql';
+import type { ReceiptDto, ReceiptLineDto, ReceiptSummaryDto } from '../../../shared/api/receipts';
+import type { BuildRole } from '../../../shared/enums';
+import { Decimal, minorUnits, toWire } from '../../../shared/money';
+import { reconcile } from '../../../shared/receipt-math';
+import { ReceiptLine } from './receipt-line.entity';
+import { Receipt } from './receipt.entity';
+
+const money = (value: Decimal | null, places: number) => (value === null ? null : toWire(value, places));
+
+export function lineDto(line: ReceiptLine, currency: string): ReceiptLineDto {
+  const places = minorUnits(currency);
+  return {
+    id: line.id,
+    position: line.position,
+    kind: line.kind,
+    description: line.description,
+    partNumber: line.partNumber,
+    quantity: toWire(line.quantity),
+    unitPrice: line.unitPrice === null ? null : toWire(line.unitPrice),
+    amount: toWire(line.amount, places),
+    taxable: line.taxable,
+    allocatedTax: toWire(line.allocatedTax, places),
+    allocatedShipping: toWire(line.allocatedShipping, places),
+    allocatedDiscount: toWire(line.allocatedDiscount, places),
+    partId: line.part?.id ?? null,
+    partDescription: line.part && line.part.description !== undefined ? line.part.description : null,
+    systemId: line.system?.id ?? null,
+    returnOfLineId: line.returnOf?.id ?? null,
+    box: line.box,
+    confidence: line.confidence ?? {},
+    version: line.version,
+  };
+}
+
+/** Other receipts of the same build with the same document, or the same shop, date and total. */
+export async function findDuplicates(em: EntityManager, receipts: Receipt[]): Promise<Map<string, string[]>> {
+  const result = new Map<string, string[]>(receipts.map((r) => [r.id, []]));
+  if (receipts.length === 0) return result;
+  const buildId = receipts[0].build.id;
+  const rows: { id: string; other: string }[] = await em.getConnection().execute(
+    `select r.id, o.id as other
+       from receipt r
+       join receipt o on o.build_id = r.build_id and o.id <> r.id
+      where r.build_id = ? and r.id = any(?::uuid[])
+        and (o.sha256 = r.sha256
+             or (r.vendor_id is not null and o.vendor_id = r.vendor_id and o.purchase_date = r.purchase_date and o.total = r.total))
+      order by o.created_at`,
+    [buildId, `{${receipts.map((r) => r.id).join(',')}}`],
+  );
+  for (const row of rows) result.get(row.id)!.push(row.other);
+  return result;
+}
+
+export function summaryDto(receipt: Receipt, extra: { lineCount: number; duplicateOf: string[]; systemIds: string[] }): ReceiptSummaryDto {
+  const places = minorUnits(receipt.build.currency);
+  return {
+    id: receipt.id,
+    vendorName: receipt.vendor?.name ?? null,
+    purchaseDate: receipt.purchaseDate ?? null,
+    receiptNumber: receipt.receiptNumber,
+    total: money(receipt.total, places),
+    state: receipt.state,
+    readingProgress: receipt.readingProgress,
+    reviewState: receipt.reviewState,
+    originalFilename: receipt.originalFilename,
+    contentType: receipt.contentType,
+    lineCount: extra.lineCount,
+    duplicateOf: extra.duplicateOf,
+    systemIds: extra.systemIds,
+    uploadedBy: receipt.uploadedBy.displayName ?? '',
+    createdAt: receipt.createdAt.toISOString(),
+    version: receipt.version,
+  };
+}
+
+export async function receiptDto(em: EntityManager, receipt: Receipt, role: BuildRole): Promise<ReceiptDto> {
+  const currency = receipt.build.currency;
+  const places = minorUnits(currency);
+  const lines = await em.find(ReceiptLine, { receipt }, { populate: ['part'], orderBy: { position: 'asc', createdAt: 'asc' } });
+  await em.populate(receipt, ['reading', 'uploadedBy', 'vendor']);
+  const duplicates = await findDuplicates(em, [receipt]);
+  const reading = (receipt.reading ?? {}) as { fieldConfidence?: Record<string, number>; notes?: string[] };
+  const rec = reconcile(lines, receipt);
+  const editable = role === 'owner' || (role === 'crew' && receipt.state !== 'filed');
+  return {
+    ...summaryDto(receipt, {
+      lineCount: lines.length,
+      duplicateOf: duplicates.get(receipt.id) ?? [],
+      systemIds: [...new Set(lines.map((l) => l.system?.id).filter((id): id is string => !!id))],
+    }),
+    currency,
+    locale: receipt.build.locale,
+    subtotal: money(receipt.subtotal, places),
+    tax: money(receipt.tax, places),
+    shipping: money(receipt.shipping, places),
+    discount: money(receipt.discount, places),
+    differenceAccepted: receipt.differenceAccepted,
+    differenceReason: receipt.differenceReason,
+    readingError: receipt.readingError,
+    reviewComment: receipt.reviewComment,
+    pages: receipt.pageImages.map((page, index) => ({ index, width: page.width, height: page.height })),
+    fieldConfidence: reading.fieldConfidence ?? {},
+    readingNotes: reading.notes ?? [],
+    lines: lines.map((line) => lineDto(line, currency)),
+    reconciliation: {
+      linesTotal: toWire(rec.linesTotal, places),
+      computedTotal: toWire(rec.computedTotal, places),
+      printedTotal: money(rec.printedTotal, places),
+      difference: money(rec.difference, places),
+      reconciles: rec.reconciles,
+    },
+    editable,
+  };
+}

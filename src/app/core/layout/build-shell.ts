@@ -1,0 +1,179 @@
+// A build's frame: its sections as a side rail on wide screens and a bottom bar on phones.
+import { ChangeDetectionStrategy, Component, effect, inject, input, untracked } from '@angular/core';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { CurrentBuild } from '../../features/builds/services/current-build';
+
+export interface BuildSection {
+  /** Relative to /builds/:buildId. */
+  path: string;
+  label: string;
+  icon: string;
+}
+
+/** The build's sections in order; later features add theirs here (Parts, Receipts, Ledger, Cores and returns, Review, Exports). */
+export const BUILD_SECTIONS: readonly BuildSection[] = [
+  { path: '.', label: 'Overview', icon: 'directions_car' },
+  { path: 'crew', label: 'Crew', icon: 'group' },
+];
+
+@Component({
+  selector: 'th-build-shell',
+  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatIconModule, MatProgressBarModule],
+  providers: [CurrentBuild],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  template: `
+    <div class="shell">
+      <nav class="sections" aria-label="Build sections">
+        <ul>
+          @for (section of sections; track section.path) {
+            <li>
+              <a
+                [routerLink]="section.path"
+                routerLinkActive="active"
+                [routerLinkActiveOptions]="{ exact: section.path === '.' }"
+                ariaCurrentWhenActive="page"
+              >
+                <mat-icon aria-hidden="true">{{ section.icon }}</mat-icon>
+                <span class="section-label">{{ section.label }}</span>
+              </a>
+            </li>
+          }
+        </ul>
+      </nav>
+      <div class="content">
+        @if (current.loading()) {
+          <mat-progress-bar mode="indeterminate" aria-label="Loading the build" />
+        }
+        <div class="context">
+          <a routerLink="/builds">Your builds</a>
+          @if (current.build(); as build) {
+            <span aria-hidden="true"> / </span><span class="context-name">{{ build.name }}</span>
+          }
+        </div>
+        @if (current.problem()) {
+          <div class="page">
+            <p class="notice notice-error" role="alert">{{ current.problem() }}</p>
+            <a routerLink="/builds">Back to your builds</a>
+          </div>
+        } @else {
+          <router-outlet />
+        }
+      </div>
+    </div>
+  `,
+  styles: `
+    :host {
+      display: flex;
+      flex: 1;
+    }
+    .shell {
+      display: flex;
+      flex: 1;
+    }
+    .sections ul {
+      list-style: none;
+      margin: 0;
+      padding: 0;
+    }
+    .sections a {
+      display: flex;
+      flex-direction: column;
+      align-items: center;
+      gap: 4px;
+      color: var(--mat-sys-on-surface-variant);
+      text-decoration: none;
+      font: var(--mat-sys-label-medium);
+      border-radius: 16px;
+      padding: 8px 4px;
+    }
+    .sections a mat-icon {
+      padding: 4px 16px;
+      border-radius: 16px;
+    }
+    .sections a:hover mat-icon {
+      background: var(--mat-sys-surface-container-highest);
+    }
+    .sections a.active {
+      color: var(--mat-sys-on-surface);
+      font-weight: 600;
+    }
+    .sections a.active mat-icon {
+      background: var(--mat-sys-secondary-container);
+      color: var(--mat-sys-on-secondary-container);
+    }
+    .sections a:focus-visible {
+      outline: 2px solid var(--mat-sys-primary);
+      outline-offset: 2px;
+    }
+    .content {
+      flex: 1;
+      min-width: 0;
+    }
+    .context {
+      box-sizing: border-box;
+      max-width: 960px;
+      margin: 0 auto;
+      padding: 12px 16px 0;
+      font: var(--mat-sys-body-medium);
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .context-name {
+      color: var(--mat-sys-on-surface);
+    }
+    /* Desktop and tablet: a side rail. */
+    @media (min-width: 600px) {
+      .sections {
+        flex: 0 0 88px;
+        padding-top: 12px;
+        background: var(--mat-sys-surface-container-low);
+        border-right: 1px solid var(--mat-sys-outline-variant);
+      }
+      .sections ul {
+        position: sticky;
+        top: 12px;
+        display: flex;
+        flex-direction: column;
+        gap: 8px;
+      }
+    }
+    /* Phones: a bottom bar within thumb reach. */
+    @media (max-width: 599.98px) {
+      .content {
+        padding-bottom: 88px;
+      }
+      .sections {
+        position: fixed;
+        z-index: 5;
+        left: 0;
+        right: 0;
+        bottom: 0;
+        background: var(--mat-sys-surface-container);
+        border-top: 1px solid var(--mat-sys-outline-variant);
+        padding: 6px 4px calc(6px + env(safe-area-inset-bottom));
+      }
+      .sections ul {
+        display: flex;
+        justify-content: space-around;
+      }
+      .sections li {
+        flex: 1;
+      }
+    }
+  `,
+})
+export class BuildShell {
+  protected readonly current = inject(CurrentBuild);
+  protected readonly sections = BUILD_SECTIONS;
+
+  /** Route parameter, bound by the router. */
+  readonly buildId = input.required<string>();
+
+  constructor() {
+    effect(() => {
+      const buildId = this.buildId();
+      untracked(() => this.current.load(buildId));
+    });
+  }
+}

@@ -1,0 +1,27 @@
+// Routes of the builds feature; the moment date adapter is provided here because only these pages pick dates.
+import { provideMomentDateAdapter } from '@angular/material-moment-adapter';
+import { Routes } from '@angular/router';
+import { BuildShell } from '../../core/layout/build-shell';
+import { BuildForm } from './pages/build-form';
+import { BuildList } from './pages/build-list';
+import { BuildOverview } from './pages/build-overview';
+
+export const buildsRoutes: Routes = [
+  {
+    path: '',
+    providers: [provideMomentDateAdapter()],
+    children: [
+      { path: '', title: 'Your builds · Tallyhood', component: BuildList },
+      { path: 'new', title: 'New build · Tallyhood', component: BuildForm },
+      {
+        path: ':buildId',
+        component: BuildShell,
+        children: [
+          { path: '', title: 'Build · Tallyhood', component: BuildOverview },
+          { path: 'edit', title: 'Edit build · Tallyhood', component: BuildForm },
+          { path: 'crew', loadChildren: () => import('../crew/crew.routes').then((m) => m.crewRoutes) },
+        ],
+      },
+    ],
+  },
+];

@@ -1,0 +1,278 @@
+// /builds/new and /builds/:buildId/edit: a build's name, vehicle, currency, region, status and dates.
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
+import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
+import { MatAutocompleteModule } from '@angular/material/autocomplete';
+import { MatButtonModule } from '@angular/material/button';
+import { DateAdapter } from '@angular/material/core';
+import { MatDatepickerModule } from '@angular/material/datepicker';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { Router, RouterLink } from '@angular/router';
+import type { Moment } from 'moment';
+import { BuildDto, createBuildRequest, updateBuildRequest } from '../../../../../shared/api/builds';
+import { BUILD_STATUSES, BUILD_STATUS_LABELS, BuildStatus } from '../../../../../shared/enums';
+import { applyFieldErrors, errorOf, validateWith } from '../../../core/forms/form-errors';
+import { toApiError } from '../../../core/http/api-error';
+import { currencyName, filterCurrencies } from '../models/currencies';
+import { BuildsApi } from '../services/builds-api';
+import { CurrentBuild } from '../services/current-build';
+
+@Component({
+  selector: 'th-build-form',
+  imports: [
+    ReactiveFormsModule,
+    MatAutocompleteModule,
+    MatButtonModule,
+    MatDatepickerModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    RouterLink,
+  ],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  template: `
+    @if (loading() || saving()) {
+      <mat-progress-bar mode="indeterminate" [attr.aria-label]="saving() ? 'Saving the build' : 'Loading the build'" />
+    }
+    <div class="page">
+      <h1 class="page-heading">{{ editing() ? 'Edit build' : 'New build' }}</h1>
+      @if (conflict()) {
+        <p class="notice notice-error" role="alert">
+          Someone else changed this build while you were editing. The form now shows the saved version: make your changes
+          again and save.
+        </p>
+      }
+      <form [formGroup]="form" (ngSubmit)="submit()" novalidate class="build-form">
+        <mat-form-field class="wide" subscriptSizing="dynamic">
+          <mat-label>Build name</mat-label>
+          <input matInput formControlName="name" autocomplete="off" />
+          <mat-error>{{ errorOf(form.controls.name) }}</mat-error>
+        </mat-form-field>
+
+        <mat-form-field class="wide" subscriptSizing="dynamic">
+          <mat-label>Vehicle</mat-label>
+          <input matInput formControlName="vehicle" autocomplete="off" />
+          <mat-hint>Year, make, model, engine</mat-hint>
+          <mat-error>{{ errorOf(form.controls.vehicle) }}</mat-error>
+        </mat-form-field>
+
+        <mat-form-field subscriptSizing="dynamic">
+          <mat-label>Currency</mat-label>
+          <input matInput formControlName="currency" [matAutocomplete]="currencyPicker" autocomplete="off" />
+          <mat-autocomplete #currencyPicker="matAutocomplete">
+            @for (option of currencyOptions(); track option.code) {
+              <mat-option [value]="option.code">{{ option.code }} · {{ option.name }}</mat-option>
+            }
+          </mat-autocomplete>
+          <mat-hint>{{ editing() ? 'Fixed: every amount of the build is in it.' : currencyHint() }}</mat-hint>
+          <mat-error>{{ errorOf(form.controls.currency) }}</mat-error>
+        </mat-form-field>
+
+        <mat-form-field subscriptSizing="dynamic">
+          <mat-label>Language and region</mat-label>
+          <input matInput formControlName="locale" autocomplete="off" />
+          <mat-hint>For dates and amounts, such as en-US or en-GB</mat-hint>
+          <mat-error>{{ errorOf(form.controls.locale) }}</mat-error>
+        </mat-form-field>
+
+        <mat-form-field subscriptSizing="dynamic">
+          <mat-label>Status</mat-label>
+          <mat-select formControlName="status">
+            @for (status of statuses; track status) {
+              <mat-option [value]="status">{{ statusLabels[status] }}</mat-option>
+            }
+          </mat-select>
+          <mat-error>{{ errorOf(form.controls.status) }}</mat-error>
+        </mat-form-field>
+
+        <span class="spacer"></span>
+
+        <mat-form-field subscriptSizing="dynamic">
+          <mat-label>Start date</mat-label>
+          <input matInput formControlName="startedOn" [matDatepicker]="startPicker" />
+          <mat-hint>Optional, for example 3/14/2026</mat-hint>
+          <mat-datepicker-toggle matIconSuffix [for]="startPicker" aria-label="Open calendar: start" />
+          <mat-datepicker #startPicker />
+          <mat-error>{{ errorOf(form.controls.startedOn) }}</mat-error>
+        </mat-form-field>
+
+        <mat-form-field subscriptSizing="dynamic">
+          <mat-label>Target date</mat-label>
+          <input matInput formControlName="targetDate" [matDatepicker]="targetPicker" />
+          <mat-hint>Optional: when you mean to finish</mat-hint>
+          <mat-datepicker-toggle matIconSuffix [for]="targetPicker" aria-label="Open calendar: target" />
+          <mat-datepicker #targetPicker />
+          <mat-error>{{ errorOf(form.controls.targetDate) }}</mat-error>
+        </mat-form-field>
+
+        <div class="form-actions wide">
+          <button mat-flat-button class="cta" type="submit" [disabled]="saving() || loading()">
+            {{ editing() ? 'Save changes' : 'Create build' }}
+          </button>
+          <a mat-button [routerLink]="editing() ? ['/builds', buildId()] : '/builds'">Cancel</a>
+        </div>
+      </form>
+    </div>
+  `,
+  styles: `
+    .build-form {
+      display: grid;
+      grid-template-columns: 1fr;
+      gap: 8px 16px;
+      max-width: 720px;
+    }
+    .spacer {
+      display: none;
+    }
+    @media (min-width: 600px) {
+      .build-form {
+        grid-template-columns: 1fr 1fr;
+      }
+      .wide {
+        grid-column: 1 / -1;
+      }
+      .spacer {
+        display: block;
+      }
+    }
+  `,
+})
+export class BuildForm {
+  private readonly buildsApi = inject(BuildsApi);
+  private readonly router = inject(Router);
+  private readonly dateAdapter = inject<DateAdapter<Moment>>(DateAdapter);
+  /** Present when the form sits in a build's shell (editing). */
+  private readonly currentBuild = inject(CurrentBuild, { optional: true });
+
+  /** Route parameter, bound by the router; absent when creating. */
+  readonly buildId = input<string>();
+
+  protected readonly errorOf = errorOf;
+  protected readonly statuses = BUILD_STATUSES;
+  protected readonly statusLabels = BUILD_STATUS_LABELS;
+  protected readonly editing = computed(() => !!this.buildId());
+  protected readonly loading = signal(false);
+  protected readonly saving = signal(false);
+  protected readonly conflict = signal(false);
+  private version = 0;
+
+  private readonly formBuilder = inject(NonNullableFormBuilder);
+  protected readonly form = this.formBuilder.group({
+    name: '',
+    vehicle: '',
+    currency: 'USD',
+    locale: 'en-US',
+    status: this.formBuilder.control<BuildStatus>('planning'),
+    startedOn: this.formBuilder.control<Moment | null>(null),
+    targetDate: this.formBuilder.control<Moment | null>(null),
+  });
+
+  private readonly currencyTyped = toSignal(this.form.controls.currency.valueChanges, { initialValue: 'USD' });
+  protected readonly currencyOptions = computed(() => {
+    const typed = (this.currencyTyped() ?? '').trim();
+    // Once a whole code is in the field, offer the full list again rather than that one match.
+    return filterCurrencies(currencyName(typed.toUpperCase()) !== typed.toUpperCase() ? '' : typed);
+  });
+  protected readonly currencyHint = computed(() => {
+    const code = (this.currencyTyped() ?? '').trim().toUpperCase();
+    const name = currencyName(code);
+    return name !== code ? name : 'ISO 4217 code, such as USD or EUR';
+  });
+
+  constructor() {
+    effect(() => {
+      const buildId = this.buildId();
+      if (buildId) untracked(() => this.load(buildId));
+    });
+  }
+
+  protected submit(): void {
+    if (this.saving()) return;
+    const raw = this.form.getRawValue();
+    const dates = { startedOn: this.toIsoDate(raw.startedOn), targetDate: this.toIsoDate(raw.targetDate) };
+    const buildId = this.buildId();
+
+    if (buildId) {
+      const request = validateWith(this.form, updateBuildRequest, {
+        name: raw.name,
+        vehicle: raw.vehicle,
+        locale: raw.locale,
+        status: raw.status,
+        ...dates,
+        version: this.version,
+      });
+      if (!request) return;
+      this.save(this.buildsApi.update(buildId, request));
+    } else {
+      const request = validateWith(this.form, createBuildRequest, {
+        name: raw.name,
+        vehicle: raw.vehicle,
+        currency: raw.currency,
+        locale: raw.locale,
+        status: raw.status,
+        ...dates,
+      });
+      if (!request) return;
+      this.save(this.buildsApi.create(request));
+    }
+  }
+
+  private save(request: ReturnType<BuildsApi['create']>): void {
+    this.saving.set(true);
+    this.conflict.set(false);
+    request.subscribe({
+      next: (build) => {
+        this.saving.set(false);
+        this.currentBuild?.set(build);
+        void this.router.navigate(['/builds', build.id]);
+      },
+      error: (error: unknown) => {
+        const apiError = toApiError(error);
+        this.saving.set(false);
+        if (apiError.status === 409 && this.buildId()) {
+          this.conflict.set(true);
+          this.load(this.buildId()!);
+          return;
+        }
+        applyFieldErrors(this.form, apiError.fields);
+      },
+    });
+  }
+
+  private load(buildId: string): void {
+    this.loading.set(true);
+    this.buildsApi.get(buildId).subscribe({
+      next: (build) => {
+        this.fill(build);
+        this.currentBuild?.set(build);
+        this.loading.set(false);
+      },
+      error: () => this.loading.set(false),
+    });
+  }
+
+  private fill(build: BuildDto): void {
+    this.version = build.version;
+    this.form.reset({
+      name: build.name,
+      vehicle: build.vehicle,
+      currency: build.currency,
+      locale: build.locale,
+      status: build.status,
+      startedOn: build.startedOn ? this.dateAdapter.deserialize(build.startedOn) : null,
+      targetDate: build.targetDate ? this.dateAdapter.deserialize(build.targetDate) : null,
+    });
+    // The currency is fixed at creation: every amount of the build is in it.
+    this.form.controls.currency.disable();
+  }
+
+  /** Calendar dates travel as YYYY-MM-DD, in the person's own calendar (no time zone shift). */
+  private toIsoDate(value: Moment | null): string | null {
+    if (!value || !this.dateAdapter.isValid(value)) return null;
+    return value.format('YYYY-MM-DD');
+  }
+}
