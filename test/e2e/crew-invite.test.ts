@@ -1,0 +1,84 @@
+// In Debian's chromium: the owner signs in, creates a build and invites a reviewer by e-mail; the invite is read
+// from the fake SMTP server and accepted in a second browser; the reviewer sees the build without edit controls.
+import type { Browser, Page } from 'playwright-core';
+import { signedUpClient, TEST_PASSWORD, uniqueEmail } from '../support/api-client';
+import { accessibilityViolations, launchBrowser, newPage, screenshot } from '../support/browser';
+import { startTestApp, type TestApp } from '../support/test-app';
+
+jest.setTimeout(120_000);
+
+let t: TestApp;
+let browser: Browser;
+beforeAll(async () => {
+  t = await startTestApp({ serveClient: true });
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+  await t?.close();
+});
+
+async function signIn(page: Page, email: string) {
+  await page.goto(`${t.url}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(TEST_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('heading', { name: 'Your builds' }).waitFor();
+}
+
+it('takes a reviewer from invite mail to a read-only view of the build', async () => {
+  const owner = await signedUpClient(t.app, 'e2e-owner');
+  const page = await newPage(browser);
+  await signIn(page, owner.email);
+  await screenshot(page, 'builds-empty');
+  expect(await accessibilityViolations(page)).toEqual([]);
+
+  await page.getByRole('link', { name: 'New build' }).or(page.getByRole('button', { name: 'New build' })).first().click();
+  await page.getByLabel('Build name').fill('Roadster restomod');
+  await page.getByLabel('Vehicle').fill('1972 invented roadster, 1.8 L twin-cam swap');
+  await page.getByRole('button', { name: 'Create build' }).click();
+  await page.getByRole('heading', { name: 'Roadster restomod' }).waitFor();
+  await screenshot(page, 'build-overview-owner');
+  expect(await accessibilityViolations(page)).toEqual([]);
+  await expect(page.getByRole('button', { name: 'Edit build' }).or(page.getByRole('link', { name: 'Edit build' })).count()).resolves.toBe(1);
+
+  await page.getByRole('link', { name: 'Crew' }).first().click();
+  const reviewerEmail = uniqueEmail('e2e-reviewer');
+  await page.getByLabel('E-mail', { exact: true }).fill(reviewerEmail);
+  await page.getByRole('combobox', { name: 'Role', exact: true }).click();
+  await page.getByRole('option', { name: /Reviewer/ }).click();
+  await page.getByRole('button', { name: 'Send invite' }).click();
+  await page.getByText(reviewerEmail).first().waitFor();
+  await screenshot(page, 'crew-owner');
+  expect(await accessibilityViolations(page)).toEqual([]);
+
+  const mail = await t.mail.waitFor((m) => m.to.includes(reviewerEmail));
+  expect(mail.subject).toBe('Join "Roadster restomod" on Tallyhood');
+  const link = /(http:\/\/127\.0\.0\.1:\d+\/invites\/[A-Za-z0-9_-]+)/.exec(mail.text)![1];
+
+  // A second, separate browser context: the reviewer has no account yet.
+  const reviewer = await newPage(browser, { phone: true });
+  await reviewer.goto(link);
+  await reviewer.getByText(/Roadster restomod/).first().waitFor();
+  await screenshot(reviewer, 'invite-phone');
+  await reviewer.getByRole('link', { name: 'Create an account' }).or(reviewer.getByRole('button', { name: 'Create an account' })).first().click();
+  await reviewer.getByLabel('Your name').fill('Pat Reviewer');
+  await reviewer.getByLabel('E-mail').fill(reviewerEmail);
+  await reviewer.getByLabel('Password').fill(TEST_PASSWORD);
+  await reviewer.getByRole('button', { name: 'Create account' }).click();
+  await reviewer.getByRole('heading', { name: 'Roadster restomod' }).waitFor();
+  await screenshot(reviewer, 'build-overview-reviewer-phone');
+  expect(await accessibilityViolations(reviewer)).toEqual([]);
+  expect(await reviewer.getByRole('button', { name: 'Edit build' }).count()).toBe(0);
+  expect(await reviewer.getByRole('link', { name: 'Edit build' }).count()).toBe(0);
+
+  await reviewer.getByRole('link', { name: 'Crew' }).first().click();
+  await reviewer.getByText('Pat Reviewer').first().waitFor();
+  expect(await reviewer.getByRole('button', { name: 'Send invite' }).count()).toBe(0);
+  expect(await reviewer.getByRole('combobox', { name: /Role for/ }).count()).toBe(0);
+  await screenshot(reviewer, 'crew-reviewer-phone');
+
+  // The owner's crew page now lists the reviewer with the role.
+  await page.reload();
+  await page.getByText('Pat Reviewer').first().waitFor();
+});
