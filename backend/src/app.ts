@@ -17,12 +17,17 @@ import { csrfProtection } from './http/csrf';
 import { partsRoutes } from './parts/parts.routes';
 import { systemsRoutes } from './systems/systems.routes';
 import { errorMiddleware, NotFound } from './http/errors';
+import type { JobQueue } from './jobs/queue';
 import type { Mailer } from './mail/mailer';
+import { receiptsRoutes } from './receipts/receipts.routes';
+import type { ObjectStore } from './storage/object-store';
 
 export interface AppDeps {
   orm: MikroORM;
   config: AppConfig;
   mailer: Mailer;
+  store: ObjectStore;
+  queue: JobQueue;
 }
 
 export interface RunningApp {
@@ -31,7 +36,7 @@ export interface RunningApp {
   close(): Promise<void>;
 }
 
-export function createApp({ orm, config, mailer }: AppDeps): RunningApp {
+export function createApp({ orm, config, mailer, store, queue }: AppDeps): RunningApp {
   const app = express();
   app.set('trust proxy', 'loopback');
   app.disable('x-powered-by');
@@ -88,6 +93,7 @@ export function createApp({ orm, config, mailer }: AppDeps): RunningApp {
   api.use('/builds/:buildId', crewRoutes(mailer, config));
   api.use('/builds/:buildId', systemsRoutes());
   api.use('/builds/:buildId', partsRoutes());
+  api.use('/builds/:buildId', receiptsRoutes({ store, queue }));
   api.use(() => {
     throw new NotFound('That API route');
   });

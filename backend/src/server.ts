@@ -3,13 +3,18 @@ import { MikroORM } from '@mikro-orm/postgresql';
 import { createApp } from './app';
 import { loadConfig } from './config';
 import { ormConfig } from './db/mikro-orm.config';
+import { startJobQueue } from './jobs/queue';
 import { createMailer } from './mail/mailer';
+import { createObjectStore } from './storage/object-store';
 
 async function main() {
   const config = loadConfig();
   const orm = await MikroORM.init(ormConfig(config.db));
   const mailer = createMailer(config.smtp);
-  const { app, close } = createApp({ orm, config, mailer });
+  const store = createObjectStore(config.storage);
+  await store.ensureBucket();
+  const queue = await startJobQueue(config.db);
+  const { app, close } = createApp({ orm, config, mailer, store, queue });
   const server = app.listen(config.port, '127.0.0.1', (error?: Error) => {
     if (error) {
       console.error(`Tallyhood could not listen on 127.0.0.1:${config.port}: ${error.message}`);
@@ -20,6 +25,8 @@ async function main() {
   const stop = () => {
     server.close(async () => {
       await close();
+      await queue.stop();
+      store.close();
       mailer.close();
       await orm.close();
       process.exit(0);

@@ -7,12 +7,20 @@ import { loadConfig } from '../../backend/src/config';
 import { ormConfig } from '../../backend/src/db/mikro-orm.config';
 import { createMailer } from '../../backend/src/mail/mailer';
 import { startFakeMailServer, type FakeMailServer } from '../../backend/src/mail/fake-mail-server';
+import { startJobQueue, type JobQueue } from '../../backend/src/jobs/queue';
+import { startFakeS3, type FakeS3 } from '../../backend/src/storage/fake-s3-server';
+import { createObjectStore, type ObjectStore } from '../../backend/src/storage/object-store';
+import { mkdtempSync, rmSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
 
 export interface TestApp {
   app: Express;
   url: string;
   orm: MikroORM;
   mail: FakeMailServer;
+  store: ObjectStore;
+  queue: JobQueue;
   close(): Promise<void>;
 }
 
@@ -21,10 +29,15 @@ export async function startTestApp(options: { serveClient?: boolean } = {}): Pro
   const base = loadConfig({ ...process.env, PGDATABASE: process.env.PGDATABASE ?? 'tallyhood_test', PORT: '0' });
   const orm = await MikroORM.init(ormConfig(base.db));
   const mailer = createMailer({ ...base.smtp, port: mail.smtpPort });
+  const s3Folder = mkdtempSync(path.join(os.tmpdir(), 'tallyhood-s3-'));
+  const s3: FakeS3 = await startFakeS3({ directory: s3Folder });
+  const store = createObjectStore({ ...base.storage, endpoint: s3.endpoint });
+  await store.ensureBucket();
+  const queue = await startJobQueue(base.db);
   // The URL (and so the links in mail) is only known once the server listens.
   const config = { ...base, smtp: { ...base.smtp, port: mail.smtpPort }, clientDist: options.serveClient ? base.clientDist : '/nonexistent' };
   const holder: { server?: Server } = {};
-  const running = createApp({ orm, config, mailer });
+  const running = createApp({ orm, config, mailer, store, queue });
   await new Promise<void>((resolve) => {
     holder.server = running.app.listen(0, '127.0.0.1', () => resolve());
   });
@@ -35,11 +48,17 @@ export async function startTestApp(options: { serveClient?: boolean } = {}): Pro
     url: config.appUrl,
     orm,
     mail,
+    store,
+    queue,
     async close() {
       await new Promise<void>((resolve) => holder.server!.close(() => resolve()));
       await running.close();
       mailer.close();
       await mail.close();
+      await queue.stop();
+      store.close();
+      await s3.close();
+      rmSync(s3Folder, { recursive: true, force: true });
       await orm.close(true);
     },
   };

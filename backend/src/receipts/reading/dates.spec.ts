@@ -1,0 +1,78 @@
+// Dates on receipts: every printed form, the locale's day/month order, and ambiguity reported, never hidden.
+import { findDate, findDates, isDayFirst } from './dates';
+
+describe('isDayFirst', () => {
+  it.each([
+    ['en-US', false],
+    ['en-GB', true],
+    ['en-MY', true],
+    ['de-DE', true],
+    ['en-CA', false],
+  ])('%s writes the day first: %s', (locale, expected) => {
+    expect(isDayFirst(locale)).toBe(expected);
+  });
+});
+
+describe('findDate', () => {
+  it.each([
+    ['DATE 11/14/2026', 'en-US', '2026-11-14'],
+    ['DATE 11/14/2026', 'en-GB', '2026-11-14'],
+    ['2026-11-14', 'en-GB', '2026-11-14'],
+    ['2026/11/14', 'en-US', '2026-11-14'],
+    ['Nov 14, 2026 3:42 PM', 'en-US', '2026-11-14'],
+    ['November 14th 2026', 'en-US', '2026-11-14'],
+    ['14 Nov 2026', 'en-US', '2026-11-14'],
+    ['14-Nov-26', 'en-US', '2026-11-14'],
+    ['Jul 10, 2026', 'en-US', '2026-07-10'],
+    ['14-11-26', 'en-GB', '2026-11-14'],
+    ['14-11-26', 'en-US', '2026-11-14'],
+    ['14.11.2026', 'de-DE', '2026-11-14'],
+    ['Invoice date: 3 Sept 2026', 'en-GB', '2026-09-03'],
+  ])('reads "%s" in %s as %s', (text, locale, expected) => {
+    expect(findDate(text, locale)?.value).toBe(expected);
+  });
+
+  it('reads an unambiguous date with high confidence and no note', () => {
+    expect(findDate('DATE 11/14/2026', 'en-US')).toEqual({ value: '2026-11-14', confidence: 0.95, note: null, start: 5, end: 15 });
+  });
+
+  it('reads 03/04/2026 month-first in en-US, with a low confidence and a note naming both readings', () => {
+    const date = findDate('03/04/2026', 'en-US');
+    expect(date?.value).toBe('2026-03-04');
+    expect(date?.confidence).toBe(0.5);
+    expect(date?.note).toBe(
+      "The date 03/04/2026 could be 4 March 2026 or 3 April 2026; read as 4 March 2026 because the build's locale (en-US) writes the month first. Check it against the receipt.",
+    );
+  });
+
+  it('reads the same 03/04/2026 day-first in en-GB, also flagged', () => {
+    const date = findDate('03/04/2026', 'en-GB');
+    expect(date?.value).toBe('2026-04-03');
+    expect(date?.confidence).toBe(0.5);
+    expect(date?.note).toContain('read as 3 April 2026');
+  });
+
+  it('needs no note when day and month are the same number', () => {
+    expect(findDate('05/05/2026', 'en-US')).toMatchObject({ value: '2026-05-05', note: null });
+  });
+
+  it('corrects letters OCR put in the digits, a little less sure', () => {
+    const date = findDate('DATE 1O/2S/2026', 'en-US');
+    expect(date?.value).toBe('2026-10-25');
+    expect(date?.confidence).toBeCloseTo(0.76, 6);
+    expect(findDate('N0v 14, 2026', 'en-US')?.value).toBe('2026-11-14');
+  });
+
+  it.each(['02/30/2026', '13/13/2026', '2026-02-29', 'Feb 30, 2026', 'TEL 555-0198', '7.25%', 'INVOICE 30523'])('finds no date in "%s"', (text) => {
+    expect(findDate(text, 'en-US')).toBeNull();
+  });
+
+  it('accepts 29 February in a leap year only', () => {
+    expect(findDate('2028-02-29', 'en-US')?.value).toBe('2028-02-29');
+    expect(findDate('2027-02-29', 'en-US')).toBeNull();
+  });
+
+  it('finds several dates in reading order', () => {
+    expect(findDates('Ordered 2026-11-02 shipped Nov 5, 2026', 'en-US').map((date) => date.value)).toEqual(['2026-11-02', '2026-11-05']);
+  });
+});

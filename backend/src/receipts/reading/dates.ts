@@ -1,0 +1,144 @@
+// Finds the date printed on a receipt in its many forms and returns it as ISO 8601 (YYYY-MM-DD). Whether
+// 03/04/2026 is day-first comes from the build's locale; an ambiguous reading is reported, never hidden.
+
+export interface ReadDate {
+  value: string;
+  confidence: number;
+  /** Set when the reading depends on the locale's day/month order or on a guess. */
+  note: string | null;
+  /** Where the date starts and ends in the searched text. */
+  start: number;
+  end: number;
+}
+
+const MONTH_NAMES = ['jan', 'feb', 'mar', 'apr', 'may', 'jun', 'jul', 'aug', 'sep', 'oct', 'nov', 'dec'];
+const MONTH_WORDS = 'jan(?:uary)?|feb(?:ruary)?|mar(?:ch)?|apr(?:il)?|may|june?|july?|aug(?:ust)?|sep(?:t(?:ember)?)?|oct(?:ober)?|nov(?:ember)?|dec(?:ember)?';
+const ENGLISH_MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
+
+/** True when the locale writes the day before the month (en-GB 14/11/2026), from Intl's own pattern. */
+export function isDayFirst(locale: string): boolean {
+  const parts = new Intl.DateTimeFormat(locale, { year: 'numeric', month: '2-digit', day: '2-digit' }).formatToParts(new Date(Date.UTC(2026, 10, 14)));
+  const types = parts.map((part) => part.type);
+  return types.indexOf('day') < types.indexOf('month');
+}
+
+function daysInMonth(year: number, month: number): number {
+  return new Date(Date.UTC(year, month, 0)).getUTCDate();
+}
+
+function iso(year: number, month: number, day: number): string | null {
+  if (month < 1 || month > 12 || day < 1 || day > daysInMonth(year, month)) return null;
+  return `${String(year).padStart(4, '0')}-${String(month).padStart(2, '0')}-${String(day).padStart(2, '0')}`;
+}
+
+/** Two-digit years are this century (receipts are recent); common practice. */
+function fullYear(text: string): number {
+  const year = Number(text);
+  return text.length === 2 ? 2000 + year : year;
+}
+
+// Receipts are recent: a year far from now is more likely an OCR error, so it lowers the confidence.
+function yearConfidence(year: number): number {
+  return year >= 2000 && year <= 2099 ? 1 : 0.3;
+}
+
+function describe(isoDate: string): string {
+  const [year, month, day] = isoDate.split('-').map(Number);
+  return `${day} ${ENGLISH_MONTHS[month - 1]} ${year}`;
+}
+
+/** Digits OCR reads as letters inside a date (1O/O7/2026). */
+function fixDigits(text: string): string {
+  return text.replace(/[Oo]/g, '0').replace(/[lI|]/g, '1').replace(/S/g, '5');
+}
+
+type Candidate = Omit<ReadDate, 'start' | 'end'> & { index: number; length: number };
+
+function numericCandidates(text: string, locale: string): Candidate[] {
+  const found: Candidate[] = [];
+  const pattern = /(?<![0-9A-Za-z])([0-9OolI]{1,4})([-/.])([0-9OolI]{1,2})\2([0-9OolI]{2,4})(?![0-9A-Za-z])/g;
+  for (const match of text.matchAll(pattern)) {
+    const [whole, firstText, , secondText, lastText] = match.map((part) => fixDigits(part ?? ''));
+    const corrected = whole !== match[0];
+    const penalty = corrected ? 0.8 : 1;
+    const index = match.index ?? 0;
+    if (firstText.length === 4) {
+      // Year first: ISO 8601 order (2026-11-14), never day-month.
+      const year = Number(firstText);
+      const value = lastText.length <= 2 ? iso(year, Number(secondText), Number(lastText)) : null;
+      if (value) found.push({ value, confidence: 0.95 * penalty * yearConfidence(year), note: null, index, length: whole.length });
+      continue;
+    }
+    if (firstText.length > 2 || (lastText.length !== 2 && lastText.length !== 4)) continue;
+    const year = fullYear(lastText);
+    const first = Number(firstText);
+    const second = Number(secondText);
+    const monthFirst = iso(year, first, second);
+    const dayFirst = iso(year, second, first);
+    const confidence = 0.95 * penalty * yearConfidence(year) * (lastText.length === 2 ? 0.9 : 1);
+    if (monthFirst && dayFirst && monthFirst !== dayFirst) {
+      const chosen = isDayFirst(locale) ? dayFirst : monthFirst;
+      const other = chosen === dayFirst ? monthFirst : dayFirst;
+      found.push({
+        value: chosen,
+        confidence: Math.min(confidence, 0.5),
+        note: `The date ${match[0]} could be ${describe(chosen)} or ${describe(other)}; read as ${describe(chosen)} because the build's locale (${locale}) writes the ${isDayFirst(locale) ? 'day' : 'month'} first. Check it against the receipt.`,
+        index,
+        length: whole.length,
+      });
+    } else if (monthFirst || dayFirst) {
+      const value = (monthFirst ?? dayFirst)!;
+      const againstLocale = (value === dayFirst) !== isDayFirst(locale) && monthFirst !== dayFirst;
+      found.push({
+        value,
+        // Only one order makes a real date; a slip that disagrees with the locale is still read, a little less sure.
+        confidence: againstLocale ? confidence * 0.9 : confidence,
+        note: null,
+        index,
+        length: whole.length,
+      });
+    }
+  }
+  return found;
+}
+
+function monthIndex(word: string): number {
+  return MONTH_NAMES.indexOf(word.toLowerCase().replace(/0/g, 'o').slice(0, 3)) + 1;
+}
+
+function wordCandidates(text: string): Candidate[] {
+  const found: Candidate[] = [];
+  // OCR may give 0 for o inside the month word ("N0v"), so the letter class allows it.
+  const month = `((?:${MONTH_WORDS.replace(/o/g, '[o0]')}))\\.?`;
+  const dayMonthYear = new RegExp(`(?<![0-9A-Za-z])([0-9OlI]{1,2})(?:st|nd|rd|th)?[\\s\\-/.]*${month}[\\s\\-/.,]*([0-9OlI]{4}|[0-9]{2})(?![0-9A-Za-z])`, 'gi');
+  const monthDayYear = new RegExp(`(?<![A-Za-z])${month}[\\s\\-/.]*([0-9OlI]{1,2})(?:st|nd|rd|th)?[\\s,.]+([0-9OlI]{4})(?![0-9A-Za-z])`, 'gi');
+  for (const match of text.matchAll(dayMonthYear)) {
+    const year = fullYear(fixDigits(match[3]));
+    const value = iso(year, monthIndex(match[2]), Number(fixDigits(match[1])));
+    if (value) found.push({ value, confidence: 0.95 * yearConfidence(year), note: null, index: match.index ?? 0, length: match[0].length });
+  }
+  for (const match of text.matchAll(monthDayYear)) {
+    const year = fullYear(fixDigits(match[3]));
+    const value = iso(year, monthIndex(match[1]), Number(fixDigits(match[2])));
+    if (value) found.push({ value, confidence: 0.95 * yearConfidence(year), note: null, index: match.index ?? 0, length: match[0].length });
+  }
+  return found;
+}
+
+/** Every date in a piece of text, in reading order. */
+export function findDates(text: string, locale: string): ReadDate[] {
+  const candidates = [...wordCandidates(text), ...numericCandidates(text, locale)].sort((a, b) => a.index - b.index);
+  // A month-word match and a numeric one can overlap ("14-Nov-26" is not numeric, but be safe): keep the first.
+  const kept: Candidate[] = [];
+  for (const candidate of candidates) {
+    const previous = kept[kept.length - 1];
+    if (previous && candidate.index < previous.index + previous.length) continue;
+    kept.push(candidate);
+  }
+  return kept.map(({ index, length, ...rest }) => ({ ...rest, start: index, end: index + length }));
+}
+
+/** The first date in the text, or null. */
+export function findDate(text: string, locale: string): ReadDate | null {
+  return findDates(text, locale)[0] ?? null;
+}

@@ -1,0 +1,110 @@
+// A small pool of long-lived tesseract.js workers reading with the English model from the npm data package,
+// never from the network.
+import path from 'node:path';
+import { OEM, PSM, createWorker } from 'tesseract.js';
+import type { Worker, Block } from 'tesseract.js';
+import { TextLine, TextWord, makeLine } from './text-lines';
+
+/** The LSTM-only integer model: small and fast (STACK-NOTES: 4.0.0_best_int). */
+export function trainedDataFolder(): string {
+  return path.join(path.dirname(require.resolve('@tesseract.js-data/eng/package.json')), '4.0.0_best_int');
+}
+
+export interface OcrPage {
+  lines: TextLine[];
+  /** The angle tesseract straightened the page by, in radians. */
+  rotateRadians: number;
+}
+
+interface PoolEntry {
+  worker: Worker;
+  busy: boolean;
+}
+
+/** Workers start once (about 5 s) and then read one page at a time each. */
+export class OcrPool {
+  private readonly entries: PoolEntry[] = [];
+  private starting: Promise<void> | undefined;
+  private readonly waiting: Array<(entry: PoolEntry) => void> = [];
+  /** Milliseconds the last start took, for the bench. */
+  startMs = 0;
+
+  constructor(private readonly size = 1) {}
+
+  start(): Promise<void> {
+    this.starting ??= (async () => {
+      const began = Date.now();
+      const workers = await Promise.all(
+        Array.from({ length: this.size }, () =>
+          createWorker('eng', OEM.LSTM_ONLY, {
+            langPath: trainedDataFolder(),
+            gzip: true,
+            // Without this tesseract.js writes the model into the working folder (or IndexedDB).
+            cacheMethod: 'none',
+          }),
+        ),
+      );
+      for (const worker of workers) {
+        // A single uniform block keeps receipt columns on one line; automatic layout scrambles them.
+        await worker.setParameters({ tessedit_pageseg_mode: PSM.SINGLE_BLOCK, preserve_interword_spaces: '1', user_defined_dpi: '300' });
+        this.entries.push({ worker, busy: false });
+      }
+      this.startMs = Date.now() - began;
+    })();
+    return this.starting;
+  }
+
+  async read(png: Buffer, page: number): Promise<OcrPage> {
+    await this.start();
+    const entry = await this.acquire();
+    try {
+      // rotateAuto straightens small rotations, which hurt receipt OCR most.
+      const result = await entry.worker.recognize(png, { rotateAuto: true }, { blocks: true, text: false });
+      return { lines: linesFromBlocks(result.data.blocks ?? [], page), rotateRadians: result.data.rotateRadians ?? 0 };
+    } finally {
+      this.release(entry);
+    }
+  }
+
+  async close(): Promise<void> {
+    if (!this.starting) return;
+    await this.starting.catch(() => undefined);
+    await Promise.all(this.entries.map((entry) => entry.worker.terminate()));
+    this.entries.length = 0;
+    this.starting = undefined;
+  }
+
+  private acquire(): Promise<PoolEntry> {
+    const free = this.entries.find((entry) => !entry.busy);
+    if (free) {
+      free.busy = true;
+      return Promise.resolve(free);
+    }
+    return new Promise((resolve) => this.waiting.push(resolve));
+  }
+
+  private release(entry: PoolEntry): void {
+    const next = this.waiting.shift();
+    if (next) next(entry);
+    else entry.busy = false;
+  }
+}
+
+function linesFromBlocks(blocks: Block[], page: number): TextLine[] {
+  const lines: TextLine[] = [];
+  for (const block of blocks) {
+    for (const paragraph of block.paragraphs) {
+      for (const line of paragraph.lines) {
+        const words: TextWord[] = line.words
+          .filter((word) => word.text.trim() !== '')
+          .map((word) => ({
+            text: word.text.trim(),
+            confidence: Math.round(word.confidence) / 100,
+            box: { page, x: word.bbox.x0, y: word.bbox.y0, w: word.bbox.x1 - word.bbox.x0, h: word.bbox.y1 - word.bbox.y0 },
+          }));
+        if (words.length > 0) lines.push(makeLine(words));
+      }
+    }
+  }
+  return lines;
+}

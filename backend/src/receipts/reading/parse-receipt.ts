@@ -1,0 +1,535 @@
+// Turns the positioned text lines of a receipt into vendor, date, currency, lines and totals, each with a
+// confidence. Pure: no OCR, no I/O, so every layout rule is unit-tested on plain text.
+import { Decimal, multiply, roundHalfUp, sum, toWire } from '../../../../shared/money';
+import type { LineKind, ReadBox, ReadField, ReadLine, ReadReceipt } from '../../../../shared/api/receipt-reading';
+import { ReadAmount, currencyMark, readAmount, readQuantity } from './amounts';
+import { findDate } from './dates';
+import { TextLine, TextPage, TextWord, lineText, unionBox } from './text-lines';
+
+export interface ParseOptions {
+  /** BCP 47 tag of the build: day/month order and the currency a bare "$" means. */
+  locale: string;
+}
+
+type SummaryField = 'subtotal' | 'tax' | 'shipping' | 'discount' | 'total' | 'payment';
+
+interface Token {
+  text: string;
+  words: TextWord[];
+  amount: ReadAmount | null;
+  quantity: string | null;
+  at: boolean;
+}
+
+interface AnalysedLine {
+  line: TextLine;
+  text: string;
+  tokens: Token[];
+  /** Upper-case letters-only words for keyword matching, with digits OCR put in words turned back to letters. */
+  keywords: string[];
+  confidence: number;
+  summary: SummaryField | null;
+}
+
+// ------------------------------------------------------------------------------------------------------
+// Tokens and keywords
+
+function tokenize(line: TextLine): Token[] {
+  // "@" glued to numbers ("2@4.99") becomes its own token.
+  const words: TextWord[] = [];
+  for (const word of line.words) {
+    const pieces = word.text.split(/(@)/).filter((piece) => piece !== '');
+    for (const piece of pieces) words.push({ ...word, text: piece });
+  }
+  const tokens: Token[] = [];
+  for (let index = 0; index < words.length; index += 1) {
+    const word = words[index];
+    const next = words[index + 1];
+    // A currency mark printed apart from its number ("RM 12.40", "$ 5.00", "- 5.00").
+    if (next && (currencyMark(word.text) || word.text === '-') && readAmount(next.text)) {
+      const joined = `${word.text}${next.text}`;
+      tokens.push(makeToken(joined, [word, next]));
+      index += 1;
+      continue;
+    }
+    tokens.push(makeToken(word.text, [word]));
+  }
+  return tokens;
+}
+
+function makeToken(text: string, words: TextWord[]): Token {
+  const at = /^[@©®]$/.test(text) || /^(at|x)$/i.test(text);
+  return { text, words, amount: at ? null : readAmount(text), quantity: readQuantity(text), at };
+}
+
+const LETTER_FOR_DIGIT: Record<string, string> = { '0': 'O', '1': 'I', '5': 'S', '8': 'B', '6': 'G', '2': 'Z' };
+
+function keywordOf(word: string): string {
+  const letters = (word.match(/[A-Za-z]/g) ?? []).length;
+  const digits = (word.match(/[0-9]/g) ?? []).length;
+  // Only words that are mostly letters get their stray digits turned back into letters ("T0TAL").
+  const fixed = letters > digits ? word.replace(/[015862]/g, (digit) => LETTER_FOR_DIGIT[digit]) : word;
+  return fixed.toUpperCase().replace(/[^A-Z&]/g, '');
+}
+
+function editDistance(left: string, right: string): number {
+  const previous = Array.from({ length: right.length + 1 }, (_, index) => index);
+  for (let i = 1; i <= left.length; i += 1) {
+    let diagonal = previous[0];
+    previous[0] = i;
+    for (let j = 1; j <= right.length; j += 1) {
+      const above = previous[j];
+      previous[j] = Math.min(previous[j] + 1, previous[j - 1] + 1, diagonal + (left[i - 1] === right[j - 1] ? 0 : 1));
+      diagonal = above;
+    }
+  }
+  return previous[right.length];
+}
+
+// Real words that sit one letter away from a keyword and must never be taken for it.
+const NEAR_MISSES = new Set(['CHARGE', 'CHARGES', 'CHANGE', 'TOTALS', 'RETURN', 'REFUND']);
+
+/** A word matches a keyword exactly, or within one OCR slip for words of five letters or more. */
+function sameWord(word: string, keyword: string): boolean {
+  if (word === keyword) return true;
+  if (NEAR_MISSES.has(word)) return false;
+  return keyword.length >= 5 && Math.abs(word.length - keyword.length) <= 1 && editDistance(word, keyword) <= 1;
+}
+
+function hasWord(keywords: string[], ...candidates: string[]): boolean {
+  return keywords.some((word) => candidates.some((candidate) => sameWord(word, candidate)));
+}
+
+/** Words before the first amount: the label of a summary line. */
+function labelKeywords(tokens: Token[]): string[] {
+  const labels: string[] = [];
+  for (const token of tokens) {
+    if (token.amount) break;
+    const keyword = keywordOf(token.text);
+    if (keyword !== '') labels.push(keyword);
+  }
+  return labels;
+}
+
+function classifySummary(tokens: Token[]): SummaryField | null {
+  if (!tokens.some((token) => token.amount)) return null;
+  const label = labelKeywords(tokens);
+  const joined = label.join(' ');
+  if (hasWord(label, 'SUBTOTAL') || /\bSUB ?TOTAL\b/.test(joined) || /\bMERCHANDISE\b/.test(joined)) return 'subtotal';
+  if (hasWord(label, 'CHANGE', 'CASH', 'TENDER', 'TENDERED', 'VISA', 'MASTERCARD', 'DEBIT', 'PAID', 'PAYMENT') || (hasWord(label, 'CARD') && !hasWord(label, 'TOTAL'))) return 'payment';
+  if (hasWord(label, 'TOTAL') || /\b(AMOUNT|BALANCE) DUE\b/.test(joined)) {
+    if (hasWord(label, 'SAVINGS', 'ITEMS', 'QTY', 'QUANTITY')) return null;
+    return 'total';
+  }
+  if (hasWord(label, 'SHIPPING', 'FREIGHT', 'DELIVERY', 'POSTAGE', 'CARRIAGE') || label.includes('S&H')) return 'shipping';
+  if (hasWord(label, 'TAX', 'GST', 'VAT', 'SST', 'HST', 'PST')) return 'tax';
+  if (hasWord(label, 'DISCOUNT', 'COUPON', 'SAVINGS', 'PROMO')) return 'discount';
+  return null;
+}
+
+function analyse(line: TextLine): AnalysedLine {
+  const tokens = tokenize(line);
+  const confidence = line.words.reduce((total, word) => total + word.confidence, 0) / Math.max(line.words.length, 1);
+  return { line, text: lineText(line), tokens, keywords: tokens.map((token) => keywordOf(token.text)).filter((word) => word !== ''), confidence, summary: classifySummary(tokens) };
+}
+
+// ------------------------------------------------------------------------------------------------------
+// Item lines
+
+/** Looks like a part number: letters and digits, often with a dash, no lower case ("BP-4471C", "88213-0"). */
+export function looksLikePartNumber(text: string): boolean {
+  const cleaned = text.replace(/^[#:]+|[:,;]+$/g, '');
+  return cleaned.length >= 4 && cleaned.length <= 20 && /[0-9]/.test(cleaned) && /^[A-Z0-9][A-Z0-9\-./]*[A-Z0-9]$/.test(cleaned) && !/^[0-9]+$/.test(cleaned) || /^[0-9]{5,}(-[0-9A-Z]+)?$/.test(cleaned);
+}
+
+const PART_NUMBER_LABEL = /^(SKU|PART|PARTNO|PN|P\/N|ITEM|ITEMNO|UPC|REF|ART)[#:.]*$/i;
+
+/** A line that only carries a part number under its item ("SKU TS-180B", "Part# 4471", "  BP-4471C"). */
+function partNumberLine(analysed: AnalysedLine): string | null {
+  const texts = analysed.tokens.map((token) => token.text);
+  if (texts.length === 0 || analysed.tokens.some((token) => token.amount)) return null;
+  const withoutLabel = PART_NUMBER_LABEL.test(texts[0]) ? texts.slice(1) : texts;
+  if (withoutLabel.length === 0) return null;
+  const labelled = withoutLabel.length !== texts.length;
+  // "Part # 4471": the "#" may stand alone.
+  const candidates = withoutLabel.filter((text) => !/^[#:]$/.test(text));
+  if (candidates.length !== 1) return null;
+  const candidate = candidates[0].replace(/^[#:]+/, '');
+  if (labelled && /^[A-Z0-9][A-Z0-9\-./]{2,}$/i.test(candidate) && /[0-9]/.test(candidate)) return candidate.toUpperCase();
+  return looksLikePartNumber(candidate) ? candidate : null;
+}
+
+interface QuantityAt {
+  quantity: string;
+  unitPrice: ReadAmount;
+  /** Index of the first token of the pattern. */
+  start: number;
+  end: number;
+}
+
+/** "2 @ 4.99", "2 x 4.99", "2 @4.99" in a line. */
+function quantityAt(tokens: Token[]): QuantityAt | null {
+  for (let index = 1; index < tokens.length - 1; index += 1) {
+    if (!tokens[index].at) continue;
+    const quantity = tokens[index - 1].quantity;
+    const unitPrice = readAmount(tokens[index + 1].text, { requireDecimals: false });
+    if (quantity && unitPrice) return { quantity, unitPrice, start: index - 1, end: index + 1 };
+  }
+  return null;
+}
+
+const CORE_WORDS = ['CORE'];
+const REFUND_WORDS = ['REFUND', 'CREDIT', 'RETURN', 'RETURNED', 'RTN'];
+const DISCOUNT_WORDS = ['DISCOUNT', 'COUPON', 'PROMO', 'SAVINGS', 'MARKDOWN'];
+const FEE_WORDS = ['FEE', 'HAZMAT', 'DISPOSAL', 'ENVIRONMENTAL', 'HANDLING', 'SURCHARGE', 'SUPPLIES', 'LEVY'];
+
+export function lineKind(description: string, amount: Decimal): LineKind {
+  const keywords = description.split(/\s+/).map(keywordOf).filter((word) => word !== '');
+  const negative = amount.isNegative();
+  if (hasWord(keywords, ...CORE_WORDS)) return negative || hasWord(keywords, ...REFUND_WORDS) ? 'core_refund' : 'core_charge';
+  if (hasWord(keywords, ...DISCOUNT_WORDS)) return 'discount';
+  if (hasWord(keywords, ...FEE_WORDS)) return 'fee';
+  if (negative || hasWord(keywords, ...REFUND_WORDS)) return 'return';
+  return 'part';
+}
+
+interface DraftLine {
+  description: string;
+  partNumber: string | null;
+  quantity: string | null;
+  unitPrice: string | null;
+  amount: Decimal;
+  confidence: number;
+  boxes: ReadBox[];
+}
+
+function itemFromLine(analysed: AnalysedLine, hasPartColumn: boolean): DraftLine | null {
+  const { tokens } = analysed;
+  const amountIndexes = tokens.flatMap((token, index) => (token.amount ? [index] : []));
+  if (amountIndexes.length === 0) return null;
+  const amountIndex = amountIndexes[amountIndexes.length - 1];
+  const amount = tokens[amountIndex].amount!;
+  let confidence = Math.min(amount.confidence, analysed.confidence);
+  let quantity: string | null = null;
+  let unitPrice: ReadAmount | null = null;
+  let descriptionEnd = amountIndex;
+
+  const pattern = quantityAt(tokens.slice(0, amountIndex));
+  if (pattern) {
+    quantity = pattern.quantity;
+    unitPrice = pattern.unitPrice;
+    descriptionEnd = pattern.start;
+  } else if (amountIndexes.length >= 2 && amountIndexes[amountIndexes.length - 2] === amountIndex - 1) {
+    // Columns: [part number] description [qty] unit-price amount.
+    unitPrice = tokens[amountIndex - 1].amount;
+    descriptionEnd = amountIndex - 1;
+    if (descriptionEnd > 0 && tokens[descriptionEnd - 1].quantity && !tokens[descriptionEnd - 1].amount) {
+      quantity = tokens[descriptionEnd - 1].quantity;
+      descriptionEnd -= 1;
+    }
+  } else if (amountIndex > 1 && tokens[amountIndex - 1].quantity && /^[0-9]{1,3}$/.test(tokens[amountIndex - 1].text) && hasPartColumn) {
+    // A table with a quantity column but no unit price column.
+    quantity = tokens[amountIndex - 1].quantity;
+    descriptionEnd = amountIndex - 1;
+  }
+
+  const descriptionTokens = tokens.slice(0, descriptionEnd).filter((token) => !/^[-=_*.|]+$/.test(token.text));
+  let partNumber: string | null = null;
+  if (descriptionTokens.length >= 2 && looksLikePartNumber(descriptionTokens[0].text) && (hasPartColumn || descriptionTokens.length >= 2)) {
+    // A part number printed in its own column before the description.
+    partNumber = descriptionTokens.shift()!.text;
+  }
+  const description = descriptionTokens.map((token) => token.text).join(' ').replace(/\s+/g, ' ').trim();
+
+  const value = new Decimal(amount.value);
+  // Negative lines print a negative unit price too, but one printed without a sign follows the amount.
+  if (unitPrice && value.isNegative() && !new Decimal(unitPrice.value).isNegative()) {
+    unitPrice = { ...unitPrice, value: toWire(new Decimal(unitPrice.value).negated()) };
+  }
+  if (quantity && unitPrice) {
+    unitPrice = repairUnitPrice(unitPrice, quantity, value);
+    const expected = roundHalfUp(multiply(new Decimal(unitPrice.value), new Decimal(quantity)), 2);
+    confidence = expected.equals(value) ? Math.min(1, confidence + 0.1) : confidence * 0.6;
+    confidence = Math.min(confidence, unitPrice.confidence);
+  }
+  return {
+    description,
+    partNumber,
+    quantity,
+    unitPrice: unitPrice?.value ?? null,
+    amount: value,
+    confidence,
+    boxes: [analysed.line.box],
+  };
+}
+
+/** Digits only, without sign, dot or leading zeros: how two readings of one printed number compare. */
+function digitsOf(value: string): string {
+  return value.replace(/[^0-9]/g, '').replace(/^0+/, '');
+}
+
+/**
+ * When quantity × unit price misses the amount and the price that would fit differs from the one read by a
+ * single character or a lost dot ("$4275", "$1.79" for $11.79), the receipt's own arithmetic corrects it.
+ */
+export function repairUnitPrice(unitPrice: ReadAmount, quantity: string, amount: Decimal): ReadAmount {
+  const read = new Decimal(unitPrice.value);
+  if (roundHalfUp(multiply(read, new Decimal(quantity)), 2).equals(amount)) return unitPrice;
+  const fitting = amount.dividedBy(quantity);
+  if (fitting.decimalPlaces() > 4) return unitPrice;
+  const fittingText = toWire(fitting, Math.max(2, fitting.decimalPlaces()));
+  if (editDistance(digitsOf(fittingText), digitsOf(unitPrice.value)) > 1) return unitPrice;
+  return { ...unitPrice, value: fittingText, confidence: Math.min(unitPrice.confidence, 0.7) };
+}
+
+function isColumnHeader(analysed: AnalysedLine): boolean {
+  const words = analysed.keywords;
+  const headerWords = ['DESCRIPTION', 'QTY', 'QUANTITY', 'PRICE', 'AMOUNT', 'ITEM', 'PART', 'UNIT', 'SKU', 'EACH', 'EXT'];
+  return !analysed.tokens.some((token) => token.amount) && words.filter((word) => headerWords.some((header) => sameWord(word, header))).length >= 2;
+}
+
+function finishLine(draft: DraftLine): ReadLine {
+  const quantity = draft.quantity ?? (draft.unitPrice ? quantityFromPrices(draft.amount, new Decimal(draft.unitPrice)) : '1');
+  const unitPrice = draft.unitPrice ?? (quantity === '1' ? toWire(draft.amount, Math.max(2, draft.amount.decimalPlaces())) : null);
+  const kind = lineKind(draft.description, draft.amount);
+  return {
+    kind,
+    description: draft.description,
+    partNumber: draft.partNumber,
+    quantity,
+    unitPrice,
+    amount: toWire(draft.amount, Math.max(2, draft.amount.decimalPlaces())),
+    confidence: round2(draft.confidence),
+    box: unionBox(draft.boxes),
+  };
+}
+
+function quantityFromPrices(amount: Decimal, unitPrice: Decimal): string {
+  if (unitPrice.isZero()) return '1';
+  const ratio = amount.dividedBy(unitPrice);
+  return ratio.isInteger() && ratio.isPositive() ? toWire(ratio) : '1';
+}
+
+function round2(value: number): number {
+  return Math.round(Math.max(0, Math.min(1, value)) * 100) / 100;
+}
+
+// ------------------------------------------------------------------------------------------------------
+// Vendor, currency
+
+const NOT_VENDOR = /^(RECEIPT|INVOICE|TAX INVOICE|SALES RECEIPT|WELCOME|ORDER|RETURN|CUSTOMER COPY|DUPLICATE|COPY|STATEMENT)$/i;
+
+function findVendor(lines: AnalysedLine[]): ReadField<string> {
+  for (const analysed of lines.slice(0, 6)) {
+    const text = analysed.text.replace(/[^A-Za-z0-9&'.,\- ]/g, ' ').replace(/\s+/g, ' ').trim();
+    const letters = (text.match(/[A-Za-z]/g) ?? []).length;
+    if (letters < 4 || letters < text.replace(/\s/g, '').length * 0.6) continue;
+    if (NOT_VENDOR.test(text) || /@|www\.|https?:/i.test(analysed.text) || findDate(analysed.text, 'en-US')) continue;
+    if (analysed.tokens.some((token) => token.amount)) continue;
+    // The first line is where shops print their name; a later one is a weaker guess.
+    const position = lines.indexOf(analysed) === 0 ? 1 : 0.8;
+    return { value: text, confidence: round2(analysed.confidence * position) };
+  }
+  return { value: null, confidence: 0 };
+}
+
+/** The currency a bare "$" means in a region (from the locale), common practice; USD elsewhere. */
+const DOLLAR_BY_REGION: Record<string, string> = { US: 'USD', CA: 'CAD', AU: 'AUD', NZ: 'NZD', SG: 'SGD', HK: 'HKD', MX: 'MXN', TW: 'TWD' };
+/** A region's usual currency, for slips that print no mark at all (common practice). */
+const CURRENCY_BY_REGION: Record<string, string> = {
+  ...DOLLAR_BY_REGION,
+  GB: 'GBP',
+  MY: 'MYR',
+  IE: 'EUR',
+  DE: 'EUR',
+  FR: 'EUR',
+  ES: 'EUR',
+  IT: 'EUR',
+  NL: 'EUR',
+  BE: 'EUR',
+  AT: 'EUR',
+  FI: 'EUR',
+  PT: 'EUR',
+  IN: 'INR',
+  JP: 'JPY',
+  CH: 'CHF',
+  ZA: 'ZAR',
+};
+
+function regionOf(locale: string): string {
+  try {
+    return new Intl.Locale(locale).maximize().region ?? 'US';
+  } catch {
+    return 'US';
+  }
+}
+
+function findCurrency(lines: AnalysedLine[], locale: string, notes: string[]): ReadField<string> {
+  const counts = new Map<string, number>();
+  for (const analysed of lines) {
+    for (const token of analysed.tokens) {
+      const mark = token.amount?.mark;
+      if (mark) counts.set(mark, (counts.get(mark) ?? 0) + 1);
+    }
+  }
+  const region = regionOf(locale);
+  const ranked = [...counts.entries()].sort((a, b) => b[1] - a[1]);
+  if (ranked.length > 0) {
+    const [mark] = ranked[0];
+    if (mark !== '$') return { value: mark, confidence: 0.95 };
+    const dollar = DOLLAR_BY_REGION[region];
+    if (dollar) return { value: dollar, confidence: 0.85 };
+    notes.push(`The receipt prints "$" and the build's locale (${locale}) names no dollar; read as USD. Check the currency.`);
+    return { value: 'USD', confidence: 0.5 };
+  }
+  const usual = CURRENCY_BY_REGION[region];
+  if (!usual) return { value: null, confidence: 0 };
+  notes.push(`The receipt prints no currency; ${usual} assumed from the build's locale (${locale}).`);
+  return { value: usual, confidence: 0.4 };
+}
+
+// ------------------------------------------------------------------------------------------------------
+
+function rightmostAmount(analysed: AnalysedLine): ReadAmount | null {
+  const amounts = analysed.tokens.filter((token) => token.amount);
+  return amounts.length === 0 ? null : amounts[amounts.length - 1].amount;
+}
+
+function field(value: string | null, confidence: number): ReadField<string> {
+  return { value, confidence: value === null ? 0 : round2(confidence) };
+}
+
+export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadReceipt {
+  const notes: string[] = [];
+  const lines = pages.flatMap((page) => page.lines).filter((line) => line.words.length > 0).map(analyse);
+
+  // The item region ends at the first summary line; everything after the total is payment and small print.
+  const firstSummary = lines.findIndex((analysed) => analysed.summary !== null && analysed.summary !== 'discount');
+  const itemEnd = firstSummary === -1 ? lines.length : firstSummary;
+  const headerIndex = lines.findIndex((analysed, index) => index < itemEnd && isColumnHeader(analysed));
+  const hasPartColumn = headerIndex !== -1 && hasWord(lines[headerIndex].keywords, 'PART', 'ITEM', 'SKU', 'PARTNO');
+
+  const drafts: DraftLine[] = [];
+  let pendingDescription: AnalysedLine | null = null;
+  let seenItem = false;
+  for (let index = headerIndex + 1; index < itemEnd; index += 1) {
+    const analysed = lines[index];
+    const pattern = quantityAt(analysed.tokens);
+    const amounts = analysed.tokens.filter((token) => token.amount);
+    const previous = drafts[drafts.length - 1];
+    // "2 @ $11.79" under (or over) its item, carrying no amount of its own.
+    if (pattern && (amounts.length === 0 || (amounts.length === 1 && pattern.end === analysed.tokens.indexOf(amounts[0])))) {
+      if (previous && previous.quantity === null && previous.unitPrice === null) {
+        previous.quantity = pattern.quantity;
+        previous.unitPrice = repairUnitPrice(pattern.unitPrice, pattern.quantity, previous.amount.abs()).value;
+        if (previous.amount.isNegative() && !previous.unitPrice.startsWith('-')) previous.unitPrice = toWire(new Decimal(previous.unitPrice).negated());
+        const expected = roundHalfUp(multiply(new Decimal(previous.unitPrice), new Decimal(pattern.quantity)), 2);
+        previous.confidence = expected.equals(previous.amount) ? Math.min(1, previous.confidence + 0.1) : previous.confidence * 0.6;
+        previous.boxes.push(analysed.line.box);
+      }
+      continue;
+    }
+    const partNumber = partNumberLine(analysed);
+    if (partNumber && previous && previous.partNumber === null && seenItem) {
+      previous.partNumber = partNumber;
+      previous.boxes.push(analysed.line.box);
+      continue;
+    }
+    if (amounts.length === 0) {
+      // A description printed on its own line above its amount line; header lines before the first item too.
+      pendingDescription = seenItem || headerIndex !== -1 ? analysed : null;
+      continue;
+    }
+    const draft = itemFromLine(analysed, hasPartColumn);
+    if (!draft) continue;
+    if (draft.description === '' && pendingDescription) {
+      draft.description = pendingDescription.text.trim();
+      draft.boxes.unshift(pendingDescription.line.box);
+    }
+    pendingDescription = null;
+    if (draft.description === '' && draft.quantity === null) continue;
+    drafts.push(draft);
+    seenItem = true;
+  }
+  const readLines = drafts.map(finishLine);
+
+  // Summary fields: the first line of each kind wins, except taxes, which add up (state + county).
+  const summaries: Partial<Record<SummaryField, { value: Decimal; confidence: number; count: number }>> = {};
+  let totalSeen = false;
+  for (const analysed of lines.slice(itemEnd)) {
+    const kind = analysed.summary;
+    if (!kind || kind === 'payment' || totalSeen) continue;
+    const amount = rightmostAmount(analysed);
+    if (!amount) continue;
+    const value = new Decimal(amount.value);
+    const confidence = Math.min(amount.confidence, analysed.confidence);
+    const existing = summaries[kind];
+    if (kind === 'tax' && existing) summaries.tax = { value: sum([existing.value, value]), confidence: Math.min(existing.confidence, confidence), count: existing.count + 1 };
+    else if (!existing) summaries[kind] = { value, confidence, count: 1 };
+    if (kind === 'total') totalSeen = true;
+  }
+  const money = (kind: SummaryField) => summaries[kind];
+  const subtotal = money('subtotal');
+  const tax = money('tax');
+  const shipping = money('shipping');
+  const discount = money('discount');
+  const total = money('total');
+  const discountValue = discount ? discount.value.abs() : null;
+
+  // Reconciliation: printed figures that add up confirm each other.
+  const lineSum = sum(readLines.map((item) => new Decimal(item.amount)));
+  const linesMatchSubtotal = subtotal !== undefined && readLines.length > 0 && lineSum.equals(subtotal.value);
+  const base = subtotal?.value ?? lineSum;
+  const computedTotal = sum([base, tax?.value ?? new Decimal(0), shipping?.value ?? new Decimal(0), (discountValue ?? new Decimal(0)).negated()]);
+  let totalRepaired = false;
+  if (total && !computedTotal.equals(total.value) && (linesMatchSubtotal || subtotal === undefined) && readLines.length > 0) {
+    // One misread character in the total ("$517.72" for $17.72) when everything else adds up.
+    if (editDistance(digitsOf(toWire(computedTotal, 2)), digitsOf(toWire(total.value, 2))) <= 1 && computedTotal.isNegative() === total.value.isNegative()) {
+      notes.push(`The total reads ${toWire(total.value, 2)}; taken as ${toWire(computedTotal, 2)}, what the lines and charges add up to. Check it.`);
+      total.value = computedTotal;
+      total.confidence = Math.min(total.confidence, 0.6);
+      totalRepaired = true;
+    }
+  }
+  const totalsAgree = total !== undefined && computedTotal.equals(total.value);
+  const boost = (confidence: number, agreed: boolean) => (agreed ? Math.max(confidence, 0.95) : confidence);
+  if (linesMatchSubtotal) for (const item of readLines) item.confidence = round2(Math.max(item.confidence, 0.9));
+  if (total && !totalsAgree) {
+    notes.push(`The lines and charges add up to ${toWire(computedTotal, 2)} but the total reads ${toWire(total.value, 2)}; check the amounts.`);
+  }
+  if (subtotal && readLines.length > 0 && !linesMatchSubtotal) {
+    notes.push(`The lines add up to ${toWire(lineSum, 2)} but the subtotal reads ${toWire(subtotal.value, 2)}; a line may be missing or misread.`);
+  }
+  if (readLines.length === 0) notes.push('No item lines were found; enter them by hand.');
+
+  const date = findReceiptDate(lines, options.locale, notes);
+  const currency = findCurrency(lines, options.locale, notes);
+  const wire = (value: Decimal | null | undefined) => (value === null || value === undefined ? null : toWire(value, Math.max(2, value.decimalPlaces())));
+
+  return {
+    vendor: findVendor(lines),
+    date,
+    currency,
+    lines: readLines,
+    subtotal: field(wire(subtotal?.value), boost(subtotal?.confidence ?? 0, linesMatchSubtotal || totalsAgree)),
+    tax: field(wire(tax?.value), boost(tax?.confidence ?? 0, totalsAgree)),
+    shipping: field(wire(shipping?.value), boost(shipping?.confidence ?? 0, totalsAgree)),
+    discount: field(wire(discountValue), boost(discount?.confidence ?? 0, totalsAgree)),
+    total: field(wire(total?.value), boost(total?.confidence ?? 0, totalsAgree && !totalRepaired)),
+    notes,
+    pages: pages.map(({ width, height, source }) => ({ width, height, source })),
+    words: pages.flatMap((page) => page.lines.flatMap((line) => line.words)),
+  };
+}
+
+function findReceiptDate(lines: AnalysedLine[], locale: string, notes: string[]): ReadField<string> {
+  // A line labelled as the date wins over other dates (due dates, warranty dates).
+  const labelled = lines.filter((analysed) => hasWord(analysed.keywords, 'DATE', 'DATED'));
+  for (const analysed of [...labelled, ...lines]) {
+    const found = findDate(analysed.text, locale);
+    if (!found) continue;
+    if (found.note) notes.push(found.note);
+    return { value: found.value, confidence: round2(found.confidence * Math.max(analysed.confidence, 0.5)) };
+  }
+  return { value: null, confidence: 0 };
+}

@@ -1,0 +1,198 @@
+// Receipts of a build: upload, list, view (with the document and page images), correct, assign lines, file.
+// Every member reads; owner and crew upload and edit (crew until filed); cores change state in one click.
+import { Router, type Response } from 'express';
+import multer from 'multer';
+import {
+  createLineRequest,
+  fileReceiptRequest,
+  MAX_UPLOAD_BYTES,
+  MAX_UPLOAD_FILES,
+  mergeLinesRequest,
+  splitLineRequest,
+  updateCoreRequest,
+  updateLineRequest,
+  updateReceiptRequest,
+} from '../../../shared/api/receipts';
+import { RECEIPT_STATES, type ReceiptState } from '../../../shared/enums';
+import { ANY_MEMBER, buildRole, em, isUuid, membershipOf } from '../http/build-access';
+import { NotFound, ValidationFailed } from '../http/errors';
+import { validBody } from '../http/validate';
+import type { JobQueue } from '../jobs/queue';
+import type { ObjectStore } from '../storage/object-store';
+import { listCores, updateCore } from './cores.service';
+import { searchLines } from './line-search';
+import { receiptDto, lineDto } from './receipt-dto';
+import { fileReceipt, reopenReceipt } from './receipt-filing';
+import { addLine, deleteLine, mergeLines, splitLine, updateLine } from './receipt-lines.service';
+import { createReceipts, findReceipt, listReceipts, updateReceipt, type UploadedDocument } from './receipts.service';
+import { UnreadableDocumentError } from './reading/sniff';
+import { checkUpload } from './upload-check';
+
+const EDITORS = ['owner', 'crew'] as const;
+const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_UPLOAD_BYTES, files: MAX_UPLOAD_FILES } });
+
+function id(value: unknown, what: string): string {
+  if (!isUuid(value)) throw new NotFound(what);
+  return value;
+}
+
+function dateQuery(value: unknown, field: string): string | undefined {
+  if (value === undefined || value === '') return undefined;
+  if (typeof value !== 'string' || !/^\d{4}-\d{2}-\d{2}$/.test(value)) throw new ValidationFailed({ [field]: 'Use a date like 2026-11-14.' });
+  return value;
+}
+
+/** Mounted under /api/builds/:buildId. */
+export function receiptsRoutes(deps: { store: ObjectStore; queue: JobQueue }): Router {
+  const router = Router({ mergeParams: true });
+  const receiptOf = async (res: Response, receiptId: unknown) => findReceipt(em(), membershipOf(res).build, id(receiptId, 'That receipt'));
+  const sendReceipt = async (res: Response, receiptId: string, status = 200) => {
+    const membership = membershipOf(res);
+    em().clear();
+    const receipt = await findReceipt(em(), membership.build, receiptId);
+    res.status(status).json(await receiptDto(em(), receipt, membership.role));
+  };
+
+  router.get('/receipts', buildRole(...ANY_MEMBER), async (req, res) => {
+    const state = req.query.state;
+    if (state !== undefined && !RECEIPT_STATES.includes(state as ReceiptState)) throw new ValidationFailed({ state: `Choose one of: ${RECEIPT_STATES.join(', ')}.` });
+    const systemId = req.query.systemId === undefined ? undefined : id(req.query.systemId, 'That system');
+    const receipts = await listReceipts(em(), membershipOf(res).build, {
+      state: state as ReceiptState | undefined,
+      vendor: typeof req.query.vendor === 'string' ? req.query.vendor : undefined,
+      from: dateQuery(req.query.from, 'from'),
+      to: dateQuery(req.query.to, 'to'),
+      systemId,
+    });
+    res.json({ receipts });
+  });
+
+  router.post(
+    '/receipts',
+    buildRole(...EDITORS),
+    (req, res, next) =>
+      upload.array('files', MAX_UPLOAD_FILES)(req, res, (error: unknown) => {
+        if (error instanceof multer.MulterError) {
+          const message =
+            error.code === 'LIMIT_FILE_SIZE'
+              ? `A file is larger than ${MAX_UPLOAD_BYTES / 1024 / 1024} MB. Send a smaller photo or PDF.`
+              : error.code === 'LIMIT_FILE_COUNT' || error.code === 'LIMIT_UNEXPECTED_FILE'
+                ? `Send at most ${MAX_UPLOAD_FILES} files at once, in the field "files".`
+                : error.message;
+          next(new ValidationFailed({ files: message }, message));
+          return;
+        }
+        next(error);
+      }),
+    async (req, res) => {
+      const files = (req.files as Express.Multer.File[] | undefined) ?? [];
+      if (files.length === 0) throw new ValidationFailed({ files: 'Attach at least one photo or PDF of a receipt.' });
+      const documents: UploadedDocument[] = [];
+      const fields: Record<string, string> = {};
+      for (const [index, file] of files.entries()) {
+        try {
+          documents.push({ originalFilename: file.originalname, bytes: file.buffer, sniffed: await checkUpload(file.buffer) });
+        } catch (error) {
+          if (!(error instanceof UnreadableDocumentError)) throw error;
+          fields[`files.${index}`] = `${file.originalname}: ${error.message}`;
+        }
+      }
+      // All or nothing, so a person never wonders which of their photos made it.
+      if (Object.keys(fields).length) throw new ValidationFailed(fields, Object.values(fields).join(' '));
+      const membership = membershipOf(res);
+      const receipts = await createReceipts(em(), deps, membership.build, req.user!, documents);
+      const dtos = [];
+      for (const receipt of receipts) dtos.push(await receiptDto(em(), receipt, membership.role));
+      res.status(201).json({ receipts: dtos });
+    },
+  );
+
+  router.get('/receipts/:receiptId', buildRole(...ANY_MEMBER), async (req, res) => {
+    await sendReceipt(res, (await receiptOf(res, req.params.receiptId)).id);
+  });
+
+  router.get('/receipts/:receiptId/document', buildRole(...ANY_MEMBER), async (req, res) => {
+    const receipt = await receiptOf(res, req.params.receiptId);
+    const object = await deps.store.stream(receipt.documentKey);
+    res.setHeader('Content-Type', receipt.contentType);
+    res.setHeader('Content-Disposition', `inline; filename="${receipt.originalFilename.replace(/[^\w.-]+/g, '_')}"`);
+    res.setHeader('Cache-Control', 'private, max-age=3600');
+    object.body.pipe(res);
+  });
+
+  router.get('/receipts/:receiptId/pages/:page', buildRole(...ANY_MEMBER), async (req, res) => {
+    const receipt = await receiptOf(res, req.params.receiptId);
+    const page = receipt.pageImages[Number.parseInt(String(req.params.page), 10)];
+    if (!page) throw new NotFound('That page');
+    const object = await deps.store.stream(page.key);
+    res.setHeader('Content-Type', 'image/png');
+    res.setHeader('Cache-Control', 'private, max-age=3600');
+    object.body.pipe(res);
+  });
+
+  router.patch('/receipts/:receiptId', buildRole(...EDITORS), validBody(updateReceiptRequest), async (req, res) => {
+    const receipt = await receiptOf(res, req.params.receiptId);
+    await updateReceipt(em(), receipt, req.user!, membershipOf(res).role, req.body);
+    await sendReceipt(res, receipt.id);
+  });
+
+  router.post('/receipts/:receiptId/lines', buildRole(...EDITORS), validBody(createLineRequest), async (req, res) => {
+    const receipt = await receiptOf(res, req.params.receiptId);
+    const line = await addLine(em(), receipt, req.user!, membershipOf(res).role, req.body);
+    res.status(201).json(lineDto(line, receipt.build.currency));
+  });
+
+  router.patch('/receipts/:receiptId/lines/:lineId', buildRole(...EDITORS), validBody(updateLineRequest), async (req, res) => {
+    const receipt = await receiptOf(res, req.params.receiptId);
+    const line = await updateLine(em(), receipt, id(req.params.lineId, 'That line'), req.user!, membershipOf(res).role, req.body);
+    res.json(lineDto(line, receipt.build.currency));
+  });
+
+  router.delete('/receipts/:receiptId/lines/:lineId', buildRole(...EDITORS), async (req, res) => {
+    const receipt = await receiptOf(res, req.params.receiptId);
+    await deleteLine(em(), receipt, id(req.params.lineId, 'That line'), req.user!, membershipOf(res).role);
+    res.status(204).end();
+  });
+
+  router.post('/receipts/:receiptId/lines/:lineId/split', buildRole(...EDITORS), validBody(splitLineRequest), async (req, res) => {
+    const receipt = await receiptOf(res, req.params.receiptId);
+    await splitLine(em(), receipt, id(req.params.lineId, 'That line'), req.user!, membershipOf(res).role, req.body);
+    await sendReceipt(res, receipt.id);
+  });
+
+  router.post('/receipts/:receiptId/lines/merge', buildRole(...EDITORS), validBody(mergeLinesRequest), async (req, res) => {
+    const receipt = await receiptOf(res, req.params.receiptId);
+    await mergeLines(em(), receipt, req.body.lineIds, req.user!, membershipOf(res).role);
+    await sendReceipt(res, receipt.id);
+  });
+
+  router.post('/receipts/:receiptId/file', buildRole(...EDITORS), validBody(fileReceiptRequest), async (req, res) => {
+    const receipt = await receiptOf(res, req.params.receiptId);
+    await fileReceipt(em(), receipt, req.user!, membershipOf(res).role, req.body);
+    await sendReceipt(res, receipt.id);
+  });
+
+  router.post('/receipts/:receiptId/reopen', buildRole('owner'), async (req, res) => {
+    const receipt = await receiptOf(res, req.params.receiptId);
+    await reopenReceipt(em(), receipt, req.user!);
+    await sendReceipt(res, receipt.id);
+  });
+
+  router.get('/receipt-lines', buildRole(...ANY_MEMBER), async (req, res) => {
+    const query = typeof req.query.q === 'string' ? req.query.q : '';
+    if (query.trim().length < 2) throw new ValidationFailed({ q: 'Type at least two characters to search.' });
+    const excludeReceiptId = req.query.excludeReceiptId === undefined ? undefined : id(req.query.excludeReceiptId, 'That receipt');
+    res.json({ lines: await searchLines(em(), membershipOf(res).build, query, excludeReceiptId) });
+  });
+
+  router.get('/cores', buildRole(...ANY_MEMBER), async (_req, res) => {
+    res.json({ cores: await listCores(em(), membershipOf(res).build) });
+  });
+
+  router.patch('/cores/:coreId', buildRole(...EDITORS), validBody(updateCoreRequest), async (req, res) => {
+    res.json(await updateCore(em(), membershipOf(res).build, id(req.params.coreId, 'That core deposit'), req.user!, req.body));
+  });
+
+  return router;
+}
+

@@ -1,0 +1,142 @@
+// Receipts of a build: upload (stored in object storage, queued for reading), list with filters, view, edit header.
+import type { EntityManager } from '@mikro-orm/postgresql';
+import { createHash } from 'node:crypto';
+import type { ReceiptSummaryDto, UpdateReceiptRequest } from '../../../shared/api/receipts';
+import type { ReceiptState } from '../../../shared/enums';
+import { type Decimal, fitsMinorUnits, minorUnits } from '../../../shared/money';
+import type { User } from '../auth/user.entity';
+import type { Build } from '../builds/build.entity';
+import { recordAudit } from '../audit/audit';
+import { Forbidden, NotFound, StaleVersion, ValidationFailed } from '../http/errors';
+import type { JobQueue } from '../jobs/queue';
+import type { ObjectStore } from '../storage/object-store';
+import { findDuplicates, summaryDto } from './receipt-dto';
+import { ReceiptLine } from './receipt-line.entity';
+import { Receipt } from './receipt.entity';
+import { Vendor, normalizeVendorName } from './vendor.entity';
+import type { SniffedDocument } from './upload-check';
+
+export interface UploadedDocument {
+  originalFilename: string;
+  bytes: Buffer;
+  sniffed: SniffedDocument;
+}
+
+export async function createReceipts(
+  em: EntityManager,
+  deps: { store: ObjectStore; queue: JobQueue },
+  build: Build,
+  user: User,
+  documents: UploadedDocument[],
+): Promise<Receipt[]> {
+  const receipts: Receipt[] = [];
+  for (const document of documents) {
+    const sha256 = createHash('sha256').update(document.bytes).digest('hex');
+    const receipt = em.create(Receipt, {
+      build,
+      uploadedBy: user,
+      originalFilename: document.originalFilename.slice(0, 255) || `receipt.${document.sniffed.ext}`,
+      documentKey: '',
+      contentType: document.sniffed.mime,
+      sha256,
+      size: document.bytes.length,
+      pages: document.sniffed.pages,
+    });
+    receipt.documentKey = `builds/${build.id}/receipts/${receipt.id}/original.${document.sniffed.ext}`;
+    // The document is stored before the row exists, so a row never points at nothing.
+    await deps.store.put(receipt.documentKey, document.bytes, document.sniffed.mime);
+    receipts.push(receipt);
+  }
+  await em.flush();
+  for (const receipt of receipts) await deps.queue.readReceipt(receipt.id);
+  return receipts;
+}
+
+export interface ReceiptFilter {
+  state?: ReceiptState;
+  vendor?: string;
+  from?: string;
+  to?: string;
+  systemId?: string;
+}
+
+export async function listReceipts(em: EntityManager, build: Build, filter: ReceiptFilter): Promise<ReceiptSummaryDto[]> {
+  const where: Record<string, unknown> = { build };
+  if (filter.state) where.state = filter.state;
+  if (filter.vendor) where.vendor = { normalizedName: { $like: `%${normalizeVendorName(filter.vendor)}%` } };
+  if (filter.from || filter.to) where.purchaseDate = { ...(filter.from ? { $gte: filter.from } : {}), ...(filter.to ? { $lte: filter.to } : {}) };
+  if (filter.systemId) where.id = { $in: em.createQueryBuilder(ReceiptLine, 'l').select('l.receipt_id').where({ system: filter.systemId }).getKnexQuery() };
+  const receipts = await em.find(Receipt, where, { populate: ['vendor', 'uploadedBy'], orderBy: { purchaseDate: 'desc nulls first', createdAt: 'desc' } });
+  const duplicates = await findDuplicates(em, receipts);
+  const stats: { receipt_id: string; lines: string; systems: string[] | null }[] = receipts.length
+    ? await em.getConnection().execute(
+        `select receipt_id, count(*) as lines, array_remove(array_agg(distinct system_id), null) as systems
+           from receipt_line where receipt_id = any(?::uuid[]) group by receipt_id`,
+        [`{${receipts.map((r) => r.id).join(',')}}`],
+      )
+    : [];
+  const byReceipt = new Map(stats.map((s) => [s.receipt_id, s]));
+  return receipts.map((receipt) =>
+    summaryDto(receipt, {
+      lineCount: Number(byReceipt.get(receipt.id)?.lines ?? 0),
+      duplicateOf: duplicates.get(receipt.id) ?? [],
+      systemIds: byReceipt.get(receipt.id)?.systems ?? [],
+    }),
+  );
+}
+
+export async function findReceipt(em: EntityManager, build: Build, receiptId: string): Promise<Receipt> {
+  const receipt = await em.findOne(Receipt, { id: receiptId, build }, { populate: ['vendor', 'uploadedBy', 'build'] });
+  if (!receipt) throw new NotFound('That receipt');
+  return receipt;
+}
+
+/** Crew edit until the receipt is filed; the owner edits always (each change to money is audited). */
+export function assertEditable(receipt: Receipt, role: string): void {
+  if (role === 'reviewer') throw new Forbidden();
+  if (receipt.state === 'filed' && role !== 'owner') throw new Forbidden('This receipt is filed: only the owner can change it now.');
+  if (receipt.state === 'queued' || receipt.state === 'reading') throw new ValidationFailed({ state: 'Wait until the receipt has been read.' }, 'The receipt is still being read.');
+}
+
+export async function vendorNamed(em: EntityManager, build: Build, name: string): Promise<Vendor | null> {
+  const trimmed = name.trim();
+  const normalizedName = normalizeVendorName(trimmed);
+  if (!normalizedName) return null;
+  return (await em.findOne(Vendor, { build, normalizedName })) ?? em.create(Vendor, { build, name: trimmed, normalizedName });
+}
+
+const MONEY_FIELDS = ['subtotal', 'tax', 'shipping', 'discount', 'total'] as const;
+
+export function moneySnapshot(receipt: Receipt): Record<string, string | null> {
+  return Object.fromEntries(MONEY_FIELDS.map((field) => [field, receipt[field]?.toString() ?? null]));
+}
+
+export async function updateReceipt(
+  em: EntityManager,
+  receipt: Receipt,
+  user: User,
+  role: string,
+  input: Omit<UpdateReceiptRequest, (typeof MONEY_FIELDS)[number]> & Partial<Record<(typeof MONEY_FIELDS)[number], Decimal | null>>,
+): Promise<Receipt> {
+  assertEditable(receipt, role);
+  if (receipt.version !== input.version) throw new StaleVersion('This receipt');
+  const currency = receipt.build.currency;
+  const places = minorUnits(currency);
+  const fields: Record<string, string> = {};
+  for (const field of MONEY_FIELDS) {
+    const value = input[field];
+    if (value && !fitsMinorUnits(value, currency)) fields[field] = `${currency} amounts have ${places === 0 ? 'no decimals' : `at most ${places} decimals`}.`;
+  }
+  if (Object.keys(fields).length) throw new ValidationFailed(fields);
+  const before = moneySnapshot(receipt);
+  if (input.vendorName !== undefined) receipt.vendor = await vendorNamed(em, receipt.build, input.vendorName);
+  if (input.purchaseDate !== undefined) receipt.purchaseDate = input.purchaseDate;
+  if (input.receiptNumber !== undefined) receipt.receiptNumber = input.receiptNumber;
+  for (const field of MONEY_FIELDS) if (input[field] !== undefined) receipt[field] = input[field] ?? null;
+  const after = moneySnapshot(receipt);
+  if (JSON.stringify(before) !== JSON.stringify(after)) {
+    recordAudit(em, { build: receipt.build, user, entity: 'receipt', entityId: receipt.id, receiptId: receipt.id, action: 'edit', before, after });
+  }
+  await em.flush();
+  return receipt;
+}
