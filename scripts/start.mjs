@@ -10,6 +10,8 @@ const smtpPort = process.env.SMTP_PORT || '2525';
 const mailViewPort = process.env.MAIL_VIEW_PORT || '2580';
 const appUrl = `http://127.0.0.1:${port}`;
 const mailUrl = `http://127.0.0.1:${mailViewPort}/`;
+const s3Port = process.env.S3_PORT || '4569';
+const s3Url = `http://127.0.0.1:${s3Port}`;
 
 const setupStarted = performance.now();
 const timings = [];
@@ -24,6 +26,8 @@ const env = {
   SMTP_HOST: '127.0.0.1',
   SMTP_PORT: smtpPort,
   MAIL_VIEW_PORT: mailViewPort,
+  S3_PORT: s3Port,
+  S3_ENDPOINT: process.env.S3_ENDPOINT || s3Url,
 };
 
 if (!(await timed('migrate', timings, () => migrate(env)))) fail('The migrations failed (see above); nothing was started.');
@@ -90,13 +94,17 @@ async function waitUntilAnswering(url, timeoutMs = 60_000) {
   return false;
 }
 
-for (const [label, url] of [['Port ' + port, appUrl], ['Port ' + mailViewPort, mailUrl]]) {
-  if (await answers(url)) fail(`${label} is already in use (${url} answers): is another npm start running? Stop it or set PORT / MAIL_VIEW_PORT.`);
+for (const [label, url] of [['Port ' + port, appUrl], ['Port ' + mailViewPort, mailUrl], ['Port ' + s3Port, s3Url]]) {
+  if (await answers(url)) fail(`${label} is already in use (${url} answers): is another npm start running? Stop it or set PORT / MAIL_VIEW_PORT / S3_PORT.`);
 }
 
 startChild('fake mail server', 'backend/src/mail/fake-mail-server.ts');
+startChild('fake S3 server', 'backend/src/storage/fake-s3-server.ts');
+// The server and the worker make the bucket on start, so the store must answer first.
+const storeUp = await waitUntilAnswering(s3Url);
 startChild('server', 'backend/src/server.ts');
-if (!(await waitUntilAnswering(mailUrl)) || !(await waitUntilAnswering(appUrl))) {
+startChild('receipt reading worker', 'backend/src/jobs/worker.ts');
+if (!storeUp || !(await waitUntilAnswering(mailUrl)) || !(await waitUntilAnswering(appUrl))) {
   if (!stopping) {
     log('The servers did not answer within a minute; stopping.');
     stopAll(1);

@@ -245,6 +245,8 @@ describe('CSV import', () => {
     expect(res.status).toBe(201);
     expect(res.body).toEqual({ imported: 50, dropped: 0 });
     const overview = (await client.get(`/api/builds/${build.id}/systems`)).body;
+    const listed = (await client.get(`/api/builds/${build.id}/parts`)).body.parts.map((p: { description: string }) => p.description);
+    expect(listed).toEqual(Array.from({ length: 50 }, (_, i) => `Gasket ${i + 1}`));
     // Sum of (k + 0.10) for k = 1..50 = 1275 + 5.00 = 1280.00
     expect(overview.systems.find((s: { name: string }) => s.name === 'Engine').estimate).toBe('1280.00');
   });

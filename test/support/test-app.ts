@@ -10,7 +10,6 @@ import { startFakeMailServer, type FakeMailServer } from '../../backend/src/mail
 import { startJobQueue, type JobQueue } from '../../backend/src/jobs/queue';
 import { startFakeS3, type FakeS3 } from '../../backend/src/storage/fake-s3-server';
 import { createObjectStore, type ObjectStore } from '../../backend/src/storage/object-store';
-import { mkdtempSync, rmSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 
@@ -29,7 +28,9 @@ export async function startTestApp(options: { serveClient?: boolean } = {}): Pro
   const base = loadConfig({ ...process.env, PGDATABASE: process.env.PGDATABASE ?? 'tallyhood_test', PORT: '0' });
   const orm = await MikroORM.init(ormConfig(base.db));
   const mailer = createMailer({ ...base.smtp, port: mail.smtpPort });
-  const s3Folder = mkdtempSync(path.join(os.tmpdir(), 'tallyhood-s3-'));
+  // One folder for every test file of a run: they share the database, so the queue's jobs may be taken by
+  // another file's worker, which must then find the documents too.
+  const s3Folder = path.join(os.tmpdir(), `tallyhood-test-s3-${base.db.dbName}`);
   const s3: FakeS3 = await startFakeS3({ directory: s3Folder });
   const store = createObjectStore({ ...base.storage, endpoint: s3.endpoint });
   await store.ensureBucket();
@@ -58,7 +59,6 @@ export async function startTestApp(options: { serveClient?: boolean } = {}): Pro
       await queue.stop();
       store.close();
       await s3.close();
-      rmSync(s3Folder, { recursive: true, force: true });
       await orm.close(true);
     },
   };

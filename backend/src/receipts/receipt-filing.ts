@@ -1,7 +1,7 @@
 // Filing a checked receipt: it must reconcile (or the owner accepts the difference); charges are allocated to the
 // lines to the cent, core deposits are opened, and parts move on to "on the shelf" or "sent back".
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { Decimal, sum, toWire } from '../../../shared/money';
+import { Decimal, minorUnits, sum, toWire } from '../../../shared/money';
 import { AllocationError, allocateCharges, reconcile, type MathLine } from '../../../shared/receipt-math';
 import type { User } from '../auth/user.entity';
 import { recordAudit } from '../audit/audit';
@@ -41,7 +41,11 @@ export async function fileReceipt(
 
   const check = reconcile(lines, receipt);
   if (!check.reconciles) {
-    const what = check.difference === null ? 'No total is entered' : `The lines and charges come to ${toWire(check.computedTotal)} but the receipt says ${toWire(check.printedTotal!)}`;
+    const places = minorUnits(receipt.build.currency);
+    const what =
+      check.difference === null
+        ? 'No total is entered'
+        : `The lines and charges come to ${toWire(check.computedTotal, places)} but the receipt says ${toWire(check.printedTotal!, places)}`;
     if (!input.acceptDifference) {
       throw new ValidationFailed({ total: `${what}. Correct a line, add the missing fee, or let the owner accept the difference.` }, `${what}.`);
     }

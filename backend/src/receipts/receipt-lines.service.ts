@@ -55,11 +55,12 @@ async function resolveLinks(em: EntityManager, receipt: Receipt, line: ReceiptLi
       const part = await em.findOne(Part, { id: input.partId, build }, { populate: ['system'] });
       if (!part) throw new ValidationFailed({ partId: 'No such part on this build.' });
       line.part = part;
-      // A line on a part counts toward that part's system unless a system was chosen too.
-      if (input.systemId === undefined) line.system = part.system;
     }
   }
-  if (input.systemId !== undefined) line.system = input.systemId === null ? null : await findSystem(em, build, input.systemId, 'systemId');
+  if (input.systemId) line.system = await findSystem(em, build, input.systemId, 'systemId');
+  // A line on a part counts toward that part's system unless another system was chosen.
+  else if (line.part && (input.partId || input.systemId === null)) line.system = line.part.system;
+  else if (input.systemId === null) line.system = null;
   if (input.returnOfLineId !== undefined) {
     if (input.returnOfLineId === null) line.returnOf = null;
     else {

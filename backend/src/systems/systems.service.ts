@@ -61,7 +61,8 @@ export async function systemsOverview(em: EntityManager, build: Build, includeAr
     systems: dtos,
     contingencyBudget: toWire(build.contingencyBudget, places),
     totalBudget: toWire(sum([...activeBudgets, build.contingencyBudget]), places),
-    totalEstimate: toWire(sum(parts.map((p) => partEstimate(p, build.currency))), places),
+    // Archived systems keep their history but leave both totals, so budget and estimate compare like with like.
+    totalEstimate: toWire(sum(systems.filter((s) => s.archivedAt === null).flatMap((s) => bySystem.get(s.id) ?? [])), places),
     buildVersion: build.version,
   };
 }
@@ -76,7 +77,10 @@ export async function createSystem(em: EntityManager, build: Build, input: { nam
 
 export async function updateSystem(em: EntityManager, build: Build, systemId: string, input: Omit<UpdateSystemRequest, 'budget'> & { budget?: Decimal }) {
   const system = await findSystem(em, build, systemId);
-  if (system.version !== input.version) throw new StaleVersion('This system');
+  if (system.version !== input.version) {
+    const current = (await systemsOverview(em, build, true)).systems.find((s) => s.id === system.id);
+    throw new StaleVersion('This system', current);
+  }
   checkBudget(build, 'budget', input.budget);
   if (input.name !== undefined) system.name = input.name;
   if (input.budget !== undefined) system.budget = input.budget;

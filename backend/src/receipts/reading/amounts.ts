@@ -156,7 +156,7 @@ function normaliseSeparators(text: string, requireDecimals: boolean): { text: st
 function stripThousands(text: string, decimalSeparator?: string): string | null {
   if (/^[0-9]+$/.test(text)) return text;
   const groups = text.split(/[.,' ]/);
-  const separators = text.match(/[.,' ]/g) ?? [];
+  const separators: string[] = text.match(/[.,' ]/g) ?? [];
   if (decimalSeparator && separators.includes(decimalSeparator)) return null;
   if (new Set(separators).size !== 1) return null;
   if (!/^[0-9]{1,3}$/.test(groups[0]) || groups.slice(1).some((group) => !/^[0-9]{3}$/.test(group))) return null;

@@ -1,5 +1,5 @@
 // Dates on receipts: every printed form, the locale's day/month order, and ambiguity reported, never hidden.
-import { findDate, findDates, isDayFirst } from './dates';
+import { findDate, findDates, isDayFirst, numericOrder } from './dates';
 
 describe('isDayFirst', () => {
   it.each([
@@ -50,6 +50,14 @@ describe('findDate', () => {
     expect(date?.value).toBe('2026-04-03');
     expect(date?.confidence).toBe(0.5);
     expect(date?.note).toContain('read as 3 April 2026');
+  });
+
+  it('reads a two-digit-year date year-first where the locale writes it so (en-CA), and only there', () => {
+    expect(numericOrder('en-CA')).toBe('ymd');
+    expect(numericOrder('en-US')).toBe('mdy');
+    expect(numericOrder('en-GB')).toBe('dmy');
+    expect(findDate('26-01-05', 'en-CA')).toMatchObject({ value: '2026-01-05', note: expect.stringContaining('writes the year first') });
+    expect(findDate('26-01-05', 'en-GB')).toMatchObject({ value: '2005-01-26', note: null });
   });
 
   it('needs no note when day and month are the same number', () => {

@@ -22,6 +22,16 @@ export function isDayFirst(locale: string): boolean {
   return types.indexOf('day') < types.indexOf('month');
 }
 
+/** The order the locale prints a short numeric date in: "mdy" (en-US), "dmy" (en-GB) or "ymd" (en-CA, ja). */
+export function numericOrder(locale: string): 'mdy' | 'dmy' | 'ymd' {
+  const parts = new Intl.DateTimeFormat(locale, { year: '2-digit', month: '2-digit', day: '2-digit', timeZone: 'UTC' }).formatToParts(new Date(Date.UTC(2026, 10, 14)));
+  const order = parts
+    .filter((part) => part.type === 'year' || part.type === 'month' || part.type === 'day')
+    .map((part) => part.type[0])
+    .join('');
+  return order === 'ymd' ? 'ymd' : isDayFirst(locale) ? 'dmy' : 'mdy';
+}
+
 function daysInMonth(year: number, month: number): number {
   return new Date(Date.UTC(year, month, 0)).getUTCDate();
 }
@@ -52,11 +62,13 @@ function fixDigits(text: string): string {
   return text.replace(/[Oo]/g, '0').replace(/[lI|]/g, '1').replace(/S/g, '5');
 }
 
+const ORDER_WORDS: Record<string, string> = { mdy: 'the month first', dmy: 'the day first', ymd: 'the year first' };
+
 type Candidate = Omit<ReadDate, 'start' | 'end'> & { index: number; length: number };
 
 function numericCandidates(text: string, locale: string): Candidate[] {
   const found: Candidate[] = [];
-  const pattern = /(?<![0-9A-Za-z])([0-9OolI]{1,4})([-/.])([0-9OolI]{1,2})\2([0-9OolI]{2,4})(?![0-9A-Za-z])/g;
+  const pattern = /(?<![0-9A-Za-z])([0-9OolIS]{1,4})([-/.])([0-9OolIS]{1,2})\2([0-9OolIS]{2,4})(?![0-9A-Za-z])/g;
   for (const match of text.matchAll(pattern)) {
     const [whole, firstText, , secondText, lastText] = match.map((part) => fixDigits(part ?? ''));
     const corrected = whole !== match[0];
@@ -70,33 +82,35 @@ function numericCandidates(text: string, locale: string): Candidate[] {
       continue;
     }
     if (firstText.length > 2 || (lastText.length !== 2 && lastText.length !== 4)) continue;
-    const year = fullYear(lastText);
     const first = Number(firstText);
     const second = Number(secondText);
-    const monthFirst = iso(year, first, second);
-    const dayFirst = iso(year, second, first);
+    const last = Number(lastText);
+    const order = numericOrder(locale);
+    // Every reading that makes a real date; year-first with a two-digit year only where the locale writes so.
+    const readings: Array<{ order: string; value: string | null }> = [
+      { order: 'mdy', value: iso(fullYear(lastText), first, second) },
+      { order: 'dmy', value: iso(fullYear(lastText), second, first) },
+      { order: 'ymd', value: order === 'ymd' && lastText.length === 2 ? iso(2000 + first, second, last) : null },
+    ];
+    const valid = readings.filter((reading): reading is { order: string; value: string } => reading.value !== null);
+    const distinct = [...new Set(valid.map((reading) => reading.value))];
+    if (distinct.length === 0) continue;
+    const preferred = lastText.length === 4 && order === 'ymd' ? 'mdy' : order;
+    const chosen = valid.find((reading) => reading.order === preferred) ?? valid[0];
+    const year = Number(chosen.value.slice(0, 4));
     const confidence = 0.95 * penalty * yearConfidence(year) * (lastText.length === 2 ? 0.9 : 1);
-    if (monthFirst && dayFirst && monthFirst !== dayFirst) {
-      const chosen = isDayFirst(locale) ? dayFirst : monthFirst;
-      const other = chosen === dayFirst ? monthFirst : dayFirst;
+    if (distinct.length > 1) {
+      const others = distinct.filter((value) => value !== chosen.value).map(describe);
       found.push({
-        value: chosen,
+        value: chosen.value,
         confidence: Math.min(confidence, 0.5),
-        note: `The date ${match[0]} could be ${describe(chosen)} or ${describe(other)}; read as ${describe(chosen)} because the build's locale (${locale}) writes the ${isDayFirst(locale) ? 'day' : 'month'} first. Check it against the receipt.`,
+        note: `The date ${match[0]} could be ${describe(chosen.value)} or ${others.join(' or ')}; read as ${describe(chosen.value)} because the build's locale (${locale}) writes ${ORDER_WORDS[preferred]}. Check it against the receipt.`,
         index,
         length: whole.length,
       });
-    } else if (monthFirst || dayFirst) {
-      const value = (monthFirst ?? dayFirst)!;
-      const againstLocale = (value === dayFirst) !== isDayFirst(locale) && monthFirst !== dayFirst;
-      found.push({
-        value,
-        // Only one order makes a real date; a slip that disagrees with the locale is still read, a little less sure.
-        confidence: againstLocale ? confidence * 0.9 : confidence,
-        note: null,
-        index,
-        length: whole.length,
-      });
+    } else {
+      // Only one order makes a real date; a slip that disagrees with the locale is still read, a little less sure.
+      found.push({ value: chosen.value, confidence: chosen.order === preferred ? confidence : confidence * 0.9, note: null, index, length: whole.length });
     }
   }
   return found;

@@ -390,9 +390,12 @@ function findCurrency(lines: AnalysedLine[], locale: string, notes: string[]): R
 
 // ------------------------------------------------------------------------------------------------------
 
+/** The last amount of a line, its confidence lowered to that of the OCR words it was read from. */
 function rightmostAmount(analysed: AnalysedLine): ReadAmount | null {
   const amounts = analysed.tokens.filter((token) => token.amount);
-  return amounts.length === 0 ? null : amounts[amounts.length - 1].amount;
+  if (amounts.length === 0) return null;
+  const last = amounts[amounts.length - 1];
+  return { ...last.amount!, confidence: Math.min(last.amount!.confidence, ...last.words.map((word) => word.confidence)) };
 }
 
 function field(value: string | null, confidence: number): ReadField<string> {
@@ -477,12 +480,14 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
   const discountValue = discount ? discount.value.abs() : null;
 
   // Reconciliation: printed figures that add up confirm each other.
+  const repairedLine = subtotal ? repairOneLine(readLines, subtotal.value, notes) : null;
   const lineSum = sum(readLines.map((item) => new Decimal(item.amount)));
   const linesMatchSubtotal = subtotal !== undefined && readLines.length > 0 && lineSum.equals(subtotal.value);
   const base = subtotal?.value ?? lineSum;
   const computedTotal = sum([base, tax?.value ?? new Decimal(0), shipping?.value ?? new Decimal(0), (discountValue ?? new Decimal(0)).negated()]);
   let totalRepaired = false;
-  if (total && !computedTotal.equals(total.value) && (linesMatchSubtotal || subtotal === undefined) && readLines.length > 0) {
+  // Only a total the OCR itself was unsure of is corrected; a well-read one that does not add up is reported.
+  if (total && total.confidence < 0.8 && !computedTotal.equals(total.value) && (linesMatchSubtotal || subtotal === undefined) && readLines.length > 0) {
     // One misread character in the total ("$517.72" for $17.72) when everything else adds up.
     if (editDistance(digitsOf(toWire(computedTotal, 2)), digitsOf(toWire(total.value, 2))) <= 1 && computedTotal.isNegative() === total.value.isNegative()) {
       notes.push(`The total reads ${toWire(total.value, 2)}; taken as ${toWire(computedTotal, 2)}, what the lines and charges add up to. Check it.`);
@@ -493,7 +498,7 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
   }
   const totalsAgree = total !== undefined && computedTotal.equals(total.value);
   const boost = (confidence: number, agreed: boolean) => (agreed ? Math.max(confidence, 0.95) : confidence);
-  if (linesMatchSubtotal) for (const item of readLines) item.confidence = round2(Math.max(item.confidence, 0.9));
+  if (linesMatchSubtotal) for (const item of readLines) if (item !== repairedLine) item.confidence = round2(Math.max(item.confidence, 0.9));
   if (total && !totalsAgree) {
     notes.push(`The lines and charges add up to ${toWire(computedTotal, 2)} but the total reads ${toWire(total.value, 2)}; check the amounts.`);
   }
@@ -520,6 +525,27 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
     pages: pages.map(({ width, height, source }) => ({ width, height, source })),
     words: pages.flatMap((page) => page.lines.flatMap((line) => line.words)),
   };
+}
+
+/**
+ * When the lines miss the printed subtotal and exactly one line, changed by one character, would close the
+ * gap (OCR's "11.179" for 11.79), that line is corrected and the person told.
+ */
+function repairOneLine(lines: ReadLine[], subtotal: Decimal, notes: string[]): ReadLine | null {
+  const gap = subtotal.minus(sum(lines.map((item) => new Decimal(item.amount))));
+  if (gap.isZero()) return null;
+  const fixable = lines.filter((item) => {
+    const corrected = new Decimal(item.amount).plus(gap);
+    return corrected.decimalPlaces() <= 2 && !corrected.isZero() && corrected.isNegative() === item.amount.startsWith('-') && editDistance(digitsOf(toWire(corrected, 2)), digitsOf(item.amount)) <= 1;
+  });
+  if (fixable.length !== 1) return null;
+  const [item] = fixable;
+  const corrected = toWire(new Decimal(item.amount).plus(gap), 2);
+  notes.push(`A line reads ${item.amount}; taken as ${corrected} so the lines add up to the subtotal. Check it.`);
+  if (item.unitPrice === item.amount || item.quantity === '1') item.unitPrice = corrected;
+  item.amount = corrected;
+  item.confidence = Math.min(item.confidence, 0.6);
+  return item;
 }
 
 function findReceiptDate(lines: AnalysedLine[], locale: string, notes: string[]): ReadField<string> {

@@ -32,7 +32,6 @@ export async function readPdfPages(bytes: Buffer): Promise<PdfPage[]> {
   const document = await pdfjs.getDocument({
     data: new Uint8Array(bytes),
     verbosity: 0,
-    isEvalSupported: false,
     disableFontFace: true,
     useSystemFonts: false,
     standardFontDataUrl: standardFontFolder(),
@@ -51,7 +50,7 @@ export async function readPdfPages(bytes: Buffer): Promise<PdfPage[]> {
         const viewport = page.getViewport({ scale: Math.min(4, Math.max(TEXT_SCALE, RENDER_WIDTH / base.width)) });
         const factory = (document as unknown as { canvasFactory: { create(w: number, h: number): { canvas: { toBuffer(mime: string): Buffer }; context: unknown } } }).canvasFactory;
         const { canvas, context } = factory.create(Math.ceil(viewport.width), Math.ceil(viewport.height));
-        await page.render({ canvasContext: context as CanvasRenderingContext2D, canvas: canvas as unknown as HTMLCanvasElement, viewport }).promise;
+        await page.render({ canvasContext: context as never, canvas: canvas as never, viewport }).promise;
         pages.push({ text: null, image: { png: canvas.toBuffer('image/png'), width: Math.ceil(viewport.width), height: Math.ceil(viewport.height) } });
       }
       page.cleanup();

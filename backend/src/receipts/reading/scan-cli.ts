@@ -8,6 +8,7 @@ const USAGE = 'Usage: npm run scan -- [--locale TAG] [--workers N] FILE...';
 
 async function main(argv: string[]): Promise<number> {
   let locale = DEFAULT_LOCALE;
+  let workers = 1;
   const files: string[] = [];
   for (let index = 0; index < argv.length; index += 1) {
     const argument = argv[index];
@@ -15,7 +16,10 @@ async function main(argv: string[]): Promise<number> {
       const value = argv[index + 1];
       if (!value) throw new Error(`${argument} needs a value. ${USAGE}`);
       if (argument === '--locale') locale = checkLocale(value);
-      else setOcrWorkers(Number(value));
+      else {
+        workers = Math.max(1, Math.min(4, Math.floor(Number(value)) || 1));
+        setOcrWorkers(workers);
+      }
       index += 1;
     } else if (argument.startsWith('--locale=')) locale = checkLocale(argument.slice('--locale='.length));
     else if (argument === '--help' || argument === '-h') {
@@ -28,16 +32,22 @@ async function main(argv: string[]): Promise<number> {
     return 2;
   }
   let failures = 0;
+  const readOne = async (file: string): Promise<string> => {
+    try {
+      const receipt = await readDocument(await readFile(file), { locale });
+      return JSON.stringify(toScanOutput(file, receipt));
+    } catch (error) {
+      failures += 1;
+      // One line per file either way, so a caller can pair input and output.
+      const missing = (error as NodeJS.ErrnoException).code === 'ENOENT';
+      return JSON.stringify({ file, error: missing ? `There is no file at ${file}.` : error instanceof Error ? error.message : String(error) });
+    }
+  };
   try {
-    for (const file of files) {
-      try {
-        const receipt = await readDocument(await readFile(file), { locale });
-        process.stdout.write(`${JSON.stringify(toScanOutput(file, receipt))}\n`);
-      } catch (error) {
-        failures += 1;
-        // One line per file either way, so a caller can pair input and output.
-        process.stdout.write(`${JSON.stringify({ file, error: error instanceof Error ? error.message : String(error) })}\n`);
-      }
+    // As many files at a time as there are OCR workers; output stays in the order of the arguments.
+    for (let start = 0; start < files.length; start += workers) {
+      const lines = await Promise.all(files.slice(start, start + workers).map(readOne));
+      for (const line of lines) process.stdout.write(`${line}\n`);
     }
   } finally {
     await closeReaders();

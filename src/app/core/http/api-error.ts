@@ -12,6 +12,8 @@ export class ApiError extends Error {
     message: string,
     /** Field name to message; forms put these on their controls. */
     readonly fields: Readonly<Record<string, string>> = {},
+    /** On a stale edit (code stale_version): the record as it is saved now, when the API sends it. */
+    readonly current?: unknown,
   ) {
     super(message);
     this.name = 'ApiError';
@@ -37,7 +39,7 @@ export function toApiError(error: unknown): ApiError {
   if (error instanceof HttpErrorResponse) {
     if (isApiErrorBody(error.error)) {
       const body = error.error.error;
-      return new ApiError(error.status, body.code, body.message, body.fields ?? {});
+      return new ApiError(error.status, body.code, body.message, body.fields ?? {}, body.current);
     }
     const message =
       fallbackMessages[error.status] ??

@@ -1,6 +1,7 @@
 // A build's frame: its sections as a side rail on wide screens and a bottom bar on phones.
 import { ChangeDetectionStrategy, Component, effect, inject, input, untracked } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
+import { MatMenuModule } from '@angular/material/menu';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { CurrentBuild } from '../../features/builds/services/current-build';
@@ -10,17 +11,25 @@ export interface BuildSection {
   path: string;
   label: string;
   icon: string;
+  /** False: on phones the section sits in the bottom bar's "More" menu, so the bar keeps four or five items. */
+  phoneBar?: boolean;
 }
 
-/** The build's sections in order; later features add theirs here (Parts, Receipts, Ledger, Cores and returns, Review, Exports). */
+/**
+ * The build's sections in order; later features add theirs here (Receipts, Ledger, Cores and returns, Review, Exports).
+ * The phone bar holds four sections and "More": the rest set `phoneBar: false`.
+ */
 export const BUILD_SECTIONS: readonly BuildSection[] = [
   { path: '.', label: 'Overview', icon: 'directions_car' },
+  { path: 'parts', label: 'Parts', icon: 'list_alt' },
+  { path: 'budgets', label: 'Budgets', icon: 'savings' },
+  { path: 'inventory', label: 'Inventory', icon: 'inventory', phoneBar: false },
   { path: 'crew', label: 'Crew', icon: 'group' },
 ];
 
 @Component({
   selector: 'th-build-shell',
-  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatIconModule, MatProgressBarModule],
+  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatIconModule, MatMenuModule, MatProgressBarModule],
   providers: [CurrentBuild],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
@@ -28,7 +37,7 @@ export const BUILD_SECTIONS: readonly BuildSection[] = [
       <nav class="sections" aria-label="Build sections">
         <ul>
           @for (section of sections; track section.path) {
-            <li>
+            <li [class.off-phone]="section.phoneBar === false">
               <a
                 [routerLink]="section.path"
                 routerLinkActive="active"
@@ -38,6 +47,22 @@ export const BUILD_SECTIONS: readonly BuildSection[] = [
                 <mat-icon aria-hidden="true">{{ section.icon }}</mat-icon>
                 <span class="section-label">{{ section.label }}</span>
               </a>
+            </li>
+          }
+          @if (moreSections.length > 0) {
+            <li class="more">
+              <button type="button" [matMenuTriggerFor]="moreMenu">
+                <mat-icon aria-hidden="true">more_horiz</mat-icon>
+                <span class="section-label">More</span>
+              </button>
+              <mat-menu #moreMenu="matMenu" yPosition="above">
+                @for (section of moreSections; track section.path) {
+                  <a mat-menu-item [routerLink]="section.path">
+                    <mat-icon aria-hidden="true">{{ section.icon }}</mat-icon>
+                    <span>{{ section.label }}</span>
+                  </a>
+                }
+              </mat-menu>
             </li>
           }
         </ul>
@@ -71,13 +96,16 @@ export const BUILD_SECTIONS: readonly BuildSection[] = [
     .shell {
       display: flex;
       flex: 1;
+      /* Without this a wide table inside a page widens the whole page instead of scrolling in its own box. */
+      min-width: 0;
     }
     .sections ul {
       list-style: none;
       margin: 0;
       padding: 0;
     }
-    .sections a {
+    .sections a,
+    .sections .more button {
       display: flex;
       flex-direction: column;
       align-items: center;
@@ -88,11 +116,19 @@ export const BUILD_SECTIONS: readonly BuildSection[] = [
       border-radius: 16px;
       padding: 8px 4px;
     }
-    .sections a mat-icon {
+    .sections .more button {
+      width: 100%;
+      border: none;
+      background: none;
+      cursor: pointer;
+    }
+    .sections a mat-icon,
+    .sections .more mat-icon {
       padding: 4px 16px;
       border-radius: 16px;
     }
-    .sections a:hover mat-icon {
+    .sections a:hover mat-icon,
+    .sections .more button:hover mat-icon {
       background: var(--mat-sys-surface-container-highest);
     }
     .sections a.active {
@@ -103,7 +139,8 @@ export const BUILD_SECTIONS: readonly BuildSection[] = [
       background: var(--mat-sys-secondary-container);
       color: var(--mat-sys-on-secondary-container);
     }
-    .sections a:focus-visible {
+    .sections a:focus-visible,
+    .sections .more button:focus-visible {
       outline: 2px solid var(--mat-sys-primary);
       outline-offset: 2px;
     }
@@ -129,6 +166,9 @@ export const BUILD_SECTIONS: readonly BuildSection[] = [
         padding-top: 12px;
         background: var(--mat-sys-surface-container-low);
         border-right: 1px solid var(--mat-sys-outline-variant);
+      }
+      .sections .more {
+        display: none;
       }
       .sections ul {
         position: sticky;
@@ -160,12 +200,16 @@ export const BUILD_SECTIONS: readonly BuildSection[] = [
       .sections li {
         flex: 1;
       }
+      .sections li.off-phone {
+        display: none;
+      }
     }
   `,
 })
 export class BuildShell {
   protected readonly current = inject(CurrentBuild);
   protected readonly sections = BUILD_SECTIONS;
+  protected readonly moreSections = BUILD_SECTIONS.filter((section) => section.phoneBar === false);
 
   /** Route parameter, bound by the router. */
   readonly buildId = input.required<string>();

@@ -20,6 +20,8 @@ export const buildsRoutes: Routes = [
           { path: '', title: 'Build · Tallyhood', component: BuildOverview },
           { path: 'edit', title: 'Edit build · Tallyhood', component: BuildForm },
           { path: 'crew', loadChildren: () => import('../crew/crew.routes').then((m) => m.crewRoutes) },
+          // Parts, Budgets and Inventory share one lazy chunk; listed last so other sections never load it.
+          { path: '', loadChildren: () => import('../parts/parts.routes').then((m) => m.partsRoutes) },
         ],
       },
     ],

@@ -1,0 +1,49 @@
+// Reads a document and keeps the page images the reading's word boxes refer to, for the check screen.
+import path from 'node:path';
+import type { DocumentReading, PageImage } from '../jobs/read-receipt.job';
+import { importEsm } from './reading/esm-import';
+import { normaliseImage } from './reading/normalise';
+import { readPdfPages, TEXT_SCALE } from './reading/pdf-text';
+import { readDocument } from './reading/read-document';
+import { sniffReceiptType } from './reading/sniff';
+
+type PdfJs = typeof import('pdfjs-dist/legacy/build/pdf.mjs');
+
+/** Renders the text-layer pages at the scale their boxes use; scanned pages come out as the reader saw them. */
+async function pdfPageImages(bytes: Buffer): Promise<PageImage[]> {
+  const read = await readPdfPages(bytes);
+  const pdfjs = await importEsm<PdfJs>('pdfjs-dist/legacy/build/pdf.mjs');
+  const document = await pdfjs.getDocument({
+    data: new Uint8Array(bytes),
+    verbosity: 0,
+    disableFontFace: true,
+    useSystemFonts: false,
+    standardFontDataUrl: `${path.join(path.dirname(require.resolve('pdfjs-dist/package.json')), 'standard_fonts')}${path.sep}`,
+  }).promise;
+  try {
+    const images: PageImage[] = [];
+    for (const [index, page] of read.entries()) {
+      if (page.image) {
+        images.push(await normaliseImage(page.image.png, 'png'));
+        continue;
+      }
+      const pdfPage = await document.getPage(index + 1);
+      const viewport = pdfPage.getViewport({ scale: TEXT_SCALE });
+      const factory = (document as unknown as { canvasFactory: { create(w: number, h: number): { canvas: { toBuffer(mime: string): Buffer }; context: unknown } } }).canvasFactory;
+      const { canvas, context } = factory.create(Math.round(viewport.width), Math.round(viewport.height));
+      await pdfPage.render({ canvasContext: context as never, canvas: canvas as never, viewport }).promise;
+      images.push({ png: canvas.toBuffer('image/png'), width: Math.round(viewport.width), height: Math.round(viewport.height) });
+      pdfPage.cleanup();
+    }
+    return images;
+  } finally {
+    await document.destroy();
+  }
+}
+
+export async function readWithPageImages(bytes: Buffer, locale: string): Promise<DocumentReading> {
+  const reading = await readDocument(bytes, { locale });
+  const type = await sniffReceiptType(bytes);
+  const pageImages = type === 'pdf' ? await pdfPageImages(bytes) : [await normaliseImage(bytes, type)];
+  return { reading, pageImages };
+}

@@ -1,0 +1,142 @@
+// Budgets page: live totals from what the owner types, saved per field with the version, refused amounts kept on the field.
+import { inputBinding } from '@angular/core';
+import { TestBed } from '@angular/core/testing';
+import { HttpTestingController } from '@angular/common/http/testing';
+import { render, screen } from '@testing-library/angular/zoneless';
+import userEvent from '@testing-library/user-event';
+import type { BuildDto } from '../../../../../shared/api/builds';
+import type { SystemDto, SystemsResponse } from '../../../../../shared/api/parts';
+import type { BuildRole } from '../../../../../shared/enums';
+import { apiTestProviders } from '../../../../testing/api-test-providers';
+import { CurrentBuild } from '../../builds/services/current-build';
+import { BudgetsPage } from './budgets-page';
+
+const build = (role: BuildRole): BuildDto => ({
+  id: 'b-1',
+  name: 'Teal wagon swap',
+  vehicle: '',
+  currency: 'USD',
+  locale: 'en-US',
+  status: 'active',
+  startedOn: null,
+  targetDate: null,
+  archived: false,
+  version: 4,
+  role,
+  createdAt: '2026-01-05T09:00:00.000Z',
+});
+
+const system = (id: string, name: string, budget: string, estimate: string, extra: Partial<SystemDto> = {}): SystemDto => ({
+  id,
+  name,
+  budget,
+  estimate,
+  partCount: 1,
+  sortOrder: 0,
+  archived: false,
+  safetyCaution: false,
+  version: 2,
+  ...extra,
+});
+
+// Budgets 2,000.00 + 1,200.00 + contingency 150.00 = 3,350.00; estimates 2,262.50 + 622.64 + 40.00 (archived) = 2,925.14.
+const overview: SystemsResponse = {
+  currency: 'USD',
+  systems: [
+    system('s-engine', 'Engine', '2000.00', '2262.50'),
+    system('s-brakes', 'Brakes', '1200.00', '622.64', { sortOrder: 6, safetyCaution: true }),
+    system('s-paint', 'Paint and trim', '300.00', '40.00', { archived: true, sortOrder: 12 }),
+  ],
+  contingencyBudget: '150.00',
+  totalBudget: '3350.00',
+  totalEstimate: '2925.14',
+  buildVersion: 4,
+};
+
+async function renderAs(role: BuildRole) {
+  await render(BudgetsPage, {
+    providers: [
+      ...apiTestProviders(),
+      {
+        provide: CurrentBuild,
+        useFactory: () => {
+          const current = new CurrentBuild();
+          current.set(build(role));
+          return current;
+        },
+      },
+    ],
+    bindings: [inputBinding('buildId', () => 'b-1')],
+  });
+  const http = TestBed.inject(HttpTestingController);
+  http.expectOne('/api/builds/b-1/systems?archived=true').flush(overview);
+  await screen.findByText('Engine');
+  return { http, user: userEvent.setup() };
+}
+
+function figure(term: string): string {
+  const dt = screen.getAllByRole('term').find((candidate) => candidate.textContent?.trim() === term)!;
+  return dt.nextElementSibling?.textContent?.trim() ?? '';
+}
+
+describe('BudgetsPage', () => {
+  it('shows each system against its budget in words and the build totals, leaving archived budgets out', async () => {
+    await renderAs('owner');
+    expect(figure('Build budget')).toBe('$3,350.00');
+    expect(figure('Estimate')).toBe('$2,925.14');
+    expect(screen.getByText(/Over by \$262\.50/)).toBeTruthy();
+    expect(screen.getByText('$577.36 left')).toBeTruthy();
+    expect(screen.getByText('Archived systems (1)')).toBeTruthy();
+  });
+
+  it('recomputes the totals as the owner types and saves the budget on Enter with the version', async () => {
+    const { http, user } = await renderAs('owner');
+    const field = screen.getByRole('textbox', { name: 'Budget for Engine' });
+    await user.clear(field);
+    await user.type(field, '2500');
+
+    // 2,500.00 + 1,200.00 + 150.00 = 3,850.00, before anything is saved; Engine is now 237.50 under.
+    expect(figure('Build budget')).toBe('$3,850.00');
+    expect(screen.getByText('$237.50 left')).toBeTruthy();
+    http.expectNone('/api/builds/b-1/systems/s-engine');
+
+    await user.keyboard('{Enter}');
+    const request = http.expectOne('/api/builds/b-1/systems/s-engine');
+    expect(request.request.method).toBe('PATCH');
+    expect(request.request.body).toEqual({ budget: '2500.00', version: 2 });
+    request.flush(system('s-engine', 'Engine', '2500.00', '2262.50', { version: 3 }));
+    expect((field as HTMLInputElement).value).toBe('2500.00');
+  });
+
+  it('refuses an amount with more decimals than the currency has, on the field, and sends nothing', async () => {
+    const { http, user } = await renderAs('owner');
+    const field = screen.getByRole('textbox', { name: 'Budget for Brakes' });
+    await user.clear(field);
+    await user.type(field, '1200.005{Enter}');
+
+    expect(await screen.findByText('Too many decimals: use at most 2 decimals.')).toBeTruthy();
+    // The totals keep the saved figure while the typed one is not an amount.
+    expect(figure('Build budget')).toBe('$3,350.00');
+    http.expectNone('/api/builds/b-1/systems/s-brakes');
+  });
+
+  it('saves the contingency with the build version', async () => {
+    const { http, user } = await renderAs('owner');
+    const field = screen.getByRole('textbox', { name: 'Contingency' });
+    await user.clear(field);
+    await user.type(field, '400{Enter}');
+    const request = http.expectOne('/api/builds/b-1/contingency');
+    expect(request.request.method).toBe('PUT');
+    expect(request.request.body).toEqual({ contingencyBudget: '400.00', version: 4 });
+    request.flush({ ...overview, contingencyBudget: '400.00', totalBudget: '3600.00', buildVersion: 5 });
+    expect(figure('Build budget')).toBe('$3,600.00');
+  });
+
+  it('shows crew the figures without inputs or system actions', async () => {
+    await renderAs('crew');
+    expect(screen.queryAllByRole('textbox')).toHaveLength(0);
+    expect(screen.queryByRole('button', { name: /^Archive / })).toBeNull();
+    expect(screen.queryByRole('button', { name: 'Add system' })).toBeNull();
+    expect(figure('Build budget')).toBe('$3,350.00');
+  });
+});

@@ -1,0 +1,813 @@
+// /builds/:buildId/budgets: each system's budget against its estimate, the contingency and live totals; the owner edits them.
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, input, signal, untracked } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { AbstractControl, FormControl, FormRecord, NonNullableFormBuilder, ReactiveFormsModule, ValidationErrors, ValidatorFn } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatDialog } from '@angular/material/dialog';
+import { MatExpansionModule } from '@angular/material/expansion';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { MatTooltipModule } from '@angular/material/tooltip';
+import { filter, forkJoin, switchMap } from 'rxjs';
+import { SystemDto, SystemsResponse, createSystemRequest, updateSystemRequest } from '../../../../../shared/api/parts';
+import { Decimal, MONEY_MESSAGES, minorUnits, parseMoney, sum, toWire } from '../../../../../shared/money';
+import { SAFETY_CAUTION } from '../../../../../shared/safety';
+import { applyFieldErrors, errorOf, validateWith } from '../../../core/forms/form-errors';
+import { toApiError } from '../../../core/http/api-error';
+import { confirmAction } from '../../../ui/confirm-dialog';
+import { MoneyPipe } from '../../../ui/money';
+import { CurrentBuild } from '../../builds/services/current-build';
+import { BudgetStanding, amountOf, budgetStanding } from '../models/budget-math';
+import { SystemsApi } from '../services/systems-api';
+
+const CONTINGENCY = 'contingency';
+
+/** An amount a person pays: digits with at most the currency's minor units, zero or more. */
+function budgetValidator(places: number, required: boolean): ValidatorFn {
+  return (control: AbstractControl<string>): ValidationErrors | null => {
+    const text = control.value ?? '';
+    if (!required && text.trim() === '') return null;
+    const parsed = parseMoney(text, { maxDecimals: places });
+    if (!parsed.ok) return { message: parsed.message };
+    if (parsed.value.isNegative()) return { message: MONEY_MESSAGES.negative };
+    return null;
+  };
+}
+
+interface SystemLine {
+  system: SystemDto;
+  budget: Decimal;
+  estimate: Decimal;
+  standing: BudgetStanding;
+}
+
+@Component({
+  selector: 'th-budgets-page',
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatExpansionModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressBarModule,
+    MatTooltipModule,
+    MoneyPipe,
+  ],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  template: `
+    @if (loading() || busy()) {
+      <mat-progress-bar mode="indeterminate" [attr.aria-label]="loading() ? 'Loading the budgets' : 'Saving'" />
+    }
+    <div class="page">
+      <h1 class="page-heading">Budgets</h1>
+      <p class="visually-hidden" role="status">{{ status() }}</p>
+
+      @if (loaded()) {
+        <section class="summary" aria-labelledby="summary-heading">
+          <h2 id="summary-heading" class="visually-hidden">Whole build</h2>
+          <dl class="figures">
+            <div>
+              <dt>Build budget</dt>
+              <dd class="tabular">{{ totalBudget() | money: currency() : locale() }}</dd>
+              <dd class="quiet">Systems {{ systemsBudget() | money: currency() : locale() }} + contingency {{ contingency() | money: currency() : locale() }}</dd>
+            </div>
+            <div>
+              <dt>Estimate</dt>
+              <dd class="tabular">{{ totalEstimate() | money: currency() : locale() }}</dd>
+              <dd class="quiet">All parts on the bill of materials</dd>
+            </div>
+            <div>
+              <dt>Standing</dt>
+              <dd>
+                <span [class.over]="totalStanding().over" class="tabular">
+                  @if (totalStanding().over) {
+                    <mat-icon aria-hidden="true" inline>warning</mat-icon> Over by {{ totalStanding().difference | money: currency() : locale() }}
+                  } @else {
+                    {{ totalStanding().difference | money: currency() : locale() }} left
+                  }
+                </span>
+              </dd>
+              <dd aria-hidden="true">
+                <span class="meter"><span class="fill" [class.over]="totalStanding().over" [style.width]="totalStanding().fillPercent + '%'"></span></span>
+              </dd>
+            </div>
+          </dl>
+        </section>
+
+        @if (hasCaution()) {
+          <p class="notice caution" role="note">
+            <mat-icon aria-hidden="true">health_and_safety</mat-icon>
+            <span>{{ safetyCaution }}</span>
+          </p>
+        }
+
+        <h2 class="section-heading">Systems</h2>
+        <div class="column-titles" aria-hidden="true">
+          <span>System</span>
+          <span>Budget</span>
+          <span class="number">Estimate</span>
+          <span>Estimate against budget</span>
+          <span></span>
+        </div>
+        <ul class="systems">
+          @for (line of activeLines(); track line.system.id; let first = $first; let last = $last) {
+            <li class="system">
+              <div class="system-name">
+                @if (renaming() === line.system.id) {
+                  <form [formGroup]="renameForm" (ngSubmit)="saveName(line.system)" novalidate class="rename">
+                    <mat-form-field subscriptSizing="dynamic">
+                      <mat-label>New name for {{ line.system.name }}</mat-label>
+                      <input matInput formControlName="name" autocomplete="off" (keydown.escape)="renaming.set(null)" />
+                      <mat-error>{{ errorOf(renameForm.controls.name) }}</mat-error>
+                    </mat-form-field>
+                    <button mat-button type="submit" [disabled]="busy()">Save name</button>
+                    <button mat-button type="button" (click)="renaming.set(null)">Cancel</button>
+                  </form>
+                } @else {
+                  <h3 class="name">
+                    {{ line.system.name }}
+                    @if (line.system.safetyCaution) {
+                      <mat-icon aria-hidden="true" inline class="caution-icon">health_and_safety</mat-icon>
+                    }
+                  </h3>
+                  <span class="quiet">{{ line.system.partCount }} {{ line.system.partCount === 1 ? 'part' : 'parts' }}</span>
+                }
+              </div>
+
+              <div class="system-budget">
+                @if (isOwner()) {
+                  <mat-form-field subscriptSizing="dynamic" class="money-field">
+                    <mat-label>Budget</mat-label>
+                    <input
+                      matInput
+                      [formControl]="control(line.system.id)"
+                      inputmode="decimal"
+                      autocomplete="off"
+                      class="tabular"
+                      [attr.aria-label]="'Budget for ' + line.system.name"
+                      (blur)="saveBudget(line.system)"
+                      (keydown.enter)="saveBudget(line.system)"
+                    />
+                    <span matTextSuffix class="currency-suffix">{{ currency() }}</span>
+                    <mat-error>{{ errorOf(control(line.system.id)) }}</mat-error>
+                  </mat-form-field>
+                } @else {
+                  <span class="label">Budget</span>
+                  <span class="tabular figure">{{ line.budget | money: currency() : locale() }}</span>
+                }
+              </div>
+
+              <div class="system-estimate">
+                <span class="label">Estimate</span>
+                <span class="tabular figure">{{ line.estimate | money: currency() : locale() }}</span>
+              </div>
+
+              <div class="system-standing">
+                <span class="meter" aria-hidden="true"
+                  ><span class="fill" [class.over]="line.standing.over" [style.width]="line.standing.fillPercent + '%'"></span
+                ></span>
+                @if (line.budget.isZero()) {
+                  <span class="quiet">{{ line.estimate.isZero() ? 'No budget set' : 'No budget set for this estimate' }}</span>
+                } @else if (line.standing.over) {
+                  <span class="over tabular"
+                    ><mat-icon aria-hidden="true" inline>warning</mat-icon> Over by {{ line.standing.difference | money: currency() : locale() }}</span
+                  >
+                } @else {
+                  <span class="tabular">{{ line.standing.difference | money: currency() : locale() }} left</span>
+                }
+              </div>
+
+              @if (isOwner()) {
+                <div class="system-actions">
+                  <button mat-icon-button type="button" (click)="startRename(line.system)" [attr.aria-label]="'Rename ' + line.system.name" matTooltip="Rename">
+                    <mat-icon aria-hidden="true">edit</mat-icon>
+                  </button>
+                  <button
+                    mat-icon-button
+                    type="button"
+                    (click)="move(line.system, -1)"
+                    [disabled]="first || busy()"
+                    [attr.aria-label]="'Move ' + line.system.name + ' up'"
+                    matTooltip="Move up"
+                  >
+                    <mat-icon aria-hidden="true">arrow_upward</mat-icon>
+                  </button>
+                  <button
+                    mat-icon-button
+                    type="button"
+                    (click)="move(line.system, 1)"
+                    [disabled]="last || busy()"
+                    [attr.aria-label]="'Move ' + line.system.name + ' down'"
+                    matTooltip="Move down"
+                  >
+                    <mat-icon aria-hidden="true">arrow_downward</mat-icon>
+                  </button>
+                  <button mat-icon-button type="button" (click)="archive(line.system)" [disabled]="busy()" [attr.aria-label]="'Archive ' + line.system.name" matTooltip="Archive">
+                    <mat-icon aria-hidden="true">inventory_2</mat-icon>
+                  </button>
+                </div>
+              }
+            </li>
+          }
+          <li class="system contingency">
+            <div class="system-name">
+              <h3 class="name">Contingency</h3>
+              <span class="quiet">Kept aside for what nobody planned for</span>
+            </div>
+            <div class="system-budget">
+              @if (isOwner()) {
+                <mat-form-field subscriptSizing="dynamic" class="money-field">
+                  <mat-label>Contingency</mat-label>
+                  <input
+                    matInput
+                    [formControl]="control(contingencyKey)"
+                    inputmode="decimal"
+                    autocomplete="off"
+                    class="tabular"
+                    (blur)="saveContingency()"
+                    (keydown.enter)="saveContingency()"
+                  />
+                  <span matTextSuffix class="currency-suffix">{{ currency() }}</span>
+                  <mat-error>{{ errorOf(control(contingencyKey)) }}</mat-error>
+                </mat-form-field>
+              } @else {
+                <span class="label">Budget</span>
+                <span class="tabular figure">{{ contingency() | money: currency() : locale() }}</span>
+              }
+            </div>
+          </li>
+        </ul>
+
+        @if (isOwner()) {
+          <h2 class="section-heading">Add a system</h2>
+          <form [formGroup]="addForm" (ngSubmit)="addSystem()" novalidate class="add-form">
+            <mat-form-field subscriptSizing="dynamic">
+              <mat-label>System name</mat-label>
+              <input matInput formControlName="name" autocomplete="off" />
+              <mat-hint>Such as "Paint and trim" or "Data logging"</mat-hint>
+              <mat-error>{{ errorOf(addForm.controls.name) }}</mat-error>
+            </mat-form-field>
+            <mat-form-field subscriptSizing="dynamic" class="money-field">
+              <mat-label>Budget</mat-label>
+              <input matInput formControlName="budget" inputmode="decimal" autocomplete="off" class="tabular" />
+              <span matTextSuffix class="currency-suffix">{{ currency() }}</span>
+              <mat-hint>Optional</mat-hint>
+              <mat-error>{{ errorOf(addForm.controls.budget) }}</mat-error>
+            </mat-form-field>
+            <div class="form-actions">
+              <button mat-flat-button class="cta" type="submit" [disabled]="busy()">Add system</button>
+            </div>
+          </form>
+        }
+
+        @if (archivedSystems().length > 0) {
+          <mat-expansion-panel class="archived">
+            <mat-expansion-panel-header>
+              <mat-panel-title>Archived systems ({{ archivedSystems().length }})</mat-panel-title>
+            </mat-expansion-panel-header>
+            <p class="quiet">Archived systems leave the build budget; their parts stay on the bill of materials.</p>
+            <ul class="archived-list">
+              @for (system of archivedSystems(); track system.id) {
+                <li>
+                  <span class="name">{{ system.name }}</span>
+                  <span class="quiet tabular">{{ system.partCount }} {{ system.partCount === 1 ? 'part' : 'parts' }} · budget {{ system.budget | money: currency() : locale() }}</span>
+                  @if (isOwner()) {
+                    <button mat-button type="button" (click)="restore(system)" [disabled]="busy()" [attr.aria-label]="'Restore ' + system.name">
+                      <mat-icon aria-hidden="true">unarchive</mat-icon>
+                      Restore
+                    </button>
+                  }
+                </li>
+              }
+            </ul>
+          </mat-expansion-panel>
+        }
+      }
+    </div>
+  `,
+  styles: `
+    .summary {
+      border: 1px solid var(--mat-sys-outline-variant);
+      border-radius: 16px;
+      padding: 16px;
+      margin-bottom: 16px;
+      background: var(--mat-sys-surface-container-low);
+    }
+    .figures {
+      display: grid;
+      grid-template-columns: repeat(auto-fit, minmax(200px, 1fr));
+      gap: 16px 24px;
+      margin: 0;
+    }
+    .figures dt {
+      font: var(--mat-sys-label-large);
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .figures dd {
+      margin: 4px 0 0;
+      font: var(--mat-sys-title-large);
+    }
+    .figures dd.quiet {
+      font: var(--mat-sys-body-small);
+    }
+    .quiet {
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .over {
+      color: var(--mat-sys-error);
+      font-weight: 600;
+    }
+    .caution {
+      display: flex;
+      gap: 8px;
+      align-items: flex-start;
+      background: var(--mat-sys-tertiary-container);
+      color: var(--mat-sys-on-tertiary-container);
+    }
+    .section-heading {
+      font: var(--mat-sys-title-large);
+      margin: 24px 0 12px;
+    }
+    .systems {
+      list-style: none;
+      margin: 0;
+      padding: 0;
+    }
+    .system {
+      display: grid;
+      grid-template-columns: minmax(0, 1fr) auto;
+      grid-template-areas:
+        'name actions'
+        'budget estimate'
+        'standing standing';
+      gap: 4px 12px;
+      padding: 12px 0;
+      border-bottom: 1px solid var(--mat-sys-outline-variant);
+      align-items: center;
+    }
+    .system-name {
+      grid-area: name;
+    }
+    .system-budget {
+      grid-area: budget;
+    }
+    .system-estimate {
+      grid-area: estimate;
+    }
+    .system-standing {
+      grid-area: standing;
+    }
+    .system-actions {
+      grid-area: actions;
+    }
+    .column-titles {
+      display: none;
+    }
+    /* Every row is its own grid, so the columns are fixed widths that line up from row to row. */
+    @media (min-width: 760px) {
+      .system,
+      .column-titles {
+        grid-template-columns: minmax(0, 1fr) 180px 110px minmax(0, 0.8fr) 168px;
+        grid-template-areas: 'name budget estimate standing actions';
+        gap: 16px;
+      }
+      .column-titles {
+        display: grid;
+        font: var(--mat-sys-label-large);
+        color: var(--mat-sys-on-surface-variant);
+        padding-bottom: 4px;
+        border-bottom: 1px solid var(--mat-sys-outline-variant);
+      }
+      .column-titles .number {
+        text-align: right;
+      }
+    }
+    .system-name {
+      display: flex;
+      flex-direction: column;
+    }
+    .name {
+      font: var(--mat-sys-title-medium);
+      margin: 0;
+      overflow-wrap: anywhere;
+    }
+    .caution-icon {
+      color: var(--mat-sys-tertiary);
+    }
+    .system-budget,
+    .system-estimate {
+      display: flex;
+      align-items: baseline;
+      gap: 8px;
+    }
+    .label {
+      font: var(--mat-sys-label-large);
+      color: var(--mat-sys-on-surface-variant);
+      min-width: 5em;
+    }
+    .figure {
+      margin-left: auto;
+    }
+    /* Phones: the estimate sits beside the budget field, its label above the figure. */
+    @media (max-width: 759.98px) {
+      .system-estimate {
+        flex-direction: column;
+        align-items: flex-end;
+        gap: 0;
+      }
+      .system-estimate .label {
+        min-width: 0;
+      }
+      .system-actions .mat-mdc-icon-button {
+        --mat-icon-button-state-layer-size: 40px;
+        padding: 8px;
+      }
+    }
+    @media (min-width: 760px) {
+      .label {
+        display: none;
+      }
+      .system-estimate {
+        justify-content: flex-end;
+      }
+    }
+    .money-field {
+      width: 100%;
+      max-width: 200px;
+    }
+    .money-field input {
+      text-align: right;
+    }
+    .currency-suffix {
+      padding-left: 6px;
+    }
+    .system-standing {
+      display: flex;
+      flex-direction: column;
+      gap: 4px;
+    }
+    .meter {
+      display: block;
+      height: 8px;
+      border-radius: 4px;
+      background: var(--mat-sys-surface-container-highest);
+      overflow: hidden;
+    }
+    .meter .fill {
+      display: block;
+      height: 100%;
+      background: var(--mat-sys-primary);
+    }
+    .meter .fill.over {
+      background: var(--mat-sys-error);
+    }
+    .system-actions {
+      display: flex;
+      justify-content: flex-end;
+    }
+    .rename {
+      display: flex;
+      flex-wrap: wrap;
+      align-items: center;
+      gap: 4px;
+    }
+    .add-form {
+      display: grid;
+      grid-template-columns: 1fr;
+      gap: 12px 16px;
+      max-width: 720px;
+    }
+    @media (min-width: 600px) {
+      .add-form {
+        grid-template-columns: 2fr 1fr;
+      }
+      .add-form .form-actions {
+        grid-column: 1 / -1;
+      }
+    }
+    .archived {
+      margin-top: 24px;
+    }
+    .archived-list {
+      list-style: none;
+      margin: 0;
+      padding: 0;
+    }
+    .archived-list li {
+      display: flex;
+      flex-wrap: wrap;
+      align-items: center;
+      gap: 4px 16px;
+      padding: 8px 0;
+      border-bottom: 1px solid var(--mat-sys-outline-variant);
+    }
+  `,
+})
+export class BudgetsPage {
+  private readonly systemsApi = inject(SystemsApi);
+  private readonly dialog = inject(MatDialog);
+  private readonly snackBar = inject(MatSnackBar);
+  private readonly destroyRef = inject(DestroyRef);
+  private readonly formBuilder = inject(NonNullableFormBuilder);
+  protected readonly current = inject(CurrentBuild);
+
+  /** Route parameter (inherited from the build), bound by the router. */
+  readonly buildId = input.required<string>();
+
+  protected readonly errorOf = errorOf;
+  protected readonly safetyCaution = SAFETY_CAUTION;
+  protected readonly contingencyKey = CONTINGENCY;
+
+  protected readonly systems = signal<SystemDto[]>([]);
+  protected readonly currency = signal('');
+  private readonly savedContingency = signal('0');
+  private buildVersion = 0;
+  protected readonly loading = signal(false);
+  protected readonly loaded = signal(false);
+  protected readonly busy = signal(false);
+  protected readonly status = signal('');
+  protected readonly renaming = signal<string | null>(null);
+
+  /** One money input per active system, keyed by id, plus the contingency. */
+  protected readonly budgetForm = new FormRecord<FormControl<string>>({});
+  /** What is typed in the money inputs, for the live totals. */
+  private readonly typed = signal<Record<string, string>>({});
+  private readonly inFlight = new Set<string>();
+
+  protected readonly renameForm = this.formBuilder.group({ name: '' });
+  protected readonly addForm = this.formBuilder.group({ name: '', budget: '' });
+
+  protected readonly locale = computed(() => this.current.build()?.locale ?? 'en-US');
+  protected readonly isOwner = computed(() => this.current.build()?.role === 'owner');
+  private readonly places = computed(() => (this.currency() ? minorUnits(this.currency()) : 2));
+
+  /** A typed amount while it is valid, otherwise the saved one: the totals never show a half-typed figure. */
+  private effectiveAmount(key: string, saved: string): Decimal {
+    const text = this.typed()[key];
+    if (text !== undefined) {
+      const parsed = parseMoney(text, { maxDecimals: this.places() });
+      if (parsed.ok && !parsed.value.isNegative()) return parsed.value;
+    }
+    return amountOf(saved);
+  }
+
+  protected readonly activeLines = computed<SystemLine[]>(() =>
+    this.systems()
+      .filter((system) => !system.archived)
+      .map((system) => {
+        const budget = this.effectiveAmount(system.id, system.budget);
+        const estimate = amountOf(system.estimate);
+        return { system, budget, estimate, standing: budgetStanding(estimate, budget) };
+      }),
+  );
+  protected readonly archivedSystems = computed(() => this.systems().filter((system) => system.archived));
+  protected readonly contingency = computed(() => this.effectiveAmount(CONTINGENCY, this.savedContingency()));
+  protected readonly systemsBudget = computed(() => sum(this.activeLines().map((line) => line.budget)));
+  protected readonly totalBudget = computed(() => sum([this.systemsBudget(), this.contingency()]));
+  /** Every part counts, archived systems' included, as the server's total does. */
+  protected readonly totalEstimate = computed(() => sum(this.systems().map((system) => amountOf(system.estimate))));
+  protected readonly totalStanding = computed(() => budgetStanding(this.totalEstimate(), this.totalBudget()));
+  protected readonly hasCaution = computed(() => this.activeLines().some((line) => line.system.safetyCaution));
+
+  constructor() {
+    this.budgetForm.valueChanges.pipe(takeUntilDestroyed(this.destroyRef)).subscribe(() => this.typed.set(this.budgetForm.getRawValue()));
+    effect(() => {
+      const buildId = this.buildId();
+      untracked(() => this.load(buildId));
+    });
+  }
+
+  protected control(key: string): FormControl<string> {
+    return this.budgetForm.controls[key] ?? new FormControl('', { nonNullable: true });
+  }
+
+  protected saveBudget(system: SystemDto): void {
+    const control = this.budgetForm.controls[system.id];
+    const latest = this.systems().find((candidate) => candidate.id === system.id) ?? system;
+    const amount = this.changedAmount(system.id, latest.budget);
+    if (!control || !amount) return;
+    this.inFlight.add(system.id);
+    this.systemsApi.update(this.buildId(), system.id, { budget: amount, version: latest.version }).subscribe({
+      next: (saved) => {
+        this.inFlight.delete(system.id);
+        this.replace(saved);
+        control.setValue(saved.budget);
+        this.status.set(`${saved.name} budget saved.`);
+      },
+      error: (error: unknown) => this.failed(system.id, error, `${latest.name} was changed by someone else`),
+    });
+  }
+
+  protected saveContingency(): void {
+    const amount = this.changedAmount(CONTINGENCY, this.savedContingency());
+    if (!amount) return;
+    this.inFlight.add(CONTINGENCY);
+    this.systemsApi.updateContingency(this.buildId(), { contingencyBudget: amount, version: this.buildVersion }).subscribe({
+      next: (response) => {
+        this.inFlight.delete(CONTINGENCY);
+        this.savedContingency.set(response.contingencyBudget);
+        this.buildVersion = response.buildVersion;
+        const build = this.current.build();
+        if (build) this.current.set({ ...build, version: response.buildVersion });
+        this.budgetForm.controls[CONTINGENCY]?.setValue(response.contingencyBudget);
+        this.status.set('Contingency saved.');
+      },
+      error: (error: unknown) => this.failed(CONTINGENCY, error, 'The build was changed by someone else'),
+    });
+  }
+
+  protected startRename(system: SystemDto): void {
+    this.renameForm.reset({ name: system.name });
+    this.renaming.set(system.id);
+  }
+
+  protected saveName(system: SystemDto): void {
+    const name = this.renameForm.getRawValue().name;
+    const latest = this.systems().find((candidate) => candidate.id === system.id) ?? system;
+    if (!validateWith(this.renameForm, updateSystemRequest, { name, version: latest.version })) return;
+    if (name.trim() === latest.name) {
+      this.renaming.set(null);
+      return;
+    }
+    this.busy.set(true);
+    this.systemsApi.update(this.buildId(), system.id, { name: name.trim(), version: latest.version }).subscribe({
+      next: (saved) => {
+        this.busy.set(false);
+        this.replace(saved);
+        this.renaming.set(null);
+        this.status.set(`Renamed to ${saved.name}.`);
+      },
+      error: (error: unknown) => {
+        this.busy.set(false);
+        const apiError = toApiError(error);
+        if (apiError.status === 409) this.conflicted(`${latest.name} was changed by someone else`);
+        else applyFieldErrors(this.renameForm, apiError.fields);
+      },
+    });
+  }
+
+  /** Swaps places with the neighbour above (-1) or below (+1). */
+  protected move(system: SystemDto, direction: -1 | 1): void {
+    const active = this.systems().filter((candidate) => !candidate.archived);
+    const index = active.findIndex((candidate) => candidate.id === system.id);
+    const neighbour = active[index + direction];
+    if (index < 0 || !neighbour) return;
+    const mine = active[index];
+    // Equal positions (possible after restores) still need an order, so the mover steps past its neighbour.
+    const myNewOrder = neighbour.sortOrder === mine.sortOrder ? neighbour.sortOrder + direction : neighbour.sortOrder;
+    this.busy.set(true);
+    forkJoin([
+      this.systemsApi.update(this.buildId(), mine.id, { sortOrder: Math.max(0, myNewOrder), version: mine.version }),
+      this.systemsApi.update(this.buildId(), neighbour.id, { sortOrder: mine.sortOrder, version: neighbour.version }),
+    ]).subscribe({
+      next: (saved) => {
+        this.busy.set(false);
+        for (const one of saved) this.replace(one);
+        this.systems.update((systems) => [...systems].sort((a, b) => a.sortOrder - b.sortOrder));
+        this.status.set(`${mine.name} moved ${direction < 0 ? 'up' : 'down'}.`);
+      },
+      error: (error: unknown) => {
+        this.busy.set(false);
+        if (toApiError(error).status === 409) this.conflicted('The systems were changed by someone else');
+        else this.load(this.buildId());
+      },
+    });
+  }
+
+  protected archive(system: SystemDto): void {
+    confirmAction(this.dialog, {
+      title: `Archive ${system.name}?`,
+      message:
+        'Its budget leaves the build budget and it is no longer offered for new parts. Its parts stay, and you can restore it from "Archived systems" at any time.',
+      confirmLabel: 'Archive system',
+    })
+      .pipe(
+        filter(Boolean),
+        switchMap(() => {
+          this.busy.set(true);
+          const latest = this.systems().find((candidate) => candidate.id === system.id) ?? system;
+          return this.systemsApi.update(this.buildId(), system.id, { archived: true, version: latest.version });
+        }),
+      )
+      .subscribe({
+        next: (saved) => {
+          this.busy.set(false);
+          this.replace(saved);
+          this.snackBar.open(`${saved.name} is archived.`, 'Dismiss', { duration: 6000 });
+        },
+        error: (error: unknown) => {
+          this.busy.set(false);
+          if (toApiError(error).status === 409) this.conflicted(`${system.name} was changed by someone else`);
+        },
+      });
+  }
+
+  protected restore(system: SystemDto): void {
+    this.busy.set(true);
+    this.systemsApi.update(this.buildId(), system.id, { archived: false, version: system.version }).subscribe({
+      next: (saved) => {
+        this.busy.set(false);
+        this.replace(saved);
+        this.addBudgetControl(saved);
+        this.snackBar.open(`${saved.name} is back in the build.`, 'Dismiss', { duration: 6000 });
+      },
+      error: (error: unknown) => {
+        this.busy.set(false);
+        if (toApiError(error).status === 409) this.conflicted(`${system.name} was changed by someone else`);
+      },
+    });
+  }
+
+  protected addSystem(): void {
+    const raw = this.addForm.getRawValue();
+    const request = { name: raw.name.trim(), ...(raw.budget.trim() ? { budget: raw.budget.trim() } : {}) };
+    if (!validateWith(this.addForm, createSystemRequest, request)) return;
+    const budgetError = request.budget ? budgetValidator(this.places(), false)(this.addForm.controls.budget) : null;
+    if (budgetError) {
+      applyFieldErrors(this.addForm, { budget: budgetError['message'] as string });
+      return;
+    }
+    this.busy.set(true);
+    this.systemsApi.create(this.buildId(), request).subscribe({
+      next: (created) => {
+        this.busy.set(false);
+        this.systems.update((systems) => [...systems, created]);
+        this.addBudgetControl(created);
+        this.addForm.reset({ name: '', budget: '' });
+        this.status.set(`${created.name} added.`);
+        this.snackBar.open(`${created.name} added.`, 'Dismiss', { duration: 5000 });
+      },
+      error: (error: unknown) => {
+        this.busy.set(false);
+        applyFieldErrors(this.addForm, toApiError(error).fields);
+      },
+    });
+  }
+
+  /** The amount to send when the input holds a valid amount different from the saved one; null otherwise. */
+  private changedAmount(key: string, saved: string): string | null {
+    const control = this.budgetForm.controls[key];
+    if (!control || this.inFlight.has(key)) return null;
+    control.markAsTouched();
+    control.updateValueAndValidity();
+    if (control.invalid) return null;
+    const parsed = parseMoney(control.value, { maxDecimals: this.places() });
+    if (!parsed.ok || parsed.value.equals(amountOf(saved))) return null;
+    return toWire(parsed.value, this.places());
+  }
+
+  private failed(key: string, error: unknown, conflictWhat: string): void {
+    this.inFlight.delete(key);
+    const apiError = toApiError(error);
+    if (apiError.status === 409) {
+      this.conflicted(conflictWhat);
+      return;
+    }
+    const control = this.budgetForm.controls[key];
+    const message = Object.values(apiError.fields)[0];
+    if (control && message) {
+      control.setErrors({ message });
+      control.markAsTouched();
+    }
+  }
+
+  private conflicted(what: string): void {
+    this.snackBar.open(`${what} since you opened this page. It now shows the saved figures: enter yours again if needed.`, 'Dismiss', {
+      duration: 10000,
+    });
+    this.load(this.buildId());
+  }
+
+  private replace(saved: SystemDto): void {
+    this.systems.update((systems) => systems.map((system) => (system.id === saved.id ? saved : system)));
+  }
+
+  private addBudgetControl(system: SystemDto): void {
+    this.budgetForm.setControl(system.id, new FormControl(system.budget, { nonNullable: true, validators: budgetValidator(this.places(), true) }));
+  }
+
+  private load(buildId: string): void {
+    this.loading.set(true);
+    this.systemsApi.list(buildId, true).subscribe({
+      next: (response: SystemsResponse) => {
+        this.currency.set(response.currency);
+        this.systems.set(response.systems);
+        this.savedContingency.set(response.contingencyBudget);
+        this.buildVersion = response.buildVersion;
+        for (const key of Object.keys(this.budgetForm.controls)) this.budgetForm.removeControl(key, { emitEvent: false });
+        for (const system of response.systems) this.addBudgetControl(system);
+        this.budgetForm.setControl(
+          CONTINGENCY,
+          new FormControl(response.contingencyBudget, { nonNullable: true, validators: budgetValidator(this.places(), true) }),
+        );
+        this.loading.set(false);
+        this.loaded.set(true);
+      },
+      error: () => this.loading.set(false),
+    });
+  }
+}

@@ -1,0 +1,187 @@
+// Parts table: grouped totals against budget in words, the reviewer's read-only view, and bulk moves sent with the chosen ids.
+import { inputBinding } from '@angular/core';
+import { TestBed } from '@angular/core/testing';
+import { HttpTestingController } from '@angular/common/http/testing';
+import { render, screen, within } from '@testing-library/angular/zoneless';
+import userEvent from '@testing-library/user-event';
+import type { BuildDto } from '../../../../../shared/api/builds';
+import type { PartDto, SystemDto, SystemsResponse } from '../../../../../shared/api/parts';
+import type { BuildRole } from '../../../../../shared/enums';
+import { apiTestProviders } from '../../../../testing/api-test-providers';
+import { CurrentBuild } from '../../builds/services/current-build';
+import { PartsPage } from './parts-page';
+
+const build = (role: BuildRole): BuildDto => ({
+  id: 'b-1',
+  name: 'Teal wagon swap',
+  vehicle: '1979 invented wagon',
+  currency: 'USD',
+  locale: 'en-US',
+  status: 'active',
+  startedOn: null,
+  targetDate: null,
+  archived: false,
+  version: 2,
+  role,
+  createdAt: '2026-01-05T09:00:00.000Z',
+});
+
+const system = (id: string, name: string, budget: string, sortOrder: number, safetyCaution = false): SystemDto => ({
+  id,
+  name,
+  budget,
+  estimate: '0.00',
+  partCount: 0,
+  sortOrder,
+  archived: false,
+  safetyCaution,
+  version: 1,
+});
+
+const overview: SystemsResponse = {
+  currency: 'USD',
+  systems: [system('s-engine', 'Engine', '100.00', 0), system('s-cooling', 'Cooling', '0.00', 2), system('s-brakes', 'Brakes', '500.00', 6, true)],
+  contingencyBudget: '0.00',
+  totalBudget: '600.00',
+  totalEstimate: '249.50',
+  buildVersion: 2,
+};
+
+const part = (id: string, systemId: string, description: string, quantity: string, unitCost: string, total: string, extra: Partial<PartDto> = {}): PartDto => ({
+  id,
+  systemId,
+  description,
+  partNumber: '',
+  quantity,
+  unit: 'each',
+  estimatedUnitCost: unitCost,
+  estimatedTotal: total,
+  status: 'planned',
+  storageLocation: '',
+  sourceUrl: '',
+  notes: '',
+  forSale: false,
+  askingPrice: null,
+  version: 1,
+  updatedAt: '2026-03-02T10:00:00.000Z',
+  ...extra,
+});
+
+// Engine: 90.50 + 30.00 = 120.50 against 100.00, so 20.50 over. Brakes: 129.00 against 500.00, so 371.00 left.
+const parts: PartDto[] = [
+  part('p-clamps', 's-engine', 'Hose clamp pack', '2', '45.25', '90.50', { partNumber: 'HC-101' }),
+  part('p-gasket', 's-engine', 'Valve cover gasket', '1', '30.00', '30.00', { status: 'on_hand', storageLocation: 'Bin 4' }),
+  part('p-pads', 's-brakes', 'Ceramic brake pads', '2', '64.50', '129.00'),
+];
+
+async function renderAs(role: BuildRole) {
+  await render(PartsPage, {
+    providers: [
+      ...apiTestProviders(),
+      {
+        provide: CurrentBuild,
+        useFactory: () => {
+          const current = new CurrentBuild();
+          current.set(build(role));
+          return current;
+        },
+      },
+    ],
+    bindings: [inputBinding('buildId', () => 'b-1')],
+  });
+  const http = TestBed.inject(HttpTestingController);
+  http.expectOne('/api/builds/b-1/systems?archived=true').flush(overview);
+  http.expectOne('/api/builds/b-1/parts').flush({ parts });
+  await screen.findByText('Hose clamp pack');
+  return http;
+}
+
+/** A row's cells as read, icons (ligature names) left out. */
+function cellsOf(row: HTMLElement): string[] {
+  return Array.from(row.querySelectorAll('td')).map((cell) => {
+    const copy = cell.cloneNode(true) as HTMLElement;
+    copy.querySelectorAll('mat-icon').forEach((icon) => icon.remove());
+    return (copy.textContent ?? '').replace(/\s+/g, ' ').trim();
+  });
+}
+
+describe('PartsPage', () => {
+  it('closes each system with a totals row: estimate against budget, over budget in words with an icon', async () => {
+    await renderAs('owner');
+
+    const totals = Array.from(document.querySelectorAll<HTMLElement>('tr.total-row')).map(cellsOf);
+    expect(totals).toEqual([
+      ['Engine: estimate against budget', '$120.50', 'of $100.00 budget Over budget by $20.50'],
+      ['Brakes: estimate against budget', '$129.00', 'of $500.00 budget $371.00 left'],
+    ]);
+    const over = document.querySelector('tr.total-row .over')!;
+    expect(over.querySelector('mat-icon')?.textContent).toBe('warning');
+    // Group headings in system order, and the caution because Brakes is shown.
+    expect(Array.from(document.querySelectorAll('tr.group-row .group-name')).map((cell) => cell.textContent)).toEqual(['Engine', 'Brakes']);
+    expect(screen.getByText(/Tallyhood records costs only\./)).toBeTruthy();
+    // Money right-aligned in the currency's minor units; a unit price keeps up to 4 decimals.
+    const clamps = screen.getByText('Hose clamp pack').closest('tr')!;
+    expect(cellsOf(clamps).slice(1, 6)).toEqual(['Hose clamp pack', 'HC-101', '2 each', '$45.25', '$90.50']);
+  });
+
+  it('hides the caution and the other systems when filtered to a system without safety work', async () => {
+    await renderAs('owner');
+    const user = userEvent.setup();
+    await user.click(screen.getByRole('combobox', { name: 'System' }));
+    await user.click(await screen.findByRole('option', { name: 'Engine' }));
+
+    expect(screen.queryByText('Ceramic brake pads')).toBeNull();
+    expect(screen.queryByText(/Tallyhood records costs only\./)).toBeNull();
+    expect(document.querySelectorAll('tr.total-row')).toHaveLength(1);
+  });
+
+  it('shows the reviewer statuses as text, with no status select, checkboxes, or add and import buttons', async () => {
+    await renderAs('reviewer');
+
+    expect(screen.queryAllByRole('combobox', { name: /^Status of/ })).toHaveLength(0);
+    expect(screen.queryAllByRole('checkbox')).toHaveLength(0);
+    expect(screen.queryByRole('button', { name: 'Add part' })).toBeNull();
+    expect(screen.queryByRole('button', { name: 'Import CSV' })).toBeNull();
+    expect(screen.queryByRole('button', { name: /^Edit / })).toBeNull();
+    const gasket = screen.getByText('Valve cover gasket').closest('tr')!;
+    expect(within(gasket).getByText('On the shelf')).toBeTruthy();
+  });
+
+  it('gives owner and crew a status select per part that saves with the version', async () => {
+    const http = await renderAs('crew');
+    const user = userEvent.setup();
+    expect(screen.getAllByRole('combobox', { name: /^Status of/ })).toHaveLength(3);
+
+    await user.click(screen.getByRole('combobox', { name: 'Status of Ceramic brake pads' }));
+    await user.click(await screen.findByRole('option', { name: 'Ordered' }));
+    const request = http.expectOne('/api/builds/b-1/parts/p-pads');
+    expect(request.request.method).toBe('PATCH');
+    expect(request.request.body).toEqual({ status: 'ordered', version: 1 });
+    request.flush({ ...parts[2], status: 'ordered', version: 2 });
+  });
+
+  it('moves the selected parts in bulk, sending exactly the chosen ids, and regroups them', async () => {
+    const http = await renderAs('owner');
+    const user = userEvent.setup();
+
+    await user.click(screen.getByRole('checkbox', { name: 'Select Hose clamp pack' }));
+    await user.click(screen.getByRole('checkbox', { name: 'Select Ceramic brake pads' }));
+    expect(screen.getByText('2 selected')).toBeTruthy();
+    await user.click(screen.getByRole('button', { name: 'Move to system' }));
+    await user.click(await screen.findByRole('menuitem', { name: 'Cooling' }));
+
+    const request = http.expectOne('/api/builds/b-1/parts/bulk');
+    expect(request.request.method).toBe('POST');
+    expect(request.request.body).toEqual({ action: 'move', partIds: ['p-clamps', 'p-pads'], systemId: 's-cooling' });
+    request.flush({ parts: [{ ...parts[0], systemId: 's-cooling' }, { ...parts[2], systemId: 's-cooling' }] });
+
+    // Cooling has no budget: 90.50 + 129.00 = 219.50 with "No budget set"; Engine keeps the gasket's 30.00.
+    await screen.findByText('Cooling: estimate against budget');
+    const totals = Array.from(document.querySelectorAll<HTMLElement>('tr.total-row')).map(cellsOf);
+    expect(totals).toEqual([
+      ['Engine: estimate against budget', '$30.00', 'of $100.00 budget $70.00 left'],
+      ['Cooling: estimate against budget', '$219.50', 'No budget set'],
+    ]);
+    expect(screen.queryByText('2 selected')).toBeNull();
+  });
+});

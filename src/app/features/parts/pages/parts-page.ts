@@ -1,0 +1,793 @@
+// /builds/:buildId/parts: the bill of materials grouped by system, with totals against budget, inline status, bulk changes and import.
+import { BreakpointObserver } from '@angular/cdk/layout';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatDialog } from '@angular/material/dialog';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatMenuModule } from '@angular/material/menu';
+import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { MatSortModule, Sort } from '@angular/material/sort';
+import { MatTableModule } from '@angular/material/table';
+import { RouterLink } from '@angular/router';
+import { forkJoin, map } from 'rxjs';
+import type { ImportResultDto, PartDto, SystemDto } from '../../../../../shared/api/parts';
+import { PART_STATUSES, PART_STATUS_LABELS, PartStatus } from '../../../../../shared/enums';
+import { Decimal } from '../../../../../shared/money';
+import { SAFETY_CAUTION } from '../../../../../shared/safety';
+import { toApiError } from '../../../core/http/api-error';
+import { EmptyState } from '../../../ui/empty-state';
+import { MoneyPipe } from '../../../ui/money';
+import { CurrentBuild } from '../../builds/services/current-build';
+import { ImportDialog, ImportDialogData } from '../components/import-dialog';
+import { PartFormData, PartFormDialog, PartFormResult } from '../components/part-form-dialog';
+import { BudgetStanding, amountOf, budgetStanding, sumOf } from '../models/budget-math';
+import { PartsApi } from '../services/parts-api';
+import { SystemsApi } from '../services/systems-api';
+
+/** A system as the table groups by it, with its estimate summed from the parts on screen. */
+interface SystemGroup {
+  system: SystemDto;
+  estimate: Decimal;
+  budget: Decimal;
+  standing: BudgetStanding;
+}
+
+type TableRow =
+  | { kind: 'group'; group: SystemGroup; shownCount: number }
+  | { kind: 'part'; part: PartDto }
+  | { kind: 'total'; group: SystemGroup };
+
+const SORTERS: Record<string, (a: PartDto, b: PartDto) => number> = {
+  description: (a, b) => a.description.localeCompare(b.description),
+  partNumber: (a, b) => a.partNumber.localeCompare(b.partNumber),
+  quantity: (a, b) => amountOf(a.quantity).comparedTo(amountOf(b.quantity)),
+  unitCost: (a, b) => amountOf(a.estimatedUnitCost).comparedTo(amountOf(b.estimatedUnitCost)),
+  total: (a, b) => amountOf(a.estimatedTotal).comparedTo(amountOf(b.estimatedTotal)),
+  status: (a, b) => PART_STATUSES.indexOf(a.status) - PART_STATUSES.indexOf(b.status),
+  location: (a, b) => a.storageLocation.localeCompare(b.storageLocation),
+};
+
+@Component({
+  selector: 'th-parts-page',
+  imports: [
+    MatButtonModule,
+    MatCheckboxModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatMenuModule,
+    MatPaginatorModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    MatSortModule,
+    MatTableModule,
+    RouterLink,
+    EmptyState,
+    MoneyPipe,
+  ],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  template: `
+    @if (loading() || busy()) {
+      <mat-progress-bar mode="indeterminate" [attr.aria-label]="loading() ? 'Loading the parts' : 'Saving'" />
+    }
+    <div class="page">
+      <div class="page-header">
+        <h1 class="page-heading">Parts</h1>
+        @if (canEdit() && parts().length > 0) {
+          <div class="header-actions">
+            <button mat-stroked-button type="button" (click)="openImport()">
+              <mat-icon aria-hidden="true">upload_file</mat-icon>
+              Import CSV
+            </button>
+            <button mat-flat-button class="cta" type="button" (click)="openAdd()">
+              <mat-icon aria-hidden="true">add</mat-icon>
+              Add part
+            </button>
+          </div>
+        }
+      </div>
+
+      @if (loaded() && parts().length === 0) {
+        <th-empty-state icon="playlist_add" heading="No parts on the bill of materials yet">
+          @if (canEdit()) {
+            <p>
+              Add the first part you need (or already have), choosing the car system it belongs to, or import a
+              spreadsheet saved as CSV. Set each system's budget on <a routerLink="../budgets">Budgets</a> to see
+              estimates against it here.
+            </p>
+          } @else {
+            <p>The owner and crew add parts here. Once they do, you see every part with its estimate by system.</p>
+          }
+          @if (canEdit()) {
+            <div emptyStateActions class="empty-actions">
+              <button mat-flat-button class="cta" type="button" (click)="openAdd()">Add part</button>
+              <button mat-stroked-button type="button" (click)="openImport()">Import CSV</button>
+            </div>
+          }
+        </th-empty-state>
+      } @else if (loaded()) {
+        <div class="filters">
+          <mat-form-field subscriptSizing="dynamic" class="filter-text">
+            <mat-label>Filter parts</mat-label>
+            <mat-icon matIconPrefix aria-hidden="true">search</mat-icon>
+            <input matInput [value]="filterText()" (input)="setFilter($any($event.target).value)" autocomplete="off" />
+            <mat-hint>Description, part number or location</mat-hint>
+          </mat-form-field>
+          <mat-form-field subscriptSizing="dynamic" class="filter-system">
+            <mat-label>System</mat-label>
+            <mat-select [value]="systemFilter()" (selectionChange)="setSystemFilter($event.value)">
+              <mat-option value="">All systems</mat-option>
+              @for (system of activeSystems(); track system.id) {
+                <mat-option [value]="system.id">{{ system.name }}</mat-option>
+              }
+            </mat-select>
+          </mat-form-field>
+        </div>
+
+        @if (showCaution()) {
+          <p class="notice caution" role="note">
+            <mat-icon aria-hidden="true">health_and_safety</mat-icon>
+            <span>{{ safetyCaution }}</span>
+          </p>
+        }
+
+        @if (canEdit() && selectedCount() > 0) {
+          <div class="bulk-bar" role="toolbar" aria-label="Change the selected parts">
+            <span class="bulk-count">{{ selectedCount() }} selected</span>
+            <button mat-stroked-button type="button" [matMenuTriggerFor]="moveMenu" [disabled]="busy()">
+              <mat-icon aria-hidden="true">drive_file_move</mat-icon>
+              Move to system
+            </button>
+            <mat-menu #moveMenu="matMenu">
+              @for (system of activeSystems(); track system.id) {
+                <button mat-menu-item type="button" (click)="bulkMove(system)">{{ system.name }}</button>
+              }
+            </mat-menu>
+            <button mat-stroked-button type="button" [matMenuTriggerFor]="statusMenu" [disabled]="busy()">
+              <mat-icon aria-hidden="true">published_with_changes</mat-icon>
+              Set status
+            </button>
+            <mat-menu #statusMenu="matMenu">
+              @for (status of statuses; track status) {
+                <button mat-menu-item type="button" (click)="bulkStatus(status)">{{ statusLabels[status] }}</button>
+              }
+            </mat-menu>
+            <button mat-button type="button" (click)="clearSelection()">Clear selection</button>
+          </div>
+        }
+
+        <div class="table-scroll" role="region" aria-label="Parts by system" tabindex="0">
+          <table mat-table [dataSource]="rows()" matSort (matSortChange)="sortBy($event)" class="parts">
+            <ng-container matColumnDef="select">
+              <th mat-header-cell *matHeaderCellDef class="select-cell">
+                <mat-checkbox
+                  [checked]="allOnPageSelected()"
+                  [indeterminate]="someOnPageSelected()"
+                  (change)="toggleAllOnPage($event.checked)"
+                  aria-label="Select every part on this page"
+                />
+              </th>
+              <td mat-cell *matCellDef="let row" class="select-cell">
+                <mat-checkbox
+                  [checked]="isSelected(row.part)"
+                  (change)="toggle(row.part, $event.checked)"
+                  [aria-label]="'Select ' + row.part.description"
+                />
+              </td>
+            </ng-container>
+            <ng-container matColumnDef="description">
+              <th mat-header-cell *matHeaderCellDef mat-sort-header scope="col">Description</th>
+              <td mat-cell *matCellDef="let row" class="description">
+                @if (canEdit()) {
+                  <button type="button" class="link-button" (click)="openEdit(row.part)" [attr.aria-label]="'Edit ' + row.part.description">
+                    {{ row.part.description }}
+                  </button>
+                } @else {
+                  {{ row.part.description }}
+                }
+                @if (narrow()) {
+                  <span class="sub-line tabular">
+                    {{ row.part.partNumber ? row.part.partNumber + ' · ' : '' }}{{ row.part.quantity }} {{ row.part.unit }} ×
+                    {{ row.part.estimatedUnitCost | money: currency() : locale() : 4 }}{{ row.part.storageLocation ? ' · ' + row.part.storageLocation : '' }}
+                  </span>
+                }
+              </td>
+            </ng-container>
+            <ng-container matColumnDef="partNumber">
+              <th mat-header-cell *matHeaderCellDef mat-sort-header scope="col">Part number</th>
+              <td mat-cell *matCellDef="let row" class="part-number">{{ row.part.partNumber }}</td>
+            </ng-container>
+            <ng-container matColumnDef="quantity">
+              <th mat-header-cell *matHeaderCellDef mat-sort-header arrowPosition="before" scope="col" class="number">Qty</th>
+              <td mat-cell *matCellDef="let row" class="number tabular nowrap">{{ row.part.quantity }} {{ row.part.unit }}</td>
+            </ng-container>
+            <ng-container matColumnDef="unitCost">
+              <th mat-header-cell *matHeaderCellDef mat-sort-header arrowPosition="before" scope="col" class="number">Unit cost</th>
+              <td mat-cell *matCellDef="let row" class="number tabular">{{ row.part.estimatedUnitCost | money: currency() : locale() : 4 }}</td>
+            </ng-container>
+            <ng-container matColumnDef="total">
+              <th mat-header-cell *matHeaderCellDef mat-sort-header arrowPosition="before" scope="col" class="number">Estimated total</th>
+              <td mat-cell *matCellDef="let row" class="number tabular">{{ row.part.estimatedTotal | money: currency() : locale() }}</td>
+            </ng-container>
+            <ng-container matColumnDef="status">
+              <th mat-header-cell *matHeaderCellDef mat-sort-header scope="col">Status</th>
+              <td mat-cell *matCellDef="let row">
+                @if (canEdit()) {
+                  <mat-form-field class="status-select" subscriptSizing="dynamic">
+                    <mat-select
+                      [value]="row.part.status"
+                      (selectionChange)="changeStatus(row.part, $event.value)"
+                      [aria-label]="'Status of ' + row.part.description"
+                    >
+                      @for (status of statuses; track status) {
+                        <mat-option [value]="status">{{ statusLabels[status] }}</mat-option>
+                      }
+                    </mat-select>
+                  </mat-form-field>
+                } @else {
+                  {{ statusLabelOf(row.part) }}
+                }
+              </td>
+            </ng-container>
+            <ng-container matColumnDef="location">
+              <th mat-header-cell *matHeaderCellDef mat-sort-header scope="col">Location</th>
+              <td mat-cell *matCellDef="let row">{{ row.part.storageLocation }}</td>
+            </ng-container>
+
+            <ng-container matColumnDef="groupHeader">
+              <td mat-cell *matCellDef="let row" [attr.colspan]="partColumns().length" class="group-cell">
+                <span class="group-name">{{ row.group.system.name }}</span>
+                <span class="group-count">{{ row.shownCount }} {{ row.shownCount === 1 ? 'part' : 'parts' }}</span>
+                @if (row.group.system.safetyCaution) {
+                  <span class="group-caution"><mat-icon aria-hidden="true" inline>health_and_safety</mat-icon> Safety-critical</span>
+                }
+              </td>
+            </ng-container>
+            <ng-container matColumnDef="totalLabel">
+              <td mat-cell *matCellDef="let row" [attr.colspan]="totalLabelSpan()" class="total-label">
+                {{ row.group.system.name }}: estimate against budget
+              </td>
+            </ng-container>
+            <ng-container matColumnDef="totalEstimate">
+              <td mat-cell *matCellDef="let row" class="number tabular total-figure">{{ row.group.estimate | money: currency() : locale() }}</td>
+            </ng-container>
+            <ng-container matColumnDef="totalBudget">
+              <td mat-cell *matCellDef="let row" [attr.colspan]="totalBudgetSpan()" class="total-budget">
+                @if (row.group.budget.isZero()) {
+                  <span>No budget set</span>
+                } @else {
+                  <span class="tabular">of {{ row.group.budget | money: currency() : locale() }} budget</span>&ngsp;
+                  @if (row.group.standing.over) {
+                    <span class="over"
+                      ><mat-icon aria-hidden="true" inline>warning</mat-icon> Over budget by
+                      <span class="tabular">{{ row.group.standing.difference | money: currency() : locale() }}</span></span
+                    >
+                  } @else {
+                    <span class="left tabular">{{ row.group.standing.difference | money: currency() : locale() }} left</span>
+                  }
+                }
+              </td>
+            </ng-container>
+
+            <tr mat-header-row *matHeaderRowDef="partColumns()"></tr>
+            <tr mat-row *matRowDef="let row; columns: ['groupHeader']; when: isGroupRow" class="group-row"></tr>
+            <tr mat-row *matRowDef="let row; columns: partColumns(); when: isPartRow" class="part-row"></tr>
+            <tr mat-row *matRowDef="let row; columns: ['totalLabel', 'totalEstimate', 'totalBudget']; when: isTotalRow" class="total-row"></tr>
+            <tr class="mat-mdc-row" *matNoDataRow>
+              <td class="mat-mdc-cell no-match" [attr.colspan]="partColumns().length">
+                No parts match{{ filterText() ? ' "' + filterText() + '"' : '' }}{{ systemFilter() ? ' in ' + systemName(systemFilter()) : '' }}.
+                Change the filter or choose all systems.
+              </td>
+            </tr>
+          </table>
+        </div>
+        <mat-paginator
+          [length]="visibleParts().length"
+          [pageIndex]="pageIndex()"
+          [pageSize]="pageSize()"
+          [pageSizeOptions]="[10, 25, 50, 100]"
+          (page)="onPage($event)"
+          aria-label="Pages of parts"
+        />
+      }
+    </div>
+  `,
+  styles: `
+    .page-header {
+      display: flex;
+      flex-wrap: wrap;
+      align-items: center;
+      justify-content: space-between;
+      gap: 8px 16px;
+    }
+    .header-actions,
+    .empty-actions {
+      display: flex;
+      flex-wrap: wrap;
+      gap: 8px;
+      justify-content: center;
+    }
+    .filters {
+      display: flex;
+      flex-wrap: wrap;
+      gap: 8px 16px;
+      margin-bottom: 12px;
+    }
+    .filter-text {
+      flex: 1 1 280px;
+    }
+    .filter-system {
+      flex: 0 1 260px;
+    }
+    .caution {
+      display: flex;
+      gap: 8px;
+      align-items: flex-start;
+      background: var(--mat-sys-tertiary-container);
+      color: var(--mat-sys-on-tertiary-container);
+    }
+    .bulk-bar {
+      display: flex;
+      flex-wrap: wrap;
+      align-items: center;
+      gap: 8px 12px;
+      padding: 8px 12px;
+      margin-bottom: 12px;
+      border-radius: 12px;
+      background: var(--mat-sys-secondary-container);
+      color: var(--mat-sys-on-secondary-container);
+    }
+    .bulk-count {
+      font-weight: 600;
+      margin-right: 8px;
+    }
+    .table-scroll {
+      overflow-x: auto;
+      border: 1px solid var(--mat-sys-outline-variant);
+      border-radius: 12px;
+    }
+    .table-scroll:focus-visible {
+      outline: 2px solid var(--mat-sys-primary);
+      outline-offset: 2px;
+    }
+    /* Fits the 960 px page; narrower windows scroll the table inside its box. */
+    .parts {
+      min-width: 900px;
+    }
+    .number {
+      text-align: right;
+    }
+    .nowrap {
+      white-space: nowrap;
+    }
+    .select-cell {
+      width: 48px;
+      padding-right: 0;
+    }
+    .description {
+      min-width: 180px;
+    }
+    .part-number {
+      overflow-wrap: anywhere;
+    }
+    .sub-line {
+      display: block;
+      font: var(--mat-sys-body-small);
+      color: var(--mat-sys-on-surface-variant);
+    }
+    @media (max-width: 599.98px) {
+      .parts {
+        min-width: 0;
+      }
+      .description {
+        min-width: 120px;
+      }
+      .status-select {
+        width: 124px;
+      }
+      .mat-mdc-cell,
+      .mat-mdc-header-cell {
+        padding: 0 6px;
+      }
+    }
+    .link-button {
+      background: none;
+      border: none;
+      padding: 4px 0;
+      font: inherit;
+      color: var(--mat-sys-primary);
+      text-decoration: underline;
+      text-underline-offset: 3px;
+      cursor: pointer;
+      text-align: left;
+    }
+    .link-button:focus-visible {
+      outline: 2px solid var(--mat-sys-primary);
+      outline-offset: 2px;
+    }
+    .status-select {
+      width: 150px;
+      --mat-form-field-container-height: 40px;
+      --mat-form-field-container-vertical-padding: 8px;
+    }
+    .group-row .group-cell {
+      text-align: left;
+      background: var(--mat-sys-surface-container);
+      font: var(--mat-sys-title-small);
+      padding-top: 12px;
+      padding-bottom: 8px;
+    }
+    .group-name {
+      margin-right: 12px;
+    }
+    .group-count,
+    .group-caution {
+      font: var(--mat-sys-body-small);
+      color: var(--mat-sys-on-surface-variant);
+      margin-right: 12px;
+    }
+    .total-row td {
+      background: var(--mat-sys-surface-container-low);
+      font-weight: 600;
+      border-bottom-width: 2px;
+    }
+    .total-label {
+      text-align: right;
+    }
+    .total-budget > span {
+      margin-right: 12px;
+      white-space: nowrap;
+    }
+    .over {
+      color: var(--mat-sys-error);
+    }
+    .left {
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .no-match {
+      padding: 16px;
+    }
+  `,
+})
+export class PartsPage {
+  private readonly partsApi = inject(PartsApi);
+  private readonly systemsApi = inject(SystemsApi);
+  private readonly dialog = inject(MatDialog);
+  private readonly snackBar = inject(MatSnackBar);
+  protected readonly current = inject(CurrentBuild);
+
+  /** Route parameter (inherited from the build), bound by the router. */
+  readonly buildId = input.required<string>();
+
+  protected readonly statuses = PART_STATUSES;
+  protected readonly statusLabels = PART_STATUS_LABELS;
+  protected readonly safetyCaution = SAFETY_CAUTION;
+
+  protected readonly parts = signal<PartDto[]>([]);
+  protected readonly systems = signal<SystemDto[]>([]);
+  protected readonly currency = signal('');
+  protected readonly loading = signal(false);
+  protected readonly loaded = signal(false);
+  protected readonly busy = signal(false);
+
+  protected readonly filterText = signal('');
+  protected readonly systemFilter = signal('');
+  protected readonly sort = signal<Sort>({ active: '', direction: '' });
+  protected readonly pageIndex = signal(0);
+  protected readonly pageSize = signal(25);
+  private readonly selected = signal<ReadonlySet<string>>(new Set());
+
+  protected readonly locale = computed(() => this.current.build()?.locale ?? 'en-US');
+  protected readonly canEdit = computed(() => {
+    const role = this.current.build()?.role;
+    return role === 'owner' || role === 'crew';
+  });
+  protected readonly activeSystems = computed(() => this.systems().filter((system) => !system.archived));
+  /** Phones: part number, quantity, unit cost and location go under the description, so the figures stay in view. */
+  protected readonly narrow = toSignal(
+    inject(BreakpointObserver)
+      .observe('(max-width: 599.98px)')
+      .pipe(map((state) => state.matches)),
+    { initialValue: false },
+  );
+  protected readonly partColumns = computed(() => {
+    const columns = this.narrow()
+      ? ['description', 'total', 'status']
+      : ['description', 'partNumber', 'quantity', 'unitCost', 'total', 'status', 'location'];
+    return this.canEdit() ? ['select', ...columns] : columns;
+  });
+  /** The totals row's label spans the columns before "Estimated total", its budget cell those after. */
+  protected readonly totalLabelSpan = computed(() => this.partColumns().indexOf('total'));
+  protected readonly totalBudgetSpan = computed(() => this.partColumns().length - this.totalLabelSpan() - 1);
+
+  /** Each system's figures from all of its parts, whatever the filter shows. */
+  private readonly groups = computed(() => {
+    const bySystem = new Map<string, string[]>();
+    for (const part of this.parts()) bySystem.set(part.systemId, [...(bySystem.get(part.systemId) ?? []), part.estimatedTotal]);
+    const groups = new Map<string, SystemGroup>();
+    for (const system of this.systems()) {
+      const estimate = sumOf(bySystem.get(system.id) ?? []);
+      const budget = amountOf(system.budget);
+      groups.set(system.id, { system, estimate, budget, standing: budgetStanding(estimate, budget) });
+    }
+    return groups;
+  });
+
+  /** Parts passing the filters, in system order, sorted within each system by the chosen column. */
+  protected readonly visibleParts = computed(() => {
+    const text = this.filterText().trim().toLowerCase();
+    const systemId = this.systemFilter();
+    const order = new Map(this.systems().map((system, index) => [system.id, system.archived ? 100_000 + index : index]));
+    const { active, direction } = this.sort();
+    const sorter = direction ? SORTERS[active] : undefined;
+    return this.parts()
+      .filter((part) => !systemId || part.systemId === systemId)
+      .filter(
+        (part) =>
+          !text ||
+          part.description.toLowerCase().includes(text) ||
+          part.partNumber.toLowerCase().includes(text) ||
+          part.storageLocation.toLowerCase().includes(text),
+      )
+      .map((part, index) => ({ part, index }))
+      .sort((a, b) => {
+        const bySystem = (order.get(a.part.systemId) ?? 0) - (order.get(b.part.systemId) ?? 0);
+        if (bySystem !== 0) return bySystem;
+        const byColumn = sorter ? sorter(a.part, b.part) * (direction === 'desc' ? -1 : 1) : 0;
+        return byColumn || a.index - b.index;
+      })
+      .map(({ part }) => part);
+  });
+
+  private readonly pageParts = computed(() => {
+    const start = this.pageIndex() * this.pageSize();
+    return this.visibleParts().slice(start, start + this.pageSize());
+  });
+
+  /** The page's parts under a heading per system, each system closed by its totals row. */
+  protected readonly rows = computed<TableRow[]>(() => {
+    const rows: TableRow[] = [];
+    const groups = this.groups();
+    const shownBySystem = new Map<string, number>();
+    for (const part of this.visibleParts()) shownBySystem.set(part.systemId, (shownBySystem.get(part.systemId) ?? 0) + 1);
+    let currentGroup: SystemGroup | undefined;
+    for (const part of this.pageParts()) {
+      if (currentGroup?.system.id !== part.systemId) {
+        if (currentGroup) rows.push({ kind: 'total', group: currentGroup });
+        currentGroup = groups.get(part.systemId) ?? this.unknownGroup(part.systemId);
+        rows.push({ kind: 'group', group: currentGroup, shownCount: shownBySystem.get(part.systemId) ?? 0 });
+      }
+      rows.push({ kind: 'part', part });
+    }
+    if (currentGroup) rows.push({ kind: 'total', group: currentGroup });
+    return rows;
+  });
+
+  protected readonly showCaution = computed(() => {
+    const systemId = this.systemFilter();
+    if (systemId) return this.systems().find((system) => system.id === systemId)?.safetyCaution ?? false;
+    return this.rows().some((row) => row.kind === 'group' && row.group.system.safetyCaution);
+  });
+
+  protected readonly selectedCount = computed(() => this.selected().size);
+  protected readonly allOnPageSelected = computed(() => {
+    const page = this.pageParts();
+    return page.length > 0 && page.every((part) => this.selected().has(part.id));
+  });
+  protected readonly someOnPageSelected = computed(() => !this.allOnPageSelected() && this.pageParts().some((part) => this.selected().has(part.id)));
+
+  protected readonly isGroupRow = (_index: number, row: TableRow) => row.kind === 'group';
+  protected readonly isPartRow = (_index: number, row: TableRow) => row.kind === 'part';
+  protected readonly isTotalRow = (_index: number, row: TableRow) => row.kind === 'total';
+
+  constructor() {
+    effect(() => {
+      const buildId = this.buildId();
+      untracked(() => this.load(buildId));
+    });
+  }
+
+  /** Table rows are untyped in templates; this keeps the lookup typed. */
+  protected statusLabelOf(part: PartDto): string {
+    return PART_STATUS_LABELS[part.status];
+  }
+
+  protected systemName(systemId: string): string {
+    return this.systems().find((system) => system.id === systemId)?.name ?? '';
+  }
+
+  protected setFilter(text: string): void {
+    this.filterText.set(text);
+    this.pageIndex.set(0);
+  }
+
+  protected setSystemFilter(systemId: string): void {
+    this.systemFilter.set(systemId);
+    this.pageIndex.set(0);
+  }
+
+  protected sortBy(sort: Sort): void {
+    this.sort.set(sort);
+    this.pageIndex.set(0);
+  }
+
+  protected onPage(event: PageEvent): void {
+    this.pageIndex.set(event.pageIndex);
+    this.pageSize.set(event.pageSize);
+  }
+
+  protected isSelected(part: PartDto): boolean {
+    return this.selected().has(part.id);
+  }
+
+  protected toggle(part: PartDto, checked: boolean): void {
+    const next = new Set(this.selected());
+    if (checked) next.add(part.id);
+    else next.delete(part.id);
+    this.selected.set(next);
+  }
+
+  protected toggleAllOnPage(checked: boolean): void {
+    const next = new Set(this.selected());
+    for (const part of this.pageParts()) {
+      if (checked) next.add(part.id);
+      else next.delete(part.id);
+    }
+    this.selected.set(next);
+  }
+
+  protected clearSelection(): void {
+    this.selected.set(new Set());
+  }
+
+  protected openAdd(): void {
+    this.openPartForm({ systemId: this.systemFilter() || undefined });
+  }
+
+  protected openEdit(part: PartDto): void {
+    this.openPartForm({ part });
+  }
+
+  protected openImport(): void {
+    this.dialog
+      .open<ImportDialog, ImportDialogData, ImportResultDto>(ImportDialog, {
+        data: { buildId: this.buildId(), currency: this.currency(), locale: this.locale() },
+        width: '960px',
+        maxWidth: '96vw',
+        autoFocus: 'first-tabbable',
+      })
+      .afterClosed()
+      .subscribe((result) => {
+        if (!result) return;
+        const left = result.dropped ? `; ${result.dropped} ${result.dropped === 1 ? 'row' : 'rows'} left out` : '';
+        this.snackBar.open(`Imported ${result.imported} ${result.imported === 1 ? 'part' : 'parts'}${left}.`, 'Dismiss', { duration: 6000 });
+        this.load(this.buildId());
+      });
+  }
+
+  protected changeStatus(part: PartDto, status: PartStatus): void {
+    if (status === part.status) return;
+    this.busy.set(true);
+    this.partsApi.update(this.buildId(), part.id, { status, version: part.version }).subscribe({
+      next: (saved) => {
+        this.busy.set(false);
+        this.replace(saved);
+      },
+      error: (error: unknown) => {
+        this.busy.set(false);
+        const apiError = toApiError(error);
+        const saved = apiError.current as PartDto | undefined;
+        if (apiError.status === 409 && saved?.id === part.id) {
+          this.replace(saved);
+          this.snackBar.open(
+            `Someone else changed "${part.description}" in the meantime; it now shows the saved version (${PART_STATUS_LABELS[saved.status]}). Set the status again if you still need to.`,
+            'Dismiss',
+            { duration: 10000 },
+          );
+        } else {
+          // Put the select back to the saved status: a fresh row object redraws it.
+          this.replace({ ...part });
+        }
+      },
+    });
+  }
+
+  protected bulkMove(system: SystemDto): void {
+    const partIds = [...this.selected()];
+    this.busy.set(true);
+    this.partsApi.bulk(this.buildId(), { action: 'move', partIds, systemId: system.id }).subscribe({
+      next: (saved) => {
+        this.afterBulk(saved);
+        this.snackBar.open(`Moved ${saved.length} ${saved.length === 1 ? 'part' : 'parts'} to ${system.name}.`, 'Dismiss', { duration: 6000 });
+      },
+      error: () => this.busy.set(false),
+    });
+  }
+
+  protected bulkStatus(status: PartStatus): void {
+    const partIds = [...this.selected()];
+    this.busy.set(true);
+    this.partsApi.bulk(this.buildId(), { action: 'status', partIds, status }).subscribe({
+      next: (saved) => {
+        this.afterBulk(saved);
+        this.snackBar.open(`${saved.length} ${saved.length === 1 ? 'part is' : 'parts are'} now ${PART_STATUS_LABELS[status]}.`, 'Dismiss', {
+          duration: 6000,
+        });
+      },
+      error: () => this.busy.set(false),
+    });
+  }
+
+  private afterBulk(saved: PartDto[]): void {
+    this.busy.set(false);
+    const byId = new Map(saved.map((part) => [part.id, part]));
+    this.parts.update((parts) => parts.map((part) => byId.get(part.id) ?? part));
+    this.clearSelection();
+  }
+
+  private openPartForm(options: { part?: PartDto; systemId?: string }): void {
+    const ownSystem = options.part ? this.systems().find((system) => system.id === options.part!.systemId) : undefined;
+    const systems = ownSystem?.archived ? [...this.activeSystems(), ownSystem] : this.activeSystems();
+    this.dialog
+      .open<PartFormDialog, PartFormData, PartFormResult>(PartFormDialog, {
+        data: { buildId: this.buildId(), currency: this.currency(), locale: this.locale(), systems, ...options },
+        width: '680px',
+        maxWidth: '96vw',
+        autoFocus: 'first-tabbable',
+      })
+      .afterClosed()
+      .subscribe((result) => {
+        if (!result) return;
+        if ('deleted' in result) {
+          this.parts.update((parts) => parts.filter((part) => part.id !== result.deleted));
+          this.selected.update((selected) => new Set([...selected].filter((id) => id !== result.deleted)));
+        } else if (options.part) {
+          this.replace(result.saved);
+        } else {
+          this.parts.update((parts) => [...parts, result.saved]);
+          this.snackBar.open(`Added "${result.saved.description}".`, 'Dismiss', { duration: 5000 });
+        }
+      });
+  }
+
+  private replace(saved: PartDto): void {
+    this.parts.update((parts) => parts.map((part) => (part.id === saved.id ? saved : part)));
+  }
+
+  private unknownGroup(systemId: string): SystemGroup {
+    const system: SystemDto = {
+      id: systemId,
+      name: 'Unknown system',
+      budget: '0',
+      estimate: '0',
+      partCount: 0,
+      sortOrder: 0,
+      archived: false,
+      safetyCaution: false,
+      version: 1,
+    };
+    return { system, estimate: new Decimal(0), budget: new Decimal(0), standing: budgetStanding(new Decimal(0), new Decimal(0)) };
+  }
+
+  private load(buildId: string): void {
+    this.loading.set(true);
+    forkJoin({ systems: this.systemsApi.list(buildId, true), parts: this.partsApi.list(buildId) }).subscribe({
+      next: ({ systems, parts }) => {
+        this.currency.set(systems.currency);
+        this.systems.set(systems.systems);
+        this.parts.set(parts);
+        this.selected.set(new Set());
+        this.loading.set(false);
+        this.loaded.set(true);
+      },
+      error: () => this.loading.set(false),
+    });
+  }
+}
