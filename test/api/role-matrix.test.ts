@@ -1,6 +1,9 @@
 // Every build route for each kind of caller: owner, crew, reviewer, a signed-in non-member, and signed out.
 // A non-member must learn nothing of the build: 404, never 403.
 import type { Express } from 'express';
+import { readFileSync } from 'node:fs';
+import path from 'node:path';
+import { Receipt } from '../../backend/src/receipts/receipt.entity';
 import { ApiClient, NEW_BUILD, signedUpClient, uniqueEmail } from '../support/api-client';
 import { startTestApp, type TestApp } from '../support/test-app';
 
@@ -27,6 +30,26 @@ const ownerOnly = (ok: number) => ({ owner: ok, crew: 403, reviewer: 403, outsid
 const editors = (ok: number) => ({ owner: ok, crew: ok, reviewer: 403, outsider: 404, anonymous: 401 });
 const PART = { description: 'Radiator hose', quantity: '2', unit: 'each', estimatedUnitCost: '18.40' };
 const CSV = 'system,description,quantity,unit,estimated unit cost\nCooling,Hose clamp,4,each,1.25\n';
+const SLIP = readFileSync(path.resolve(__dirname, '../fixtures/receipts/generated/counter-1.png'));
+
+function upload(client: ApiClient, buildId: string) {
+  const raw = client as unknown as { agent: import('supertest').Agent; csrf: string };
+  return raw.agent.post(`/api/builds/${buildId}/receipts`).set('X-XSRF-TOKEN', raw.csrf).attach('files', SLIP, 'slip.png');
+}
+
+/** A receipt as if read (the reading itself is tested elsewhere): two lines, one a core deposit; optionally filed. */
+async function receiptFor(f: Fixture, options: { filed?: boolean } = {}) {
+  const owner = f.clients.owner;
+  const id = (await upload(owner, f.buildId)).body.receipts[0].id as string;
+  await t.orm.em.fork().nativeUpdate(Receipt, { id }, { state: 'to_check' });
+  const base = `/api/builds/${f.buildId}/receipts/${id}`;
+  const version = (await owner.get(base)).body.version;
+  await owner.patch(base, { purchaseDate: '2026-11-14', subtotal: null, tax: null, shipping: null, discount: null, total: '62.00', version });
+  const line = (await owner.post(`${base}/lines`, { kind: 'part', description: 'Alternator', amount: '40.00', systemId: f.systemId })).body;
+  const core = (await owner.post(`${base}/lines`, { kind: 'core_charge', description: 'Alternator core', amount: '22.00', systemId: f.systemId })).body;
+  if (options.filed) await owner.post(`${base}/file`, { version: (await owner.get(base)).body.version });
+  return { id, base, line, core };
+}
 
 const ROUTES: RouteCase[] = [
   { name: 'GET /api/builds/:buildId', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}`), expected: readable },
@@ -110,6 +133,76 @@ const ROUTES: RouteCase[] = [
     name: 'POST /api/builds/:buildId/parts/import?commit=true',
     call: (f, a) => f.clients[a].sendText('post', `/api/builds/${f.buildId}/parts/import?commit=true`, CSV),
     expected: editors(201),
+  },
+  { name: 'GET /api/builds/:buildId/receipts', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/receipts`), expected: readable },
+  { name: 'POST /api/builds/:buildId/receipts', call: (f, a) => upload(f.clients[a], f.buildId), expected: editors(201) },
+  { name: 'GET /api/builds/:buildId/receipts/:receiptId', call: async (f, a) => f.clients[a].get((await receiptFor(f)).base), expected: readable },
+  { name: 'GET /api/builds/:buildId/receipts/:receiptId/document', call: async (f, a) => f.clients[a].get(`${(await receiptFor(f)).base}/document`), expected: readable },
+  {
+    name: 'PATCH /api/builds/:buildId/receipts/:receiptId',
+    call: async (f, a) => {
+      const { base } = await receiptFor(f);
+      return f.clients[a].patch(base, { receiptNumber: 'R-1', version: (await f.clients.owner.get(base)).body.version });
+    },
+    expected: editors(200),
+  },
+  {
+    name: 'POST /api/builds/:buildId/receipts/:receiptId/lines',
+    call: async (f, a) => f.clients[a].post(`${(await receiptFor(f)).base}/lines`, { kind: 'fee', description: 'Handling', amount: '2.00' }),
+    expected: editors(201),
+  },
+  {
+    name: 'PATCH /api/builds/:buildId/receipts/:receiptId/lines/:lineId',
+    call: async (f, a) => {
+      const { base, line } = await receiptFor(f);
+      return f.clients[a].patch(`${base}/lines/${line.id}`, { description: 'Alternator, reman', version: line.version });
+    },
+    expected: editors(200),
+  },
+  {
+    name: 'DELETE /api/builds/:buildId/receipts/:receiptId/lines/:lineId',
+    call: async (f, a) => {
+      const { base, line } = await receiptFor(f);
+      return f.clients[a].delete(`${base}/lines/${line.id}`);
+    },
+    expected: editors(204),
+  },
+  {
+    name: 'POST /api/builds/:buildId/receipts/:receiptId/lines/:lineId/split',
+    call: async (f, a) => {
+      const { base, line } = await receiptFor(f);
+      return f.clients[a].post(`${base}/lines/${line.id}/split`, { version: line.version, shares: [{ amount: '25.00', systemId: f.systemId }, { amount: '15.00', systemId: f.systemId }] });
+    },
+    expected: editors(200),
+  },
+  {
+    name: 'POST /api/builds/:buildId/receipts/:receiptId/lines/merge',
+    call: async (f, a) => {
+      const { base, line } = await receiptFor(f);
+      const other = (await f.clients.owner.post(`${base}/lines`, { kind: 'part', description: 'Pulley', amount: '1.00', systemId: f.systemId })).body;
+      return f.clients[a].post(`${base}/lines/merge`, { lineIds: [line.id, other.id] });
+    },
+    expected: editors(200),
+  },
+  {
+    name: 'POST /api/builds/:buildId/receipts/:receiptId/file',
+    call: async (f, a) => {
+      const { base } = await receiptFor(f);
+      return f.clients[a].post(`${base}/file`, { version: (await f.clients.owner.get(base)).body.version });
+    },
+    expected: editors(200),
+  },
+  { name: 'POST /api/builds/:buildId/receipts/:receiptId/reopen', call: async (f, a) => f.clients[a].post(`${(await receiptFor(f, { filed: true })).base}/reopen`), expected: ownerOnly(200) },
+  { name: 'GET /api/builds/:buildId/receipt-lines', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/receipt-lines?q=alt`), expected: readable },
+  { name: 'GET /api/builds/:buildId/cores', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/cores`), expected: readable },
+  {
+    name: 'PATCH /api/builds/:buildId/cores/:coreId',
+    call: async (f, a) => {
+      await receiptFor(f, { filed: true });
+      const core = (await f.clients.owner.get(`/api/builds/${f.buildId}/cores`)).body.cores[0];
+      return f.clients[a].patch(`/api/builds/${f.buildId}/cores/${core.id}`, { state: 'dropped_off', version: core.version });
+    },
+    expected: editors(200),
   },
 ];
 
