@@ -110,29 +110,36 @@ for (const { project, code, output } of typechecks) {
 }
 timings.push(`typecheck ${((performance.now() - typecheckStarted) / 1000).toFixed(1)} s`);
 
-// One jest run over every project; its normal report streams to the console, the numbers come from the JSON.
-const jestStarted = performance.now();
-const reportPath = path.join(ROOT, JEST_REPORT);
-fs.rmSync(reportPath, { force: true }); // a report left by an earlier run must not stand in for this one
-const jest = await runAsync(npmBin('jest'), ['--ci', '--json', `--outputFile=${JEST_REPORT}`, ...process.argv.slice(2)], { env });
-timings.push(`jest ${((performance.now() - jestStarted) / 1000).toFixed(1)} s`);
+// Two jest runs: the browser-like client project apart from the Node projects, because the reading pipeline loads
+// pdf.js into the worker's main context, whose polyfills (a global Iterator on Node 20) break jsdom in the same
+// worker. Each run's normal report streams to the console; the numbers come from its JSON.
+const userArgs = process.argv.slice(2);
+const runs = userArgs.length > 0 ? [['all', userArgs]] : [['client', ['--selectProjects', 'client']], ['server', ['--selectProjects', 'unit', 'api', 'e2e']]];
+for (const [name, args] of runs) {
+  const jestStarted = performance.now();
+  const reportFile = JEST_REPORT.replace(/\.json$/, `-${name}.json`);
+  const reportPath = path.join(ROOT, reportFile);
+  fs.rmSync(reportPath, { force: true }); // a report left by an earlier run must not stand in for this one
+  const jest = await runAsync(npmBin('jest'), ['--ci', '--json', `--outputFile=${reportFile}`, ...args], { env });
+  timings.push(`jest ${name} ${((performance.now() - jestStarted) / 1000).toFixed(1)} s`);
 
-let report = null;
-try {
-  report = JSON.parse(fs.readFileSync(reportPath, 'utf8'));
-} catch {
-  report = null;
-}
-if (!report) {
-  recordFailure(`jest crashed (exit code ${jest.code}, no ${JEST_REPORT})`);
-} else {
-  passed += report.numPassedTests;
-  failed += report.numFailedTests + report.numRuntimeErrorTestSuites;
-  if (report.numFailedTests > 0) failures.push(`${report.numFailedTests} jest test(s)`);
-  if (report.numRuntimeErrorTestSuites > 0) failures.push(`${report.numRuntimeErrorTestSuites} jest suite(s) that failed to run`);
-  // Jest can fail with every counted test green (no tests found, an error outside any test): count it once.
-  if (jest.code !== 0 && report.numFailedTests + report.numRuntimeErrorTestSuites === 0) {
-    recordFailure(`jest exited with code ${jest.code}`);
+  let report = null;
+  try {
+    report = JSON.parse(fs.readFileSync(reportPath, 'utf8'));
+  } catch {
+    report = null;
+  }
+  if (!report) {
+    recordFailure(`jest ${name} crashed (exit code ${jest.code}, no ${reportFile})`);
+  } else {
+    passed += report.numPassedTests;
+    failed += report.numFailedTests + report.numRuntimeErrorTestSuites;
+    if (report.numFailedTests > 0) failures.push(`${report.numFailedTests} jest ${name} test(s)`);
+    if (report.numRuntimeErrorTestSuites > 0) failures.push(`${report.numRuntimeErrorTestSuites} jest ${name} suite(s) that failed to run`);
+    // Jest can fail with every counted test green (no tests found, an error outside any test): count it once.
+    if (jest.code !== 0 && report.numFailedTests + report.numRuntimeErrorTestSuites === 0) {
+      recordFailure(`jest ${name} exited with code ${jest.code}`);
+    }
   }
 }
 

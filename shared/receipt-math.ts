@@ -62,13 +62,13 @@ export class AllocationError extends Error {
 }
 
 /**
- * Tax goes to taxable lines only; shipping and fees' share go to every line but discounts; the printed discount to
- * purchase lines. Each column adds up to the printed figure exactly, to the currency's minor unit.
+ * Tax goes to taxable lines only; shipping to purchases, fees and returns; the printed discount to purchases and fees. Each column adds up to the printed figure exactly, to the currency's minor unit.
  */
 export function allocateCharges(lines: readonly MathLine[], charges: ReceiptCharges, currency: string): LineAllocation[] {
   minorUnits(currency);
   const tax = spread(charges.tax, lines, (line) => line.taxable && line.kind !== 'discount', currency);
-  const shipping = spread(charges.shipping, lines, (line) => line.kind !== 'discount', currency);
+  // Shipping follows the goods: purchases, fees and returns carry it, deposits (refundable) do not.
+  const shipping = spread(charges.shipping, lines, (line) => line.kind === 'part' || line.kind === 'fee' || line.kind === 'return', currency);
   const discount = spread(charges.discount, lines, (line) => line.kind === 'part' || line.kind === 'fee', currency);
   return lines.map((_, index) => ({ tax: tax[index], shipping: shipping[index], discount: discount[index] }));
 }

@@ -20,6 +20,7 @@ import { errorMiddleware, NotFound } from './http/errors';
 import type { JobQueue } from './jobs/queue';
 import type { Mailer } from './mail/mailer';
 import { receiptsRoutes } from './receipts/receipts.routes';
+import { exportsRoutes } from './exports/exports.routes';
 import type { ObjectStore } from './storage/object-store';
 
 export interface AppDeps {
@@ -94,6 +95,7 @@ export function createApp({ orm, config, mailer, store, queue }: AppDeps): Runni
   api.use('/builds/:buildId', systemsRoutes());
   api.use('/builds/:buildId', partsRoutes());
   api.use('/builds/:buildId', receiptsRoutes({ store, queue }));
+  api.use('/builds/:buildId', exportsRoutes({ store }));
   api.use(() => {
     throw new NotFound('That API route');
   });

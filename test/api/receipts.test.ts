@@ -177,9 +177,9 @@ describe('checking and filing', () => {
     // Tax 721 cents over taxable 60 : 22 : 30 (total 112): quotas 386.25, 141.625, 193.125 -> floors 386 + 141 + 193 = 720,
     // one cent left to the largest remainder (.625, the core) -> 3.86, 1.42, 1.93, 0.00.
     expect(filed.body.lines.map((l: { allocatedTax: string }) => l.allocatedTax)).toEqual(['3.86', '1.42', '1.93', '0.00']);
-    // Shipping 999 cents over 60 : 22 : 30 : 10 (total 122): 491.31, 180.15, 245.66, 81.89 -> floors 491 + 180 + 245 + 81 = 997,
-    // two cents left to .89 (fee) and .66 (coolant) -> 4.91, 1.80, 2.46, 0.82.
-    expect(filed.body.lines.map((l: { allocatedShipping: string }) => l.allocatedShipping)).toEqual(['4.91', '1.80', '2.46', '0.82']);
+    // Shipping follows the goods, not the refundable deposit: 999 cents over 60 : 30 : 10 (total 100): 599.4, 299.7, 99.9
+    // -> floors 599 + 299 + 99 = 997, two cents left to .9 (fee) and .7 (coolant) -> 5.99, 0.00 (core), 3.00, 1.00.
+    expect(filed.body.lines.map((l: { allocatedShipping: string }) => l.allocatedShipping)).toEqual(['5.99', '0.00', '3.00', '1.00']);
 
     const cores = (await client.get(`/api/builds/${build.id}/cores`)).body.cores;
     expect(cores).toEqual([expect.objectContaining({ state: 'owed', amount: '22.00', dueDate: '2026-12-14', vendorName: 'Quayside Parts Counter' })]);

@@ -204,6 +204,10 @@ const ROUTES: RouteCase[] = [
     },
     expected: editors(200),
   },
+  { name: 'GET /api/builds/:buildId/ledger', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/ledger`), expected: readable },
+  { name: 'GET /api/builds/:buildId/exports/tax-ledger.csv', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/exports/tax-ledger.csv`), expected: readable },
+  { name: 'GET /api/builds/:buildId/exports/build-sheet.csv', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/exports/build-sheet.csv`), expected: readable },
+  { name: 'GET /api/builds/:buildId/exports/archive.zip', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/exports/archive.zip`), expected: readable },
 ];
 
 let t: TestApp;

@@ -1,0 +1,65 @@
+// The ledger and the exports: every member of a build may read and export them.
+import { Router, type Request } from 'express';
+import { pipeline } from 'node:stream/promises';
+import { ANY_MEMBER, buildRole, em, isUuid, membershipOf } from '../http/build-access';
+import { NotFound, ValidationFailed } from '../http/errors';
+import { buildLedger } from '../ledger/ledger.service';
+import type { ObjectStore } from '../storage/object-store';
+import { writeArchive } from './archive';
+import { buildSheetCsv } from './build-sheet';
+import { taxLedgerCsv, type ExportFilter } from './tax-ledger';
+
+function exportFilter(req: Request): ExportFilter {
+  const fields: Record<string, string> = {};
+  const date = (name: 'from' | 'to') => {
+    const value = req.query[name];
+    if (value === undefined || value === '') return undefined;
+    if (typeof value !== 'string' || !/^\d{4}-\d{2}-\d{2}$/.test(value)) fields[name] = 'Use a date like 2026-11-14.';
+    return value as string;
+  };
+  const filter = { from: date('from'), to: date('to'), systemId: undefined as string | undefined };
+  if (req.query.systemId !== undefined) {
+    if (!isUuid(req.query.systemId)) throw new NotFound('That system');
+    filter.systemId = req.query.systemId;
+  }
+  if (Object.keys(fields).length) throw new ValidationFailed(fields);
+  return filter;
+}
+
+function fileName(buildName: string, what: string): string {
+  return `${buildName.replace(/[^\w-]+/g, '-').replace(/^-|-$/g, '').toLowerCase() || 'build'}-${what}`;
+}
+
+/** Mounted under /api/builds/:buildId. */
+export function exportsRoutes(deps: { store: ObjectStore }): Router {
+  const router = Router({ mergeParams: true });
+
+  router.get('/ledger', buildRole(...ANY_MEMBER), async (_req, res) => {
+    res.json(await buildLedger(em(), membershipOf(res).build));
+  });
+
+  router.get('/exports/tax-ledger.csv', buildRole(...ANY_MEMBER), async (req, res) => {
+    const build = membershipOf(res).build;
+    const filter = exportFilter(req);
+    res.setHeader('Content-Type', 'text/csv; charset=utf-8; header=present');
+    res.setHeader('Content-Disposition', `attachment; filename="${fileName(build.name, 'tax-ledger.csv')}"`);
+    await pipeline(taxLedgerCsv(em(), build, filter), res);
+  });
+
+  router.get('/exports/build-sheet.csv', buildRole(...ANY_MEMBER), async (req, res) => {
+    const build = membershipOf(res).build;
+    const filter = exportFilter(req);
+    res.setHeader('Content-Type', 'text/csv; charset=utf-8; header=present');
+    res.setHeader('Content-Disposition', `attachment; filename="${fileName(build.name, 'build-sheet.csv')}"`);
+    await pipeline(await buildSheetCsv(em(), build, filter), res);
+  });
+
+  router.get('/exports/archive.zip', buildRole(...ANY_MEMBER), async (_req, res) => {
+    const build = membershipOf(res).build;
+    res.setHeader('Content-Type', 'application/zip');
+    res.setHeader('Content-Disposition', `attachment; filename="${fileName(build.name, 'records.zip')}"`);
+    await writeArchive(em(), deps.store, build, res);
+  });
+
+  return router;
+}

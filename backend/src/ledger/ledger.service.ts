@@ -1,0 +1,143 @@
+// The ledger: budget, estimate and money spent per system, aggregated in SQL; rounding and the forecast through
+// the shared money module, so the systems always add up to the build total to the cent.
+import type { EntityManager } from '@mikro-orm/postgresql';
+import type { LedgerDto, LedgerFigures } from '../../../shared/api/ledger';
+import { Decimal, minorUnits, multiply, roundHalfUp, sum, subtract, toDecimal, toWire } from '../../../shared/money';
+import { needsSafetyCaution } from '../../../shared/safety';
+import type { Build } from '../builds/build.entity';
+
+/** The factor is only trusted once this many bought parts have both an estimate and a cost (common practice, our choice). */
+export const OVERRUN_MIN_SAMPLE = 5;
+
+interface SystemRow {
+  id: string;
+  name: string;
+  budget: string;
+  estimate: string;
+  remaining_estimate: string;
+  spent: string;
+  net_cost: string;
+  cores_outstanding: string;
+  returns_awaiting: string;
+}
+
+// A line's full cost: its amount with its share of the receipt's tax and shipping, less its share of the discount.
+const LINE_TOTAL = `(l.amount + l.allocated_tax + l.allocated_shipping - l.allocated_discount)`;
+
+const SYSTEM_FIGURES = `
+  with parts as (
+    select p.system_id,
+           sum(round(p.quantity * p.estimated_unit_cost, ?)) as estimate,
+           sum(round(p.quantity * p.estimated_unit_cost, ?)) filter (where p.status = 'planned') as remaining_estimate
+      from part p where p.build_id = ? group by p.system_id
+  ), lines as (
+    select l.system_id,
+           sum(${LINE_TOTAL}) as spent,
+           sum(${LINE_TOTAL}) filter (where l.kind in ('part', 'fee', 'discount', 'return')
+                                        or (l.kind = 'core_charge' and c.state = 'forfeited')) as net_cost,
+           sum(${LINE_TOTAL}) filter (where l.kind = 'core_charge' and c.state in ('owed', 'dropped_off')) as cores_outstanding
+      from receipt_line l
+      join receipt r on r.id = l.receipt_id and r.state = 'filed'
+      left join core c on c.charge_line_id = l.id
+     where l.build_id = ? and l.system_id is not null
+     group by l.system_id
+  ), awaiting as (
+    -- Parts sent back with no filed return line yet: what was paid for them is owed back.
+    select l.system_id, sum(${LINE_TOTAL}) as returns_awaiting
+      from receipt_line l
+      join receipt r on r.id = l.receipt_id and r.state = 'filed'
+      join part p on p.id = l.part_id and p.status = 'returned'
+     where l.build_id = ? and l.kind = 'part' and l.system_id is not null
+       and not exists (select 1 from receipt_line rl join receipt rr on rr.id = rl.receipt_id and rr.state = 'filed'
+                        where rl.kind = 'return' and (rl.return_of_id = l.id or rl.part_id = p.id))
+     group by l.system_id
+  )
+  select s.id, s.name, s.budget,
+         coalesce(parts.estimate, 0) as estimate, coalesce(parts.remaining_estimate, 0) as remaining_estimate,
+         coalesce(lines.spent, 0) as spent, coalesce(lines.net_cost, 0) as net_cost,
+         coalesce(lines.cores_outstanding, 0) as cores_outstanding, coalesce(awaiting.returns_awaiting, 0) as returns_awaiting
+    from vehicle_system s
+    left join parts on parts.system_id = s.id
+    left join lines on lines.system_id = s.id
+    left join awaiting on awaiting.system_id = s.id
+   where s.build_id = ? and (s.archived_at is null or lines.spent is not null)
+   order by s.sort_order, s.created_at`;
+
+/** Actual cost over estimate for bought parts that carry filed purchase lines. */
+const OVERRUN = `
+  select count(*) as sample, coalesce(sum(actual), 0) as actual, coalesce(sum(estimate), 0) as estimate from (
+    select p.id, round(p.quantity * p.estimated_unit_cost, ?) as estimate, sum(${LINE_TOTAL}) as actual
+      from part p
+      join receipt_line l on l.part_id = p.id and l.kind = 'part'
+      join receipt r on r.id = l.receipt_id and r.state = 'filed'
+     where p.build_id = ? and p.estimated_unit_cost > 0
+     group by p.id
+  ) bought`;
+
+export interface OverrunFactor {
+  factor: Decimal;
+  sample: number;
+}
+
+export async function overrunFactor(em: EntityManager, build: Build): Promise<OverrunFactor> {
+  const places = minorUnits(build.currency);
+  const [row] = await em.getConnection().execute<{ sample: string; actual: string; estimate: string }[]>(OVERRUN, [places, build.id]);
+  const sample = Number(row.sample);
+  const estimate = toDecimal(String(row.estimate));
+  if (sample < OVERRUN_MIN_SAMPLE || estimate.isZero()) return { factor: new Decimal(1), sample };
+  // Kept to 4 decimals: a ratio, not money; the forecast it scales is rounded to the currency afterwards.
+  return { factor: roundHalfUp(toDecimal(String(row.actual)).dividedBy(estimate), 4), sample };
+}
+
+export function addFigures(rows: LedgerFigures[], places: number): LedgerFigures {
+  const total = (key: keyof LedgerFigures) => toWire(sum(rows.map((row) => toDecimal(row[key]))), places);
+  return {
+    budget: total('budget'),
+    estimate: total('estimate'),
+    spent: total('spent'),
+    netCost: total('netCost'),
+    coreDepositsOutstanding: total('coreDepositsOutstanding'),
+    returnsAwaitingRefund: total('returnsAwaitingRefund'),
+    remainingEstimate: total('remainingEstimate'),
+    variance: total('variance'),
+    forecast: total('forecast'),
+    forecastAdjusted: total('forecastAdjusted'),
+  };
+}
+
+export async function buildLedger(em: EntityManager, build: Build): Promise<LedgerDto> {
+  const places = minorUnits(build.currency);
+  const rows = await em.getConnection().execute<SystemRow[]>(SYSTEM_FIGURES, [places, places, build.id, build.id, build.id, build.id]);
+  const { factor, sample } = await overrunFactor(em, build);
+  const money = (value: string | Decimal) => roundHalfUp(typeof value === 'string' ? toDecimal(String(value)) : value, places);
+  const systems = rows.map((row) => {
+    const netCost = money(row.net_cost);
+    const remaining = money(row.remaining_estimate);
+    const forecast = sum([netCost, remaining]);
+    const budget = money(row.budget);
+    return {
+      systemId: row.id,
+      name: row.name,
+      safetyCaution: needsSafetyCaution(row.name),
+      budget: toWire(budget, places),
+      estimate: toWire(money(row.estimate), places),
+      spent: toWire(money(row.spent), places),
+      netCost: toWire(netCost, places),
+      coreDepositsOutstanding: toWire(money(row.cores_outstanding), places),
+      returnsAwaitingRefund: toWire(money(row.returns_awaiting), places),
+      remainingEstimate: toWire(remaining, places),
+      variance: toWire(subtract(budget, forecast), places),
+      forecast: toWire(forecast, places),
+      // Rounded per system, so the build's total is exactly the sum of what each system shows.
+      forecastAdjusted: toWire(sum([netCost, money(multiply(remaining, factor))]), places),
+    };
+  });
+  return {
+    currency: build.currency,
+    systems,
+    total: addFigures(systems, places),
+    contingencyBudget: toWire(money(build.contingencyBudget), places),
+    overrunFactor: factor.toString(),
+    overrunSample: sample,
+  };
+}
