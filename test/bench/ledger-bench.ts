@@ -1,0 +1,123 @@
+// Ledger and export figures on large builds seeded here: the ledger's p50/p95 beside the bare SQL aggregate, and
+// the tax-ledger export's rows per second and peak memory. Runs against its own throw-away database.
+import { MikroORM } from '@mikro-orm/postgresql';
+import { Writable } from 'node:stream';
+import { pipeline } from 'node:stream/promises';
+import pg from 'pg';
+import { User } from '../../backend/src/auth/user.entity';
+import { Build } from '../../backend/src/builds/build.entity';
+import { createBuild } from '../../backend/src/builds/builds.service';
+import { loadConfig } from '../../backend/src/config';
+import { ormConfig } from '../../backend/src/db/mikro-orm.config';
+import { taxLedgerCsv } from '../../backend/src/exports/tax-ledger';
+import { buildLedger } from '../../backend/src/ledger/ledger.service';
+
+const BENCH_DB = 'tallyhood_bench';
+
+async function recreate(config: ReturnType<typeof loadConfig>['db']) {
+  const admin = new pg.Client({ host: config.host, port: config.port, user: config.user, password: config.password, database: 'postgres' });
+  await admin.connect();
+  await admin.query(`drop database if exists ${BENCH_DB} with (force)`);
+  await admin.query(`create database ${BENCH_DB}`);
+  await admin.end();
+}
+
+/** Receipts of 10 lines each, spread over the build's systems, filed, with cents that vary. */
+async function seedLines(orm: MikroORM, build: Build, userId: string, lineCount: number) {
+  const connection = orm.em.getConnection();
+  const receipts = lineCount / 10;
+  await connection.execute(
+    `insert into receipt (id, build_id, original_filename, document_key, content_type, sha256, size, state, uploaded_by_id, purchase_date, total)
+     select gen_random_uuid(), ?, 'r.png', 'none', 'image/png', md5(g::text) || md5(g::text), 1, 'filed', ?, date '2026-01-01' + (g % 300), 0
+       from generate_series(1, ?) g`,
+    [build.id, userId, receipts],
+  );
+  await connection.execute(
+    `insert into receipt_line (id, build_id, receipt_id, position, kind, description, amount, allocated_tax, allocated_shipping, system_id)
+     select gen_random_uuid(), r.build_id, r.id, n, case when n = 9 then 'core_charge' else 'part' end, 'Bench part ' || n,
+            ((abs(hashtext(r.id::text || n)) % 50000) + 1) / 100.0, 0.07 * n, 0.01 * n,
+            (select id from vehicle_system s where s.build_id = r.build_id order by s.sort_order offset (n % 12) limit 1)
+       from receipt r cross join generate_series(0, 9) n where r.build_id = ?`,
+    [build.id],
+  );
+  await connection.execute('analyze');
+}
+
+function percentile(values: number[], p: number): number {
+  const sorted = [...values].sort((a, b) => a - b);
+  return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
+}
+
+async function time(fn: () => Promise<unknown>, runs: number): Promise<number[]> {
+  const times: number[] = [];
+  for (let i = 0; i < runs; i += 1) {
+    const started = performance.now();
+    await fn();
+    times.push(performance.now() - started);
+  }
+  return times;
+}
+
+export async function benchLedger(): Promise<Record<string, string | number>> {
+  const base = loadConfig();
+  await recreate(base.db);
+  const db = { ...base.db, dbName: BENCH_DB };
+  const orm = await MikroORM.init(ormConfig(db));
+  await orm.getMigrator().up();
+  const figures: Record<string, string | number> = {};
+  try {
+    const em = orm.em.fork();
+    const user = em.create(User, { email: 'bench@example.test', displayName: 'Bench', passwordHash: 'x' });
+    await em.flush();
+    for (const lines of [20_000, 200_000]) {
+      const build = await createBuild(em, user, { name: `Bench ${lines}`, vehicle: '', currency: 'USD', locale: 'en-US', status: 'active' });
+      const seeded = performance.now();
+      await seedLines(orm, build, user.id, lines);
+      figures[`ledger ${lines} lines: seed s`] = ((performance.now() - seeded) / 1000).toFixed(1);
+      const bareSql = `select system_id, sum(amount + allocated_tax + allocated_shipping - allocated_discount) from receipt_line where build_id = ? group by system_id`;
+      const bare = await time(() => orm.em.getConnection().execute(bareSql, [build.id]), 20);
+      const ledger = await time(() => buildLedger(orm.em.fork(), build), 20);
+      figures[`ledger ${lines} lines: p50 ms`] = percentile(ledger, 50).toFixed(1);
+      figures[`ledger ${lines} lines: p95 ms`] = percentile(ledger, 95).toFixed(1);
+      figures[`ledger ${lines} lines: bare SQL p50 ms`] = percentile(bare, 50).toFixed(1);
+      figures[`ledger ${lines} lines: ratio ledger/bare (p50)`] = (percentile(ledger, 50) / percentile(bare, 50)).toFixed(2);
+    }
+    // The export of 100,000 lines: the first 10,000 receipts of the large build.
+    const big = await orm.em.fork().findOneOrFail(Build, { name: 'Bench 200000' });
+    let rows = 0;
+    let peak = process.memoryUsage().rss;
+    const baseline = peak;
+    const sampler = setInterval(() => (peak = Math.max(peak, process.memoryUsage().rss)), 20);
+    const started = performance.now();
+    await pipeline(
+      taxLedgerCsv(orm.em.fork(), big, { to: '2026-05-30' }),
+      new Writable({
+        write(chunk: Buffer, _encoding, done) {
+          for (const byte of chunk) if (byte === 10) rows += 1;
+          done();
+        },
+      }),
+    );
+    clearInterval(sampler);
+    const seconds = (performance.now() - started) / 1000;
+    figures['export tax ledger: rows'] = rows - 1;
+    figures['export tax ledger: rows per second'] = Math.round((rows - 1) / seconds);
+    figures['export tax ledger: peak RSS MB'] = (peak / 1024 / 1024).toFixed(0);
+    figures['export tax ledger: RSS growth MB'] = ((peak - baseline) / 1024 / 1024).toFixed(0);
+  } finally {
+    await orm.close(true);
+  }
+  return figures;
+}
+
+if (require.main === module) {
+  benchLedger()
+    .then((figures) => {
+      for (const [name, value] of Object.entries(figures)) console.log(`${name.padEnd(48)} ${value}`);
+      process.exit(0);
+    })
+    .catch((error: unknown) => {
+      console.error(error);
+      process.exit(1);
+    });
+}
