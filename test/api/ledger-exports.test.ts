@@ -2,8 +2,6 @@
 // that the systems add up to the build, and the CSVs read back with an independent parser.
 import fc from 'fast-check';
 import Papa from 'papaparse';
-import { readFileSync } from 'node:fs';
-import path from 'node:path';
 import { User } from '../../backend/src/auth/user.entity';
 import { createBuild } from '../../backend/src/builds/builds.service';
 import { buildLedger } from '../../backend/src/ledger/ledger.service';
@@ -14,10 +12,10 @@ import { VehicleSystem } from '../../backend/src/systems/vehicle-system.entity';
 import { Decimal, sum, toWire } from '../../shared/money';
 import { reconcile } from '../../shared/receipt-math';
 import { NEW_BUILD, signedUpClient, type ApiClient } from '../support/api-client';
+import { filedReceipt as fileThrough } from '../support/receipts';
 import { startTestApp, type TestApp } from '../support/test-app';
 
 jest.setTimeout(120_000);
-const SLIP = readFileSync(path.resolve(__dirname, '../fixtures/receipts/generated/counter-1.png'));
 
 let t: TestApp;
 beforeAll(async () => {
@@ -33,22 +31,8 @@ async function newBuild() {
   return { ...owner, build, system };
 }
 
-/** A receipt ready to check (the reading is tested elsewhere), with the given header and lines, then filed. */
-async function filedReceipt(client: ApiClient, buildId: string, header: object, lines: object[]) {
-  const raw = client as unknown as { agent: import('supertest').Agent; csrf: string };
-  const id = (await raw.agent.post(`/api/builds/${buildId}/receipts`).set('X-XSRF-TOKEN', raw.csrf).attach('files', SLIP, 'slip.png')).body.receipts[0].id;
-  await t.orm.em.fork().nativeUpdate(Receipt, { id }, { state: 'to_check' });
-  const base = `/api/builds/${buildId}/receipts/${id}`;
-  await client.patch(base, { subtotal: null, tax: null, shipping: null, discount: null, ...header, version: (await client.get(base)).body.version });
-  const created = [];
-  for (const line of lines) {
-    const res = await client.post(`${base}/lines`, line);
-    expect(res.status).toBe(201);
-    created.push(res.body);
-  }
-  const filed = await client.post(`${base}/file`, { version: (await client.get(base)).body.version });
-  expect(filed.status).toBe(200);
-  return filed.body;
+function filedReceipt(client: ApiClient, buildId: string, header: object, lines: object[]) {
+  return fileThrough(t, client, buildId, header, lines);
 }
 
 const figures = (ledger: { systems: { name: string }[] }, name: string) => ledger.systems.find((s) => s.name === name) as Record<string, string>;

@@ -208,6 +208,22 @@ const ROUTES: RouteCase[] = [
   { name: 'GET /api/builds/:buildId/exports/tax-ledger.csv', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/exports/tax-ledger.csv`), expected: readable },
   { name: 'GET /api/builds/:buildId/exports/build-sheet.csv', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/exports/build-sheet.csv`), expected: readable },
   { name: 'GET /api/builds/:buildId/exports/archive.zip', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/exports/archive.zip`), expected: readable },
+  { name: 'GET /api/builds/:buildId/review-queue', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/review-queue`), expected: readable },
+  {
+    name: 'POST /api/builds/:buildId/receipts/:receiptId/review',
+    call: async (f, a) => {
+      const { base } = await receiptFor(f, { filed: true });
+      return f.clients[a].post(`${base}/review`, { verdict: 'approved', version: (await f.clients.owner.get(base)).body.version });
+    },
+    expected: { owner: 200, crew: 403, reviewer: 200, outsider: 404, anonymous: 401 },
+  },
+  { name: 'GET /api/builds/:buildId/receipts/:receiptId/comments', call: async (f, a) => f.clients[a].get(`${(await receiptFor(f)).base}/comments`), expected: readable },
+  {
+    name: 'POST /api/builds/:buildId/receipts/:receiptId/comments',
+    call: async (f, a) => f.clients[a].post(`${(await receiptFor(f)).base}/comments`, { body: 'Which car is this for?' }),
+    expected: { owner: 201, crew: 201, reviewer: 201, outsider: 404, anonymous: 401 },
+  },
+  { name: 'GET /api/builds/:buildId/receipts/:receiptId/audit', call: async (f, a) => f.clients[a].get(`${(await receiptFor(f)).base}/audit`), expected: readable },
 ];
 
 let t: TestApp;

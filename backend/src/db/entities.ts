@@ -11,5 +11,6 @@ import { CoreSchema } from '../receipts/core.entity';
 import { ReceiptLineSchema } from '../receipts/receipt-line.entity';
 import { ReceiptSchema } from '../receipts/receipt.entity';
 import { VendorSchema } from '../receipts/vendor.entity';
+import { CommentSchema } from '../review/comment.entity';
 
-export const entities = [UserSchema, PasswordResetSchema, BuildSchema, MembershipSchema, InviteSchema, VehicleSystemSchema, PartSchema, VendorSchema, ReceiptSchema, ReceiptLineSchema, CoreSchema, AuditEventSchema];
+export const entities = [UserSchema, PasswordResetSchema, BuildSchema, MembershipSchema, InviteSchema, VehicleSystemSchema, PartSchema, VendorSchema, ReceiptSchema, ReceiptLineSchema, CoreSchema, AuditEventSchema, CommentSchema];

@@ -35,3 +35,13 @@ export function passwordResetMail(input: { to: string; link: string }): MailMess
     html: html(lines, { href: input.link, label: 'Choose a new password' }),
   };
 }
+
+export function commentMail(input: { to: string; author: string; receiptLabel: string; body: string; link: string }): MailMessage {
+  const lines = [`${input.author} commented on ${input.receiptLabel}:`, input.body];
+  return {
+    to: input.to,
+    subject: `${input.author} commented on ${input.receiptLabel}`,
+    text: `${lines.join('\n\n')}\n\nOpen the receipt: ${input.link}\n`,
+    html: html(lines, { href: input.link, label: 'Open the receipt' }),
+  };
+}

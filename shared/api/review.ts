@@ -1,0 +1,32 @@
+// Request schemas and response types of the partner's review: verdicts, comments and the audit trail.
+import { z } from 'zod';
+
+export const reviewRequest = z
+  .object({
+    verdict: z.enum(['approved', 'questioned'], { error: 'Choose approved or questioned.' }),
+    comment: z.string().trim().max(2000, 'A comment is at most 2000 characters.').default(''),
+    version: z.number({ error: 'Send the version you last saw.' }).int().min(1),
+  })
+  .strict()
+  .refine((value) => value.verdict !== 'questioned' || value.comment.length > 0, { path: ['comment'], message: 'Say what the question is.' });
+export type ReviewRequest = z.input<typeof reviewRequest>;
+
+export const commentRequest = z.object({ body: z.string({ error: 'Write a comment.' }).trim().min(1, 'Write a comment.').max(2000, 'A comment is at most 2000 characters.') }).strict();
+export type CommentRequest = z.input<typeof commentRequest>;
+
+export interface CommentDto {
+  id: string;
+  author: string;
+  body: string;
+  createdAt: string;
+}
+
+export interface AuditEventDto {
+  id: string;
+  who: string;
+  at: string;
+  entity: string;
+  action: string;
+  before: Record<string, unknown> | null;
+  after: Record<string, unknown> | null;
+}
