@@ -72,7 +72,9 @@ it('takes a reviewer from invite mail to a read-only view of the build', async (
   expect(await reviewer.getByRole('button', { name: 'Edit build' }).count()).toBe(0);
   expect(await reviewer.getByRole('link', { name: 'Edit build' }).count()).toBe(0);
 
-  await reviewer.getByRole('link', { name: 'Crew' }).first().click();
+  // On a phone Crew sits in the bottom bar's "More" menu.
+  await reviewer.getByRole('button', { name: 'More' }).click();
+  await reviewer.getByRole('menuitem', { name: 'Crew' }).click();
   await reviewer.getByText('Pat Reviewer').first().waitFor();
   expect(await reviewer.getByRole('button', { name: 'Send invite' }).count()).toBe(0);
   expect(await reviewer.getByRole('combobox', { name: /Role for/ }).count()).toBe(0);

@@ -21,10 +21,12 @@ export interface BuildSection {
  */
 export const BUILD_SECTIONS: readonly BuildSection[] = [
   { path: '.', label: 'Overview', icon: 'directions_car' },
+  { path: 'receipts', label: 'Receipts', icon: 'receipt_long' },
   { path: 'parts', label: 'Parts', icon: 'list_alt' },
   { path: 'budgets', label: 'Budgets', icon: 'savings' },
   { path: 'inventory', label: 'Inventory', icon: 'inventory', phoneBar: false },
-  { path: 'crew', label: 'Crew', icon: 'group' },
+  { path: 'cores', label: 'Cores and returns', icon: 'autorenew', phoneBar: false },
+  { path: 'crew', label: 'Crew', icon: 'group', phoneBar: false },
 ];
 
 @Component({

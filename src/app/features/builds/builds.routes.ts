@@ -20,6 +20,8 @@ export const buildsRoutes: Routes = [
           { path: '', title: 'Build · Tallyhood', component: BuildOverview },
           { path: 'edit', title: 'Edit build · Tallyhood', component: BuildForm },
           { path: 'crew', loadChildren: () => import('../crew/crew.routes').then((m) => m.crewRoutes) },
+          { path: 'receipts', loadChildren: () => import('../receipts/receipts.routes').then((m) => m.receiptsRoutes) },
+          { path: 'cores', loadChildren: () => import('../receipts/receipts.routes').then((m) => m.coresRoutes) },
           // Parts, Budgets and Inventory share one lazy chunk; listed last so other sections never load it.
           { path: '', loadChildren: () => import('../parts/parts.routes').then((m) => m.partsRoutes) },
         ],

@@ -1,0 +1,153 @@
+// Splits one receipt line into shares by system (a kit used by two systems); the shares must add up to the line exactly.
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { FormArray, FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatSelectModule } from '@angular/material/select';
+import type { SystemDto } from '../../../../../shared/api/parts';
+import { Decimal, minorUnits, parseMoney, subtract, sum, toWire } from '../../../../../shared/money';
+import { moneyText } from '../../../ui/money';
+
+export interface SplitDialogData {
+  description: string;
+  amount: string;
+  currency: string;
+  locale: string;
+  systems: SystemDto[];
+  systemId: string | null;
+}
+
+export interface SplitShare {
+  amount: string;
+  systemId: string | null;
+  partId: null;
+}
+
+type ShareGroup = FormGroup<{ amount: FormControl<string>; systemId: FormControl<string> }>;
+
+@Component({
+  selector: 'th-split-dialog',
+  imports: [ReactiveFormsModule, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  template: `
+    <h2 mat-dialog-title>Split "{{ data.description }}"</h2>
+    <mat-dialog-content>
+      <p>Share {{ lineText }} between systems. The shares must add up to the line exactly.</p>
+      <form id="split-form" [formGroup]="form" (ngSubmit)="submit()" novalidate>
+        @for (share of shares.controls; track share; let index = $index) {
+          <div class="share" [formGroup]="share">
+            <mat-form-field subscriptSizing="dynamic">
+              <mat-label>Share {{ index + 1 }} amount</mat-label>
+              <input matInput formControlName="amount" inputmode="decimal" autocomplete="off" class="tabular" (input)="changed()" />
+            </mat-form-field>
+            <mat-form-field subscriptSizing="dynamic">
+              <mat-label>Share {{ index + 1 }} system</mat-label>
+              <mat-select formControlName="systemId">
+                @for (system of data.systems; track system.id) {
+                  <mat-option [value]="system.id">{{ system.name }}</mat-option>
+                }
+              </mat-select>
+            </mat-form-field>
+            @if (shares.length > 2) {
+              <button mat-icon-button type="button" (click)="remove(index)" [attr.aria-label]="'Remove share ' + (index + 1)">
+                <mat-icon aria-hidden="true">delete</mat-icon>
+              </button>
+            }
+          </div>
+        }
+        <button mat-button type="button" (click)="add()"><mat-icon aria-hidden="true">add</mat-icon> Add a share</button>
+      </form>
+      <p class="remaining" [class.off]="!balanced()" role="status">
+        @if (balanced()) {
+          <mat-icon aria-hidden="true">check_circle</mat-icon> The shares add up to the line.
+        } @else {
+          <mat-icon aria-hidden="true">error</mat-icon> {{ remainingText() }}
+        }
+      </p>
+    </mat-dialog-content>
+    <mat-dialog-actions align="end">
+      <button mat-button type="button" mat-dialog-close>Cancel</button>
+      <button mat-flat-button class="cta" type="submit" form="split-form">Split line</button>
+    </mat-dialog-actions>
+  `,
+  styles: `
+    .share {
+      display: flex;
+      gap: 8px;
+      align-items: center;
+      margin-bottom: 8px;
+    }
+    .remaining {
+      display: flex;
+      align-items: center;
+      gap: 4px;
+    }
+    .remaining.off {
+      color: var(--mat-sys-error);
+    }
+  `,
+})
+export class SplitDialog {
+  protected readonly data = inject<SplitDialogData>(MAT_DIALOG_DATA);
+  private readonly dialogRef = inject<MatDialogRef<SplitDialog, SplitShare[]>>(MatDialogRef);
+  private readonly lineAmount = new Decimal(this.data.amount);
+  protected readonly lineText = moneyText(this.data.amount, this.data.currency, this.data.locale);
+  protected readonly shares = new FormArray<ShareGroup>([]);
+  protected readonly form = new FormGroup({ shares: this.shares });
+  private readonly tick = signal(0);
+
+  constructor() {
+    // Start with two halves, the second taking the odd cent, so the shares already add up.
+    const decimals = minorUnits(this.data.currency);
+    const half = this.lineAmount.dividedBy(2).toDecimalPlaces(decimals, Decimal.ROUND_DOWN);
+    this.shares.push(this.share(toWire(half, decimals), this.data.systemId ?? ''));
+    this.shares.push(this.share(toWire(subtract(this.lineAmount, half), decimals), ''));
+  }
+
+  /** The line amount minus the shares entered, or null while a share is not an amount. */
+  private readonly remaining = computed(() => {
+    this.tick();
+    const amounts: Decimal[] = [];
+    for (const share of this.shares.controls) {
+      const parsed = parseMoney(share.controls.amount.value, { maxDecimals: minorUnits(this.data.currency) });
+      if (!parsed.ok) return null;
+      amounts.push(parsed.value);
+    }
+    return subtract(this.lineAmount, sum(amounts));
+  });
+  protected readonly balanced = computed(() => this.remaining()?.isZero() ?? false);
+  protected readonly remainingText = computed(() => {
+    const remaining = this.remaining();
+    if (remaining === null) return 'Enter each share as an amount, such as 12.50.';
+    const text = moneyText(remaining.abs(), this.data.currency, this.data.locale);
+    return remaining.isPositive() ? `${text} of the line is not shared out yet.` : `The shares are ${text} more than the line.`;
+  });
+
+  protected changed(): void {
+    this.tick.update((value) => value + 1);
+  }
+
+  protected add(): void {
+    this.shares.push(this.share('0', ''));
+    this.changed();
+  }
+
+  protected remove(index: number): void {
+    this.shares.removeAt(index);
+    this.changed();
+  }
+
+  protected submit(): void {
+    if (!this.balanced()) return;
+    this.dialogRef.close(
+      this.shares.controls.map((share) => ({ amount: share.controls.amount.value.trim(), systemId: share.controls.systemId.value || null, partId: null })),
+    );
+  }
+
+  private share(amount: string, systemId: string): ShareGroup {
+    return new FormGroup({ amount: new FormControl(amount, { nonNullable: true }), systemId: new FormControl(systemId, { nonNullable: true }) });
+  }
+}

@@ -1,0 +1,286 @@
+// Check screen: the reconciliation follows what is typed, a reviewer gets no inputs, filing sends the version, and reading is polled.
+import { inputBinding } from '@angular/core';
+import { TestBed } from '@angular/core/testing';
+import { HttpTestingController } from '@angular/common/http/testing';
+import { render, screen } from '@testing-library/angular/zoneless';
+import userEvent from '@testing-library/user-event';
+import type { BuildDto } from '../../../../../shared/api/builds';
+import type { SystemDto } from '../../../../../shared/api/parts';
+import type { ReceiptDto, ReceiptLineDto } from '../../../../../shared/api/receipts';
+import type { BuildRole } from '../../../../../shared/enums';
+import { apiTestProviders } from '../../../../testing/api-test-providers';
+import { CurrentBuild } from '../../builds/services/current-build';
+import { ReceiptCheck } from './receipt-check';
+
+const build = (role: BuildRole): BuildDto => ({
+  id: 'b-1',
+  name: 'Teal wagon swap',
+  vehicle: '1979 invented wagon',
+  currency: 'USD',
+  locale: 'en-US',
+  status: 'active',
+  startedOn: null,
+  targetDate: null,
+  archived: false,
+  version: 2,
+  role,
+  createdAt: '2026-01-05T09:00:00.000Z',
+});
+
+const system = (id: string, name: string, safetyCaution = false): SystemDto => ({
+  id,
+  name,
+  budget: '0.00',
+  estimate: '0.00',
+  partCount: 0,
+  sortOrder: 0,
+  archived: false,
+  safetyCaution,
+  version: 1,
+});
+
+const line = (id: string, position: number, description: string, amount: string, systemId: string | null): ReceiptLineDto => ({
+  id,
+  position,
+  kind: 'part',
+  description,
+  partNumber: '',
+  quantity: '1',
+  unitPrice: amount,
+  amount,
+  taxable: true,
+  allocatedTax: '0.00',
+  allocatedShipping: '0.00',
+  allocatedDiscount: '0.00',
+  partId: null,
+  partDescription: null,
+  systemId,
+  returnOfLineId: null,
+  box: { page: 0, x: 10, y: 200, w: 300, h: 20 },
+  confidence: {},
+  version: 1,
+});
+
+// 30.00 + 10.00 + tax 2.00 = 42.00, the printed total.
+const receipt = (extra: Partial<ReceiptDto> = {}): ReceiptDto => ({
+  id: 'r-1',
+  vendorName: 'Ridgeback Parts',
+  purchaseDate: '2026-02-14',
+  receiptNumber: 'A-100',
+  total: '42.00',
+  state: 'to_check',
+  readingProgress: 100,
+  reviewState: 'none',
+  originalFilename: 'slip.png',
+  contentType: 'image/png',
+  lineCount: 2,
+  duplicateOf: [],
+  systemIds: [],
+  uploadedBy: 'u-1',
+  createdAt: '2026-02-14T10:00:00.000Z',
+  version: 3,
+  currency: 'USD',
+  locale: 'en-US',
+  subtotal: '40.00',
+  tax: '2.00',
+  shipping: null,
+  discount: null,
+  differenceAccepted: false,
+  differenceReason: '',
+  readingError: null,
+  reviewComment: '',
+  pages: [{ index: 0, width: 600, height: 900 }],
+  fieldConfidence: { vendor: 0.95, date: 0.5, total: 0.99 },
+  readingNotes: [],
+  lines: [line('l-1', 0, 'Brake hose pair', '30.00', 's-brakes'), line('l-2', 1, 'Shop rags', '10.00', 's-tools')],
+  reconciliation: { linesTotal: '40.00', computedTotal: '42.00', printedTotal: '42.00', difference: '0.00', reconciles: true },
+  editable: true,
+  ...extra,
+});
+
+async function renderAs(role: BuildRole, shown: ReceiptDto) {
+  await render(ReceiptCheck, {
+    providers: [
+      ...apiTestProviders(),
+      {
+        provide: CurrentBuild,
+        useFactory: () => {
+          const current = new CurrentBuild();
+          current.set(build(role));
+          return current;
+        },
+      },
+    ],
+    bindings: [inputBinding('buildId', () => 'b-1'), inputBinding('receiptId', () => 'r-1')],
+  });
+  const http = TestBed.inject(HttpTestingController);
+  http.expectOne('/api/builds/b-1/parts').flush({ parts: [] });
+  http
+    .expectOne('/api/builds/b-1/systems')
+    .flush({ currency: 'USD', systems: [system('s-brakes', 'Brakes', true), system('s-tools', 'Tools and consumables')], contingencyBudget: '0', totalBudget: '0', totalEstimate: '0', buildVersion: 2 });
+  await new Promise((resolve) => setTimeout(resolve, 0));
+  http.expectOne('/api/builds/b-1/receipts/r-1').flush(shown);
+  await screen.findByRole('heading', { name: 'Ridgeback Parts' });
+  return http;
+}
+
+/** The reconciliation's paragraphs as read, one space between them. */
+const reconciliationText = () =>
+  Array.from(document.querySelectorAll('.reconciliation p'))
+    .map((paragraph) => (paragraph.textContent ?? '').replace(/\s+/g, ' ').trim())
+    .join(' ');
+
+describe('ReceiptCheck', () => {
+  it('recomputes the reconciliation live as an amount is typed, with the difference in words', async () => {
+    await renderAs('crew', receipt());
+    expect(reconciliationText()).toBe('Lines $40.00 + tax $2.00 + shipping $0.00 − discount $0.00 = $42.00 check_circle Adds up to the printed total of $42.00.');
+
+    const user = userEvent.setup();
+    const amount = screen.getByRole('textbox', { name: 'Amount, line 2' });
+    await user.clear(amount);
+    await user.type(amount, '10.40');
+    expect(reconciliationText()).toBe(
+      'Lines $40.40 + tax $2.00 + shipping $0.00 − discount $0.00 = $42.40 error The printed total is $0.40 less than the lines, tax and shipping. ' +
+        'Fix an amount, add a fee line, or ask the owner to accept the difference.',
+    );
+    // A crew member cannot file it while it does not add up, and is told why.
+    expect((screen.getByRole('button', { name: /File receipt/ }) as HTMLButtonElement).disabled).toBe(true);
+    expect(screen.getByText('The lines do not add up to the printed total; fix them, or ask the owner to accept the difference.')).toBeTruthy();
+
+    await user.clear(amount);
+    await user.type(amount, 'ten');
+    expect(reconciliationText()).toBe('error Fix the line amounts marked in the table to see the total.');
+  });
+
+  it('marks low-confidence fields, highlights the box of the line in focus and shows the safety caution for brakes', async () => {
+    await renderAs('owner', receipt());
+    expect(screen.getByText('Check this: read with low confidence')).toBeTruthy();
+    expect(screen.getByRole('note').textContent).toContain("manufacturer's instructions");
+    expect(document.querySelector('.box')).toBeNull();
+    screen.getByRole('textbox', { name: 'Description, line 1' }).focus();
+    await screen.findByRole('textbox', { name: 'Description, line 1' });
+    const box = await waitForBox();
+    // 480 px shown for a 600 px page: 0.8 scale.
+    expect([box.style.left, box.style.top, box.style.width, box.style.height]).toEqual(['8px', '160px', '240px', '16px']);
+  });
+
+  it('moves to the next field on Enter and saves the field left, with its version', async () => {
+    const http = await renderAs('crew', receipt());
+    const user = userEvent.setup();
+    const shop = screen.getByRole('textbox', { name: 'Shop' });
+    await user.clear(shop);
+    await user.type(shop, 'Ridgeback Parts & Paint{Enter}');
+    expect(document.activeElement).toBe(screen.getByLabelText('Date', { exact: true }));
+    const save = await nextRequest(http, '/api/builds/b-1/receipts/r-1');
+    expect(save.request.method).toBe('PATCH');
+    expect(save.request.body).toEqual({ vendorName: 'Ridgeback Parts & Paint', version: 3 });
+    save.flush(receipt({ vendorName: 'Ridgeback Parts & Paint', version: 4 }));
+  });
+
+  it('gives a reviewer the figures without any input or filing button', async () => {
+    await renderAs('reviewer', receipt({ editable: false }));
+    expect(screen.queryAllByRole('textbox')).toEqual([]);
+    expect(screen.queryAllByRole('combobox')).toEqual([]);
+    expect(screen.queryByRole('button', { name: /File receipt/ })).toBeNull();
+    expect(screen.getByText('Brake hose pair')).toBeTruthy();
+    expect(screen.getByText('Feb 14, 2026')).toBeTruthy();
+    expect(screen.getByText('You can read this receipt; the owner and crew change it.')).toBeTruthy();
+  });
+
+  it('files with the version it last saw, and says which line blocks it when the server refuses', async () => {
+    const http = await renderAs('crew', receipt());
+    const user = userEvent.setup();
+    await user.click(screen.getByRole('button', { name: /File receipt/ }));
+    const request = http.expectOne('/api/builds/b-1/receipts/r-1/file');
+    expect(request.request.method).toBe('POST');
+    expect(request.request.body).toEqual({ version: 3 });
+    request.flush(
+      { error: { code: 'validation_failed', message: 'Assign every line.', fields: { 'lines.1.systemId': 'Assign this line to a system.' } } },
+      { status: 400, statusText: 'Bad Request' },
+    );
+    expect(await screen.findByText('Line 2: Assign this line to a system.')).toBeTruthy();
+
+    await user.click(screen.getByRole('button', { name: /File receipt/ }));
+    http.expectOne('/api/builds/b-1/receipts/r-1/file').flush(receipt({ state: 'filed', version: 4, editable: false }));
+    expect(await screen.findByText(/Filed\./)).toBeTruthy();
+  });
+
+  it("lets the owner accept a difference with a reason, sent with the filing", async () => {
+    // Printed 42.40 against 42.00 worked out: the printed total is 0.40 more.
+    const http = await renderAs('owner', receipt({ total: '42.40' }));
+    const user = userEvent.setup();
+    expect(screen.queryByRole('button', { name: /^File receipt/ })).toBeNull();
+    await user.click(screen.getByRole('button', { name: /Accept the difference and file/ }));
+    expect(await screen.findByText(/The printed total is \$0\.40 more than the lines, tax and shipping\. Say why/)).toBeTruthy();
+    await user.click(screen.getByRole('button', { name: 'Accept and file' }));
+    expect(await screen.findByText('Say why the difference is accepted.')).toBeTruthy();
+    http.expectNone('/api/builds/b-1/receipts/r-1/file');
+    await user.type(screen.getByRole('textbox', { name: 'Reason' }), 'Card surcharge not itemised');
+    await user.click(screen.getByRole('button', { name: 'Accept and file' }));
+    // Sent once the dialog has closed.
+    const request = await nextRequest(http, '/api/builds/b-1/receipts/r-1/file');
+    expect(request.request.body).toEqual({ version: 3, acceptDifference: { reason: 'Card surcharge not itemised' } });
+    request.flush(receipt({ total: '42.40', state: 'filed', version: 4, differenceAccepted: true, differenceReason: 'Card surcharge not itemised' }));
+    expect(await screen.findByText(/Difference accepted: Card surcharge not itemised/)).toBeTruthy();
+  });
+
+  it('keeps filing disabled with the reason while a line is unassigned', async () => {
+    await renderAs('owner', receipt({ lines: [line('l-1', 0, 'Brake hose pair', '30.00', 's-brakes'), line('l-2', 1, 'Shop rags', '10.00', null)] }));
+    expect((screen.getByRole('button', { name: /File receipt/ }) as HTMLButtonElement).disabled).toBe(true);
+    expect(screen.getByText('Assign the last line to a part or a system before filing.')).toBeTruthy();
+  });
+
+  it('polls every second while reading, showing the progress, and stops once it is ready', async () => {
+    jest.useFakeTimers({ doNotFake: ['nextTick', 'setImmediate'] });
+    try {
+      await render(ReceiptCheck, {
+        providers: [
+          ...apiTestProviders(),
+          {
+            provide: CurrentBuild,
+            useFactory: () => {
+              const current = new CurrentBuild();
+              current.set(build('crew'));
+              return current;
+            },
+          },
+        ],
+        bindings: [inputBinding('buildId', () => 'b-1'), inputBinding('receiptId', () => 'r-1')],
+      });
+      const http = TestBed.inject(HttpTestingController);
+      http.match('/api/builds/b-1/parts');
+      http.match('/api/builds/b-1/systems');
+      await jest.advanceTimersByTimeAsync(0);
+      http.expectOne('/api/builds/b-1/receipts/r-1').flush(receipt({ state: 'reading', readingProgress: 40, lines: [] }));
+      await jest.advanceTimersByTimeAsync(0);
+      expect(screen.getByText('Reading the receipt: 40%')).toBeTruthy();
+      await jest.advanceTimersByTimeAsync(1000);
+      http.expectOne('/api/builds/b-1/receipts/r-1').flush(receipt());
+      await jest.advanceTimersByTimeAsync(3000);
+      http.expectNone('/api/builds/b-1/receipts/r-1');
+      expect(screen.queryByText(/Reading the receipt/)).toBeNull();
+      expect(screen.getByRole('textbox', { name: 'Description, line 1' })).toBeTruthy();
+    } finally {
+      jest.useRealTimers();
+    }
+  });
+});
+
+/** Waits for a request that is sent after an animation or a queued save. */
+async function nextRequest(http: HttpTestingController, url: string) {
+  for (let attempt = 0; attempt < 50; attempt++) {
+    const [request] = http.match(url);
+    if (request) return request;
+    await new Promise((resolve) => setTimeout(resolve, 10));
+  }
+  return http.expectOne(url);
+}
+
+async function waitForBox(): Promise<HTMLElement> {
+  for (let attempt = 0; attempt < 20; attempt++) {
+    const box = document.querySelector<HTMLElement>('.box');
+    if (box) return box;
+    await new Promise((resolve) => setTimeout(resolve, 10));
+  }
+  throw new Error('No highlighted box');
+}

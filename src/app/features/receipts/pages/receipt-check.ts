@@ -1,0 +1,1138 @@
+// /builds/:buildId/receipts/:receiptId: the page image beside the read fields and lines, corrected by keyboard, reconciled live, then filed.
+import { ChangeDetectionStrategy, Component, DestroyRef, ElementRef, computed, effect, inject, input, signal, untracked } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { FormArray, FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
+import { MatAutocompleteModule, MatAutocompleteSelectedEvent } from '@angular/material/autocomplete';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatDialog } from '@angular/material/dialog';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatMenuModule } from '@angular/material/menu';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { RouterLink } from '@angular/router';
+import { Observable, Subscription, firstValueFrom, switchMap, takeWhile, timer } from 'rxjs';
+import type { PartDto, SystemDto } from '../../../../../shared/api/parts';
+import type { FileReceiptRequest, ReceiptDto, ReceiptLineDto, UpdateLineRequest, UpdateReceiptRequest } from '../../../../../shared/api/receipts';
+import { RECEIPT_LINE_KINDS, RECEIPT_LINE_KIND_LABELS, RECEIPT_STATE_LABELS, ReceiptLineKind } from '../../../../../shared/enums';
+import { parseMoney } from '../../../../../shared/money';
+import { SAFETY_CAUTION } from '../../../../../shared/safety';
+import { ApiError, toApiError } from '../../../core/http/api-error';
+import { errorOf } from '../../../core/forms/form-errors';
+import { formatCalendarDate } from '../../../ui/dates';
+import { moneyText } from '../../../ui/money';
+import { CurrentBuild } from '../../builds/services/current-build';
+import { PartsApi } from '../../parts/services/parts-api';
+import { SystemsApi } from '../../parts/services/systems-api';
+import { AcceptDifferenceData, AcceptDifferenceDialog } from '../components/accept-difference-dialog';
+import { ReturnLinkData, ReturnLinkDialog } from '../components/return-link-dialog';
+import { SplitDialog, SplitDialogData, SplitShare } from '../components/split-dialog';
+import { liveReconciliation } from '../models/live-reconciliation';
+import { ReceiptsApi } from '../services/receipts-api';
+
+/** Below this reading confidence a field is marked "check this". */
+const LOW_CONFIDENCE = 0.8;
+
+const HEADER_FIELDS = [
+  { name: 'vendorName', label: 'Shop', confidence: 'vendor', money: false },
+  { name: 'purchaseDate', label: 'Date', confidence: 'date', money: false },
+  { name: 'receiptNumber', label: 'Receipt no.', confidence: 'receiptNumber', money: false },
+  { name: 'subtotal', label: 'Subtotal', confidence: 'subtotal', money: true },
+  { name: 'tax', label: 'Tax', confidence: 'tax', money: true },
+  { name: 'shipping', label: 'Shipping', confidence: 'shipping', money: true },
+  { name: 'discount', label: 'Discount', confidence: 'discount', money: true },
+  { name: 'total', label: 'Total', confidence: 'total', money: true },
+] as const;
+type HeaderName = (typeof HEADER_FIELDS)[number]['name'];
+
+const LINE_TEXT_FIELDS = ['description', 'partNumber', 'quantity', 'unitPrice', 'amount'] as const;
+type LineTextField = (typeof LINE_TEXT_FIELDS)[number];
+
+function lineGroup(line: ReceiptLineDto) {
+  return new FormGroup({
+    kind: new FormControl<ReceiptLineKind>(line.kind, { nonNullable: true }),
+    description: new FormControl(line.description, { nonNullable: true }),
+    partNumber: new FormControl(line.partNumber, { nonNullable: true }),
+    quantity: new FormControl(line.quantity, { nonNullable: true }),
+    unitPrice: new FormControl(line.unitPrice ?? '', { nonNullable: true }),
+    amount: new FormControl(line.amount, { nonNullable: true }),
+    taxable: new FormControl(line.taxable, { nonNullable: true }),
+    systemId: new FormControl(line.systemId ?? '', { nonNullable: true }),
+  });
+}
+type LineGroup = ReturnType<typeof lineGroup>;
+
+@Component({
+  selector: 'th-receipt-check',
+  imports: [
+    ReactiveFormsModule,
+    MatAutocompleteModule,
+    MatButtonModule,
+    MatCheckboxModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatMenuModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    RouterLink,
+  ],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  template: `
+    @if (busy()) {
+      <mat-progress-bar mode="indeterminate" aria-label="Saving" />
+    }
+    <div class="page check-page">
+      <a mat-button routerLink=".." class="back"><mat-icon aria-hidden="true">arrow_back</mat-icon> All receipts</a>
+      @if (problem()) {
+        <p class="notice notice-error" role="alert">{{ problem() }}</p>
+      }
+      @if (receipt(); as receipt) {
+        <div class="title-row">
+          <h1 class="page-heading">{{ receipt.vendorName || receipt.originalFilename }}</h1>
+          <span class="state-label">{{ stateLabels[receipt.state] }}</span>
+          <a mat-button [href]="documentUrl()" target="_blank" rel="noopener">
+            <mat-icon aria-hidden="true">open_in_new</mat-icon> Original file
+          </a>
+        </div>
+
+        @if (receipt.state === 'queued' || receipt.state === 'reading') {
+          <section class="reading" aria-live="polite">
+            <p>{{ receipt.state === 'queued' ? 'Waiting for the reader to start…' : 'Reading the receipt: ' + receipt.readingProgress + '%' }}</p>
+            <mat-progress-bar mode="determinate" [value]="receipt.readingProgress" aria-label="Reading progress" />
+            <p class="muted">This usually takes a few seconds. You can leave this page; the receipt keeps reading.</p>
+          </section>
+        } @else if (receipt.state === 'failed') {
+          <p class="notice notice-error" role="alert">
+            This receipt could not be read{{ receipt.readingError ? ': ' + receipt.readingError : '.' }} Try a sharper photo in good
+            light, or add the lines by hand below.
+          </p>
+        }
+
+        @if (receipt.state !== 'queued' && receipt.state !== 'reading') {
+          @if (receipt.duplicateOf.length > 0) {
+            <p class="notice warn" role="note">
+              <mat-icon aria-hidden="true">content_copy</mat-icon>
+              <span>
+                Possible duplicate:
+                @for (id of receipt.duplicateOf; track id; let last = $last) {
+                  <a [routerLink]="['..', id]">another receipt</a>{{ last ? '' : ', ' }}
+                }
+                has the same shop, date and total, or the same file. Check before filing it twice.
+              </span>
+            </p>
+          }
+          @if (receipt.readingNotes.length > 0) {
+            <ul class="notes" aria-label="Notes from reading">
+              @for (note of receipt.readingNotes; track note) {
+                <li><mat-icon aria-hidden="true">info</mat-icon> {{ note }}</li>
+              }
+            </ul>
+          }
+          @if (!receipt.editable) {
+            <p class="notice" role="note">
+              <mat-icon aria-hidden="true">lock</mat-icon>
+              {{ receipt.state === 'filed' ? 'This receipt is filed; only the owner can reopen it to change it.' : 'You can read this receipt; the owner and crew change it.' }}
+            </p>
+          }
+
+          <div class="check">
+            <section class="pages" aria-label="Receipt image">
+              @if (receipt.pages.length > 0) {
+                <div class="zoom" role="group" aria-label="Zoom">
+                  <button mat-icon-button type="button" (click)="zoomBy(-0.25)" [disabled]="zoom() <= 0.5" aria-label="Zoom out">
+                    <mat-icon aria-hidden="true">zoom_out</mat-icon>
+                  </button>
+                  <span class="tabular">{{ zoomPercent() }}%</span>
+                  <button mat-icon-button type="button" (click)="zoomBy(0.25)" [disabled]="zoom() >= 3" aria-label="Zoom in">
+                    <mat-icon aria-hidden="true">zoom_in</mat-icon>
+                  </button>
+                </div>
+                <div class="page-scroll" tabindex="0" role="region" aria-label="Receipt pages, scroll to pan">
+                  @for (page of receipt.pages; track page.index) {
+                    <div class="page-image" [style.width.px]="pageWidth()" [style.height.px]="page.height * scaleOf(page.width)">
+                      <img [src]="pageUrl(page.index)" [alt]="'Page ' + (page.index + 1) + ' of the receipt'" [width]="pageWidth()" />
+                      @if (activeBox(); as box) {
+                        @if (box.page === page.index) {
+                          <span
+                            class="box"
+                            aria-hidden="true"
+                            [style.left.px]="box.x * scaleOf(page.width)"
+                            [style.top.px]="box.y * scaleOf(page.width)"
+                            [style.width.px]="box.w * scaleOf(page.width)"
+                            [style.height.px]="box.h * scaleOf(page.width)"
+                          ></span>
+                        }
+                      }
+                    </div>
+                  }
+                </div>
+              } @else {
+                <p class="muted"><mat-icon aria-hidden="true">description</mat-icon> No page image; open the original file to see it.</p>
+              }
+            </section>
+
+            <section class="fields" aria-label="What was read">
+              @if (editable()) {
+                <form [formGroup]="header" class="header-fields" (keydown.enter)="nextField($event)" novalidate>
+                  @for (field of headerFields; track field.name) {
+                    <mat-form-field subscriptSizing="dynamic" [class.money]="field.money">
+                      <mat-label>{{ field.label }}</mat-label>
+                      <input
+                        matInput
+                        [formControlName]="field.name"
+                        [type]="field.name === 'purchaseDate' ? 'date' : 'text'"
+                        [attr.inputmode]="field.money ? 'decimal' : null"
+                        [class.tabular]="field.money"
+                        autocomplete="off"
+                        (change)="saveHeader(field.name)"
+                      />
+                      @if (isLow(field.confidence)) {
+                        <mat-icon matIconSuffix class="low" aria-hidden="true">help</mat-icon>
+                      }
+                      @if (isLow(field.confidence)) {
+                        <mat-hint class="low">Check this: read with low confidence</mat-hint>
+                      }
+                      <mat-error>{{ errorOf(header.controls[field.name]) }}</mat-error>
+                    </mat-form-field>
+                  }
+                </form>
+              } @else {
+                <dl class="header-read">
+                  @for (field of headerFields; track field.name) {
+                    <div>
+                      <dt>{{ field.label }}</dt>
+                      <dd [class.tabular]="field.money">{{ readValue(field.name, field.money) }}</dd>
+                    </div>
+                  }
+                </dl>
+              }
+            </section>
+          </div>
+
+          <section class="lines" aria-labelledby="lines-heading">
+            <div class="lines-header">
+              <h2 id="lines-heading" class="section-heading">Lines</h2>
+              @if (editable()) {
+                <div class="lines-actions">
+                  @if (selected().size >= 2) {
+                    <button mat-stroked-button type="button" (click)="mergeSelected()" [disabled]="busy()">
+                      <mat-icon aria-hidden="true">merge</mat-icon> Merge {{ selected().size }} lines
+                    </button>
+                  }
+                  <button mat-stroked-button type="button" (click)="addLine()" [disabled]="busy()">
+                    <mat-icon aria-hidden="true">add</mat-icon> Add a line
+                  </button>
+                </div>
+              }
+            </div>
+            @if (showCaution()) {
+              <p class="notice caution" role="note">
+                <mat-icon aria-hidden="true">health_and_safety</mat-icon>
+                <span>{{ safetyCaution }}</span>
+              </p>
+            }
+            <div class="table-scroll" role="region" aria-labelledby="lines-heading" tabindex="0">
+              <table class="line-table" (keydown.enter)="nextField($event)">
+                <thead>
+                  <tr>
+                    @if (editable()) {
+                      <th scope="col" class="select-cell"><span class="visually-hidden">Select</span></th>
+                    }
+                    <th scope="col">Kind</th>
+                    <th scope="col">Description</th>
+                    <th scope="col">Part no.</th>
+                    <th scope="col" class="number">Qty</th>
+                    <th scope="col" class="number">Unit price</th>
+                    <th scope="col" class="number">Amount</th>
+                    <th scope="col">Assigned to</th>
+                    @if (editable()) {
+                      <th scope="col"><span class="visually-hidden">More</span></th>
+                    }
+                  </tr>
+                </thead>
+                <tbody>
+                  @for (line of receipt.lines; track line.id; let index = $index) {
+                    @let group = lineForms.at(index);
+                    <tr
+                      [class.active]="activeLineId() === line.id"
+                      (mouseenter)="activeLineId.set(line.id)"
+                      (focusin)="activeLineId.set(line.id)"
+                    >
+                      @if (editable() && group) {
+                        <td class="select-cell">
+                          <mat-checkbox
+                            [checked]="selected().has(line.id)"
+                            (change)="toggleSelected(line.id, $event.checked)"
+                            [aria-label]="'Select line ' + (index + 1) + ' to merge'"
+                          />
+                        </td>
+                        <td [formGroup]="group">
+                          <mat-form-field subscriptSizing="dynamic" class="kind-field">
+                            <mat-select formControlName="kind" [aria-label]="'Kind of line ' + (index + 1)" (selectionChange)="saveLine(line, 'kind')">
+                              @for (kind of kinds; track kind) {
+                                <mat-option [value]="kind">{{ kindLabels[kind] }}</mat-option>
+                              }
+                            </mat-select>
+                          </mat-form-field>
+                        </td>
+                        @for (field of lineTextFields; track field) {
+                          <td [formGroup]="group" [class.number]="field !== 'description' && field !== 'partNumber'">
+                            <mat-form-field subscriptSizing="dynamic" [class]="'line-field field-' + field">
+                              <input
+                                matInput
+                                [formControlName]="field"
+                                autocomplete="off"
+                                [attr.inputmode]="field === 'description' || field === 'partNumber' ? null : 'decimal'"
+                                [class.tabular]="field !== 'description' && field !== 'partNumber'"
+                                [attr.aria-label]="lineFieldLabels[field] + ', line ' + (index + 1)"
+                                (change)="saveLine(line, field)"
+                              />
+                              @if (isLowLine(line, field)) {
+                                <mat-icon matIconSuffix class="low" aria-hidden="true">help</mat-icon>
+                              }
+                            </mat-form-field>
+                            @if (isLowLine(line, field)) {
+                              <span class="low low-note">Check this</span>
+                            }
+                            @if (group.controls[field].errors) {
+                              <span class="field-error" role="alert">{{ errorOf(group.controls[field]) }}</span>
+                            }
+                          </td>
+                        }
+                        <td class="assign" [formGroup]="group">
+                          <mat-form-field subscriptSizing="dynamic" class="part-field">
+                            <input
+                              matInput
+                              [matAutocomplete]="partPicker"
+                              [value]="line.partDescription ?? ''"
+                              (input)="partQuery.set($any($event.target).value)"
+                              (focus)="partQuery.set('')"
+                              placeholder="Part"
+                              [attr.aria-label]="'Part for line ' + (index + 1) + ', type a part number or description'"
+                              autocomplete="off"
+                            />
+                            <mat-autocomplete #partPicker="matAutocomplete" [displayWith]="partLabel" (optionSelected)="assignPart(line, $event)">
+                              <mat-option [value]="null">No part, system only</mat-option>
+                              @for (part of matchingParts(); track part.id) {
+                                <mat-option [value]="part.id">{{ part.partNumber ? part.partNumber + ' · ' : '' }}{{ part.description }}</mat-option>
+                              }
+                            </mat-autocomplete>
+                          </mat-form-field>
+                          <mat-form-field subscriptSizing="dynamic" class="system-field">
+                            <mat-select
+                              formControlName="systemId"
+                              placeholder="System"
+                              [aria-label]="'System for line ' + (index + 1)"
+                              (selectionChange)="saveLine(line, 'systemId')"
+                            >
+                              <mat-option value="">Not assigned</mat-option>
+                              @for (system of systems(); track system.id) {
+                                <mat-option [value]="system.id">{{ system.name }}</mat-option>
+                              }
+                            </mat-select>
+                          </mat-form-field>
+                          @if (!line.systemId) {
+                            <span class="unassigned"><mat-icon aria-hidden="true">error_outline</mat-icon> Not assigned</span>
+                          }
+                          @if (line.kind === 'return') {
+                            <span class="return-link">{{ line.returnOfLineId ? 'Linked to the purchase it returns' : 'Not linked to a purchase yet' }}</span>
+                          }
+                          @if (lineProblems()[line.id]; as message) {
+                            <span class="field-error" role="alert">{{ message }}</span>
+                          }
+                        </td>
+                        <td>
+                          <button mat-icon-button type="button" [matMenuTriggerFor]="lineMenu" [attr.aria-label]="'More for line ' + (index + 1)">
+                            <mat-icon aria-hidden="true">more_vert</mat-icon>
+                          </button>
+                          <mat-menu #lineMenu="matMenu">
+                            <button mat-menu-item type="button" (click)="newPartFrom(line)">
+                              <mat-icon aria-hidden="true">playlist_add</mat-icon> New part from this line
+                            </button>
+                            @if (line.kind === 'return') {
+                              <button mat-menu-item type="button" (click)="linkReturn(line)">
+                                <mat-icon aria-hidden="true">link</mat-icon> Link the returned purchase
+                              </button>
+                            }
+                            <button mat-menu-item type="button" (click)="split(line)">
+                              <mat-icon aria-hidden="true">call_split</mat-icon> Split across systems
+                            </button>
+                            <button mat-menu-item type="button" (click)="removeLine(line)">
+                              <mat-icon aria-hidden="true">delete</mat-icon> Delete line
+                            </button>
+                          </mat-menu>
+                        </td>
+                      } @else {
+                        <td>{{ kindLabels[line.kind] }}</td>
+                        <td>{{ line.description }}</td>
+                        <td>{{ line.partNumber }}</td>
+                        <td class="number tabular">{{ line.quantity }}</td>
+                        <td class="number tabular">{{ money(line.unitPrice, 4) }}</td>
+                        <td class="number tabular">{{ money(line.amount) }}</td>
+                        <td>{{ line.partDescription ?? systemName(line.systemId) }}</td>
+                      }
+                    </tr>
+                  } @empty {
+                    <tr>
+                      <td colspan="9" class="muted">No lines were read. {{ editable() ? 'Add the lines by hand with "Add a line".' : '' }}</td>
+                    </tr>
+                  }
+                </tbody>
+              </table>
+            </div>
+
+            <div class="reconciliation" role="status" aria-live="polite" aria-label="Reconciliation">
+              @if (live(); as live) {
+                @if (live.ok) {
+                  <p class="sum tabular">
+                    Lines {{ money(live.result.linesTotal) }} + tax {{ money(header.controls.tax.value || '0') }} + shipping
+                    {{ money(header.controls.shipping.value || '0') }} − discount {{ money(header.controls.discount.value || '0') }} =
+                    <strong class="computed">{{ money(live.result.computedTotal) }}</strong>
+                  </p>
+                  @if (live.result.difference === null) {
+                    <p class="off"><mat-icon aria-hidden="true">error</mat-icon> No printed total: enter the total from the receipt above.</p>
+                  } @else if (live.result.reconciles) {
+                    <p class="ok"><mat-icon aria-hidden="true">check_circle</mat-icon> Adds up to the printed total of {{ money(live.result.printedTotal) }}.</p>
+                  } @else {
+                    <p class="off difference">
+                      <mat-icon aria-hidden="true">error</mat-icon> {{ differenceText() }}. Fix an amount, add a fee line, or
+                      {{ isOwner() ? 'accept the difference with a reason.' : 'ask the owner to accept the difference.' }}
+                    </p>
+                  }
+                } @else {
+                  <p class="off"><mat-icon aria-hidden="true">error</mat-icon> {{ live.message }}</p>
+                }
+              }
+            </div>
+
+            @if (receipt.state === 'filed') {
+              <p class="filed"><mat-icon aria-hidden="true">task_alt</mat-icon> Filed.{{ receipt.differenceAccepted ? ' Difference accepted: ' + receipt.differenceReason : '' }}</p>
+              @if (isOwner()) {
+                <button mat-stroked-button type="button" (click)="reopen()" [disabled]="busy()">
+                  <mat-icon aria-hidden="true">lock_open</mat-icon> Reopen to change it
+                </button>
+              }
+            } @else if (editable()) {
+              <div class="file-row">
+                @if (canAcceptDifference()) {
+                  <button mat-flat-button class="cta" type="button" (click)="acceptAndFile()" [disabled]="busy()">
+                    <mat-icon aria-hidden="true">task_alt</mat-icon> Accept the difference and file
+                  </button>
+                } @else {
+                  <button mat-flat-button class="cta" type="button" (click)="file()" [disabled]="busy() || !!fileBlocker()" aria-describedby="file-reason">
+                    <mat-icon aria-hidden="true">task_alt</mat-icon> File receipt
+                  </button>
+                }
+                <span id="file-reason" class="file-reason">{{ fileBlocker() }}</span>
+              </div>
+              @if (fileProblems().length > 0) {
+                <ul class="file-problems" role="alert">
+                  @for (message of fileProblems(); track message) {
+                    <li>{{ message }}</li>
+                  }
+                </ul>
+              }
+            }
+          </section>
+        }
+      }
+    </div>
+  `,
+  styles: `
+    .check-page {
+      max-width: 1400px;
+    }
+    .back {
+      margin-left: -12px;
+    }
+    .title-row {
+      display: flex;
+      flex-wrap: wrap;
+      align-items: baseline;
+      gap: 8px 16px;
+    }
+    .state-label {
+      font: var(--mat-sys-label-large);
+      color: var(--mat-sys-primary);
+    }
+    .muted {
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .warn,
+    .caution,
+    .notice {
+      display: flex;
+      gap: 8px;
+      align-items: flex-start;
+    }
+    .caution {
+      background: var(--mat-sys-tertiary-container);
+      color: var(--mat-sys-on-tertiary-container);
+    }
+    .notes {
+      list-style: none;
+      padding: 0;
+      margin: 0 0 12px;
+    }
+    .notes li {
+      display: flex;
+      gap: 6px;
+      align-items: center;
+    }
+    .check {
+      display: grid;
+      grid-template-columns: minmax(0, 1fr) minmax(0, 1fr);
+      gap: 16px;
+      align-items: start;
+    }
+    @media (max-width: 899.98px) {
+      .check {
+        grid-template-columns: minmax(0, 1fr);
+      }
+    }
+    .zoom {
+      display: flex;
+      align-items: center;
+      gap: 4px;
+    }
+    .page-scroll {
+      max-height: 70vh;
+      overflow: auto;
+      border: 1px solid var(--mat-sys-outline-variant);
+      border-radius: 8px;
+      background: var(--mat-sys-surface-container);
+    }
+    .page-image {
+      position: relative;
+      margin: 0 auto 8px;
+    }
+    .page-image img {
+      display: block;
+      height: auto;
+    }
+    .box {
+      position: absolute;
+      outline: 3px solid var(--th-brass, #b8892b);
+      background: color-mix(in srgb, var(--th-brass, #b8892b) 18%, transparent);
+      border-radius: 2px;
+      pointer-events: none;
+    }
+    .header-fields {
+      display: grid;
+      grid-template-columns: repeat(auto-fill, minmax(180px, 1fr));
+      gap: 12px;
+    }
+    .header-read {
+      display: grid;
+      grid-template-columns: repeat(auto-fill, minmax(160px, 1fr));
+      gap: 12px;
+      margin: 0;
+    }
+    .header-read dt {
+      font: var(--mat-sys-label-medium);
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .header-read dd {
+      margin: 0;
+      font: var(--mat-sys-body-large);
+    }
+    .low {
+      color: var(--mat-sys-error);
+    }
+    .low-note {
+      display: block;
+      font: var(--mat-sys-body-small);
+    }
+    .section-heading {
+      font: var(--mat-sys-title-large);
+      margin: 0;
+    }
+    .lines {
+      margin-top: 24px;
+    }
+    .lines-header {
+      display: flex;
+      flex-wrap: wrap;
+      align-items: center;
+      justify-content: space-between;
+      gap: 8px;
+      margin-bottom: 8px;
+    }
+    .lines-actions {
+      display: flex;
+      gap: 8px;
+    }
+    .table-scroll {
+      overflow-x: auto;
+    }
+    .line-table {
+      border-collapse: collapse;
+      width: 100%;
+    }
+    .line-table th {
+      text-align: left;
+      font: var(--mat-sys-label-large);
+      padding: 8px 4px;
+      border-bottom: 1px solid var(--mat-sys-outline-variant);
+    }
+    .line-table td {
+      padding: 4px;
+      vertical-align: top;
+      border-bottom: 1px solid var(--mat-sys-outline-variant);
+    }
+    .line-table tr.active td {
+      background: color-mix(in srgb, var(--th-brass, #b8892b) 10%, transparent);
+    }
+    .number {
+      text-align: right;
+    }
+    .kind-field {
+      width: 140px;
+    }
+    .field-description {
+      min-width: 200px;
+      width: 100%;
+    }
+    .field-partNumber {
+      width: 110px;
+    }
+    .field-quantity {
+      width: 72px;
+    }
+    .field-unitPrice,
+    .field-amount {
+      width: 104px;
+    }
+    .assign {
+      min-width: 220px;
+    }
+    .part-field,
+    .system-field {
+      width: 100%;
+    }
+    .assign > span {
+      display: flex;
+      align-items: center;
+      gap: 4px;
+      font: var(--mat-sys-body-small);
+    }
+    .unassigned,
+    .field-error {
+      color: var(--mat-sys-error);
+      font: var(--mat-sys-body-small);
+    }
+    .reconciliation {
+      margin-top: 12px;
+      padding: 12px 16px;
+      border-radius: 12px;
+      background: var(--mat-sys-surface-container-low);
+    }
+    .reconciliation p {
+      margin: 4px 0;
+      display: flex;
+      align-items: flex-start;
+      gap: 6px;
+    }
+    .reconciliation p.sum {
+      display: block;
+    }
+    .ok {
+      color: var(--mat-sys-primary);
+    }
+    .off {
+      color: var(--mat-sys-error);
+    }
+    .file-row {
+      display: flex;
+      flex-wrap: wrap;
+      align-items: center;
+      gap: 12px;
+      margin-top: 16px;
+    }
+    .file-reason {
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .file-problems {
+      color: var(--mat-sys-error);
+    }
+    .filed {
+      display: flex;
+      gap: 6px;
+      align-items: center;
+      color: var(--mat-sys-primary);
+    }
+  `,
+})
+export class ReceiptCheck {
+  private readonly receiptsApi = inject(ReceiptsApi);
+  private readonly partsApi = inject(PartsApi);
+  private readonly systemsApi = inject(SystemsApi);
+  private readonly dialog = inject(MatDialog);
+  private readonly destroyRef = inject(DestroyRef);
+  private readonly host = inject<ElementRef<HTMLElement>>(ElementRef);
+  protected readonly current = inject(CurrentBuild);
+
+  /** Route parameters, bound by the router. */
+  readonly buildId = input.required<string>();
+  readonly receiptId = input.required<string>();
+
+  protected readonly headerFields = HEADER_FIELDS;
+  protected readonly lineTextFields = LINE_TEXT_FIELDS;
+  protected readonly lineFieldLabels: Record<LineTextField, string> = {
+    description: 'Description',
+    partNumber: 'Part number',
+    quantity: 'Quantity',
+    unitPrice: 'Unit price',
+    amount: 'Amount',
+  };
+  protected readonly kinds = RECEIPT_LINE_KINDS;
+  protected readonly kindLabels = RECEIPT_LINE_KIND_LABELS;
+  protected readonly stateLabels = RECEIPT_STATE_LABELS;
+  protected readonly safetyCaution = SAFETY_CAUTION;
+  protected readonly errorOf = errorOf;
+
+  protected readonly receipt = signal<ReceiptDto | null>(null);
+  protected readonly parts = signal<PartDto[]>([]);
+  protected readonly systems = signal<SystemDto[]>([]);
+  protected readonly problem = signal('');
+  protected readonly busy = signal(false);
+  protected readonly activeLineId = signal<string | null>(null);
+  protected readonly selected = signal<ReadonlySet<string>>(new Set());
+  protected readonly partQuery = signal('');
+  /** Phones start smaller, so the slip fits the screen's width before the person zooms in. */
+  protected readonly zoom = signal(globalThis.matchMedia?.('(max-width: 599.98px)').matches ? 0.7 : 1);
+  protected readonly lineProblems = signal<Record<string, string>>({});
+  protected readonly fileProblems = signal<string[]>([]);
+
+  protected readonly header = new FormGroup({
+    vendorName: new FormControl('', { nonNullable: true }),
+    purchaseDate: new FormControl('', { nonNullable: true }),
+    receiptNumber: new FormControl('', { nonNullable: true }),
+    subtotal: new FormControl('', { nonNullable: true }),
+    tax: new FormControl('', { nonNullable: true }),
+    shipping: new FormControl('', { nonNullable: true }),
+    discount: new FormControl('', { nonNullable: true }),
+    total: new FormControl('', { nonNullable: true }),
+  });
+  protected readonly lineForms = new FormArray<LineGroup>([]);
+  /** Bumped on every keystroke, so the live reconciliation (a computed) follows the forms. */
+  private readonly formTick = signal(0);
+  /** Saves run one after another, so each sends the version the previous one answered with. */
+  private saving: Promise<unknown> = Promise.resolve();
+  private polling: Subscription | null = null;
+
+  protected readonly currency = computed(() => this.receipt()?.currency ?? this.current.build()?.currency ?? '');
+  protected readonly locale = computed(() => this.receipt()?.locale ?? this.current.build()?.locale ?? 'en-US');
+  protected readonly editable = computed(() => this.receipt()?.editable ?? false);
+  protected readonly isOwner = computed(() => this.current.build()?.role === 'owner');
+  protected readonly zoomPercent = computed(() => Math.round(this.zoom() * 100));
+  protected readonly pageWidth = computed(() => Math.round(480 * this.zoom()));
+  protected readonly documentUrl = computed(() => this.receiptsApi.documentUrl(this.buildId(), this.receiptId()));
+
+  protected readonly activeBox = computed(() => this.receipt()?.lines.find((line) => line.id === this.activeLineId())?.box ?? null);
+
+  protected readonly matchingParts = computed(() => {
+    const query = this.partQuery().trim().toLowerCase();
+    const parts = this.parts();
+    const matches = query ? parts.filter((part) => part.partNumber.toLowerCase().includes(query) || part.description.toLowerCase().includes(query)) : parts;
+    return matches.slice(0, 30);
+  });
+
+  protected readonly live = computed(() => {
+    this.formTick();
+    if (!this.receipt()) return null;
+    const header = this.header.getRawValue();
+    return liveReconciliation(
+      this.lineForms.controls.map((group) => group.getRawValue()),
+      { tax: header.tax, shipping: header.shipping, discount: header.discount, total: header.total },
+    );
+  });
+
+  protected readonly differenceText = computed(() => {
+    const live = this.live();
+    if (!live?.ok || live.result.difference === null) return '';
+    const difference = live.result.difference;
+    const amount = this.money(difference.abs());
+    return difference.isPositive()
+      ? `The printed total is ${amount} more than the lines, tax and shipping`
+      : `The printed total is ${amount} less than the lines, tax and shipping`;
+  });
+
+  protected readonly unassignedLines = computed(() => (this.receipt()?.lines ?? []).filter((line) => !line.systemId).length);
+
+  /** Why filing cannot happen yet, in words beside the button; '' when it can. */
+  protected readonly fileBlocker = computed(() => {
+    this.formTick();
+    const unassigned = this.unassignedLines();
+    if ((this.receipt()?.lines.length ?? 0) === 0) return 'Add at least one line before filing.';
+    if (unassigned > 0) return `Assign ${unassigned === 1 ? 'the last line' : `${unassigned} lines`} to a part or a system before filing.`;
+    if (!this.header.controls.purchaseDate.value) return 'Enter the date of purchase before filing.';
+    const live = this.live();
+    if (!live?.ok) return 'Fix the amounts before filing.';
+    if (!live.result.reconciles) {
+      return this.isOwner() ? '' : 'The lines do not add up to the printed total; fix them, or ask the owner to accept the difference.';
+    }
+    return '';
+  });
+
+  protected readonly canAcceptDifference = computed(() => {
+    const live = this.live();
+    return this.isOwner() && !!live?.ok && !live.result.reconciles && live.result.difference !== null && this.unassignedLines() === 0;
+  });
+
+  protected readonly showCaution = computed(() => {
+    const flagged = new Set(this.systems().filter((system) => system.safetyCaution).map((system) => system.id));
+    return (this.receipt()?.lines ?? []).some((line) => line.systemId !== null && flagged.has(line.systemId));
+  });
+
+  constructor() {
+    effect(() => {
+      const buildId = this.buildId();
+      const receiptId = this.receiptId();
+      untracked(() => this.watch(buildId, receiptId));
+    });
+    effect(() => {
+      const buildId = this.buildId();
+      untracked(() => {
+        this.partsApi.list(buildId).subscribe({ next: (parts) => this.parts.set(parts), error: () => this.parts.set([]) });
+        this.systemsApi.list(buildId).subscribe({ next: (response) => this.systems.set(response.systems), error: () => this.systems.set([]) });
+      });
+    });
+    this.header.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => this.bump());
+    this.lineForms.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => this.bump());
+  }
+
+  protected pageUrl(index: number): string {
+    return this.receiptsApi.pageUrl(this.buildId(), this.receiptId(), index);
+  }
+
+  protected scaleOf(pageWidth: number): number {
+    return pageWidth > 0 ? this.pageWidth() / pageWidth : 1;
+  }
+
+  protected zoomBy(step: number): void {
+    this.zoom.update((zoom) => Math.min(3, Math.max(0.5, zoom + step)));
+  }
+
+  protected isLow(key: string): boolean {
+    const confidence = this.receipt()?.fieldConfidence[key];
+    return confidence !== undefined && confidence < LOW_CONFIDENCE;
+  }
+
+  protected readValue(name: HeaderName, isMoney: boolean): string {
+    const value = this.header.controls[name].value;
+    if (!value) return 'Not read';
+    if (name === 'purchaseDate') return formatCalendarDate(value, this.locale());
+    return isMoney ? this.money(value) : value;
+  }
+
+  protected isLowLine(line: ReceiptLineDto, field: string): boolean {
+    const confidence = line.confidence[field] as number | undefined;
+    return confidence !== undefined && confidence < LOW_CONFIDENCE;
+  }
+
+  protected money(amount: Parameters<typeof moneyText>[0], maxDecimals?: number): string {
+    return moneyText(amount, this.currency(), this.locale(), maxDecimals);
+  }
+
+  protected systemName(systemId: string | null): string {
+    if (!systemId) return 'Not assigned';
+    return this.systems().find((system) => system.id === systemId)?.name ?? 'A system';
+  }
+
+  protected toggleSelected(lineId: string, checked: boolean): void {
+    this.selected.update((selected) => {
+      const next = new Set(selected);
+      if (checked) next.add(lineId);
+      else next.delete(lineId);
+      return next;
+    });
+  }
+
+  /** Enter moves to the next field, like Tab, unless a menu or autocomplete used it first. */
+  protected nextField(event: Event): void {
+    const target = event.target as HTMLElement;
+    if (event.defaultPrevented || target.tagName !== 'INPUT') return;
+    event.preventDefault();
+    const fields = Array.from(this.host.nativeElement.querySelectorAll<HTMLElement>('.header-fields input:not([readonly]), .line-table input, .line-table mat-select'));
+    const next = fields[fields.indexOf(target) + 1];
+    // The value was typed: save it as leaving the field would.
+    target.dispatchEvent(new Event('change', { bubbles: true }));
+    next?.focus();
+  }
+
+  protected saveHeader(name: HeaderName): void {
+    const receipt = this.receipt();
+    if (!receipt) return;
+    const control = this.header.controls[name];
+    const text = control.value.trim();
+    const field = HEADER_FIELDS.find((candidate) => candidate.name === name)!;
+    let value: string | null = text;
+    if (field.money) {
+      if (text === '') value = null;
+      else {
+        const parsed = parseMoney(text);
+        if (!parsed.ok) {
+          control.setErrors({ message: parsed.message });
+          control.markAsTouched();
+          return;
+        }
+      }
+    }
+    if (name === 'purchaseDate' && text === '') value = null;
+    if ((receipt[name] ?? '') === (value ?? '')) return;
+    this.enqueue(() => this.receiptsApi.update(this.buildId(), this.receiptId(), { [name]: value, version: this.receipt()!.version } as UpdateReceiptRequest), {
+      next: (saved) => this.receipt.set(saved),
+      error: (error) => {
+        control.setErrors({ message: error.fields[name] ?? error.message });
+        control.markAsTouched();
+      },
+    });
+  }
+
+  protected saveLine(line: ReceiptLineDto, field: LineTextField | 'kind' | 'systemId'): void {
+    const group = this.groupOf(line.id);
+    if (!group) return;
+    const control = group.controls[field];
+    const raw = String(control.value).trim();
+    let value: string | null = raw;
+    if (field === 'unitPrice' && raw === '') value = null;
+    if (field === 'systemId' && raw === '') value = null;
+    if ((field === 'amount' || field === 'unitPrice' || field === 'quantity') && value !== null) {
+      const parsed = parseMoney(value);
+      if (!parsed.ok) {
+        control.setErrors({ message: parsed.message });
+        return;
+      }
+    }
+    // The live line (with the newest version) is read when the save runs, not when it was asked for.
+    this.enqueue(
+      () => {
+        const currentLine = this.lineOf(line.id)!;
+        const request: UpdateLineRequest = { [field]: value, version: currentLine.version };
+        return this.receiptsApi.updateLine(this.buildId(), this.receiptId(), line.id, request);
+      },
+      {
+        next: (saved) => this.replaceLine(saved),
+        error: (error) => {
+          const message = error.fields[field] ?? Object.values(error.fields)[0] ?? error.message;
+          if (field === 'kind' || field === 'systemId') this.setLineProblem(line.id, message);
+          else control.setErrors({ message });
+        },
+      },
+    );
+  }
+
+  /** What the part box shows once a part is picked: its description, never its id. */
+  protected readonly partLabel = (partId: string | null): string => this.parts().find((part) => part.id === partId)?.description ?? '';
+
+  protected assignPart(line: ReceiptLineDto, event: MatAutocompleteSelectedEvent): void {
+    const partId = event.option.value as string | null;
+    const part = this.parts().find((candidate) => candidate.id === partId);
+    this.sendLine(line.id, part ? { partId, systemId: part.systemId } : { partId: null });
+  }
+
+  protected newPartFrom(line: ReceiptLineDto): void {
+    const systemId = this.lineOf(line.id)?.systemId;
+    if (!systemId) {
+      this.setLineProblem(line.id, 'Choose the system first: the new part goes on that system of the bill of materials.');
+      return;
+    }
+    this.sendLine(line.id, { newPart: { systemId } }, () => this.partsApi.list(this.buildId()).subscribe((parts) => this.parts.set(parts)));
+  }
+
+  protected linkReturn(line: ReceiptLineDto): void {
+    const data: ReturnLinkData = { buildId: this.buildId(), receiptId: this.receiptId(), description: line.description, currency: this.currency(), locale: this.locale() };
+    this.dialog
+      .open<ReturnLinkDialog, ReturnLinkData, string>(ReturnLinkDialog, { data, width: '560px' })
+      .afterClosed()
+      .subscribe((lineId) => {
+        if (lineId) this.sendLine(line.id, { returnOfLineId: lineId });
+      });
+  }
+
+  protected split(line: ReceiptLineDto): void {
+    const data: SplitDialogData = {
+      description: line.description,
+      amount: line.amount,
+      currency: this.currency(),
+      locale: this.locale(),
+      systems: this.systems(),
+      systemId: line.systemId,
+    };
+    this.dialog
+      .open<SplitDialog, SplitDialogData, SplitShare[]>(SplitDialog, { data, width: '560px' })
+      .afterClosed()
+      .subscribe((shares) => {
+        if (!shares) return;
+        this.enqueue(
+          () => this.receiptsApi.splitLine(this.buildId(), this.receiptId(), line.id, { version: this.lineOf(line.id)!.version, shares }),
+          { next: (saved) => this.show(saved), error: (error) => this.setLineProblem(line.id, Object.values(error.fields)[0] ?? error.message) },
+        );
+      });
+  }
+
+  protected mergeSelected(): void {
+    const lineIds = (this.receipt()?.lines ?? []).filter((line) => this.selected().has(line.id)).map((line) => line.id);
+    this.enqueue(() => this.receiptsApi.mergeLines(this.buildId(), this.receiptId(), lineIds), {
+      next: (saved) => {
+        this.selected.set(new Set());
+        this.show(saved);
+      },
+      error: (error) => this.problem.set(error.message),
+    });
+  }
+
+  protected addLine(): void {
+    this.enqueue(() => this.receiptsApi.addLine(this.buildId(), this.receiptId(), { kind: 'part', description: 'New line', amount: '0' }), {
+      next: () => this.reload(),
+      error: (error) => this.problem.set(error.message),
+    });
+  }
+
+  protected removeLine(line: ReceiptLineDto): void {
+    this.enqueue(() => this.receiptsApi.removeLine(this.buildId(), this.receiptId(), line.id), {
+      next: () => this.reload(),
+      error: (error) => this.problem.set(error.message),
+    });
+  }
+
+  protected file(acceptDifference?: { reason: string }): void {
+    this.fileProblems.set([]);
+    this.enqueue(
+      () => {
+        const request: FileReceiptRequest = { version: this.receipt()!.version };
+        if (acceptDifference) request.acceptDifference = acceptDifference;
+        return this.receiptsApi.file(this.buildId(), this.receiptId(), request);
+      },
+      {
+        next: (saved) => this.show(saved),
+        error: (error) => this.fileProblems.set(error.hasFieldErrors ? this.describeFileProblems(error) : [error.message]),
+      },
+    );
+  }
+
+  protected acceptAndFile(): void {
+    const data: AcceptDifferenceData = { differenceText: this.differenceText().replace(/^The printed total is /, '') };
+    this.dialog
+      .open<AcceptDifferenceDialog, AcceptDifferenceData, string>(AcceptDifferenceDialog, { data, width: '480px' })
+      .afterClosed()
+      .subscribe((reason) => {
+        if (reason) this.file({ reason });
+      });
+  }
+
+  protected reopen(): void {
+    this.enqueue(() => this.receiptsApi.reopen(this.buildId(), this.receiptId()), {
+      next: (saved) => this.show(saved),
+      error: (error) => this.problem.set(error.message),
+    });
+  }
+
+  /** The server names fields like lines.2.systemId; say which line in words. */
+  private describeFileProblems(error: ApiError): string[] {
+    return Object.entries(error.fields).map(([path, message]) => {
+      const match = /^lines\.(\d+)\./.exec(path);
+      return match ? `Line ${Number(match[1]) + 1}: ${message}` : message;
+    });
+  }
+
+  private sendLine(lineId: string, change: Omit<UpdateLineRequest, 'version'>, after?: () => void): void {
+    this.setLineProblem(lineId, '');
+    this.enqueue(() => this.receiptsApi.updateLine(this.buildId(), this.receiptId(), lineId, { ...change, version: this.lineOf(lineId)!.version }), {
+      next: (saved) => {
+        this.replaceLine(saved);
+        after?.();
+      },
+      error: (error) => this.setLineProblem(lineId, Object.values(error.fields)[0] ?? error.message),
+    });
+  }
+
+  private enqueue<T>(work: () => Observable<T>, handlers: { next: (value: T) => void; error: (error: ApiError) => void }): void {
+    this.busy.set(true);
+    this.saving = this.saving
+      .then(() => firstValueFrom(work(), { defaultValue: undefined as T }))
+      .then(
+        (value) => handlers.next(value),
+        (error: unknown) => {
+          const apiError = toApiError(error);
+          if (apiError.status === 409) {
+            this.problem.set('Someone else changed this receipt meanwhile. It is shown as saved now; make your change again.');
+            this.reload();
+          } else {
+            handlers.error(apiError);
+          }
+        },
+      )
+      .finally(() => this.busy.set(false));
+  }
+
+  private setLineProblem(lineId: string, message: string): void {
+    this.lineProblems.update((problems) => ({ ...problems, [lineId]: message }));
+  }
+
+  private lineOf(lineId: string): ReceiptLineDto | undefined {
+    return this.receipt()?.lines.find((line) => line.id === lineId);
+  }
+
+  private groupOf(lineId: string): LineGroup | undefined {
+    const index = this.receipt()?.lines.findIndex((line) => line.id === lineId) ?? -1;
+    return index >= 0 ? this.lineForms.at(index) : undefined;
+  }
+
+  /** Puts a saved line in place; its form takes the server's figures (an amount worked out from quantity and price). */
+  private replaceLine(saved: ReceiptLineDto): void {
+    const receipt = this.receipt();
+    if (!receipt) return;
+    this.receipt.set({ ...receipt, lines: receipt.lines.map((line) => (line.id === saved.id ? saved : line)) });
+    const group = this.groupOf(saved.id);
+    group?.setValue(lineGroup(saved).getRawValue(), { emitEvent: false });
+    this.bump();
+  }
+
+  private reload(): void {
+    this.receiptsApi.get(this.buildId(), this.receiptId()).subscribe({ next: (receipt) => this.show(receipt), error: (error: unknown) => this.problem.set(toApiError(error).message) });
+  }
+
+  /** Asks every second while the receipt is waiting or being read, then stops. */
+  private watch(buildId: string, receiptId: string): void {
+    this.polling?.unsubscribe();
+    this.polling = timer(0, 1000)
+      .pipe(
+        switchMap(() => this.receiptsApi.get(buildId, receiptId)),
+        takeWhile((receipt) => receipt.state === 'queued' || receipt.state === 'reading', true),
+        takeUntilDestroyed(this.destroyRef),
+      )
+      .subscribe({
+        next: (receipt) => this.show(receipt),
+        error: (error: unknown) => this.problem.set(toApiError(error).message),
+      });
+  }
+
+  private show(receipt: ReceiptDto): void {
+    this.receipt.set(receipt);
+    this.header.setValue(
+      {
+        vendorName: receipt.vendorName ?? '',
+        purchaseDate: receipt.purchaseDate ?? '',
+        receiptNumber: receipt.receiptNumber,
+        subtotal: receipt.subtotal ?? '',
+        tax: receipt.tax ?? '',
+        shipping: receipt.shipping ?? '',
+        discount: receipt.discount ?? '',
+        total: receipt.total ?? '',
+      },
+      { emitEvent: false },
+    );
+    this.lineForms.clear({ emitEvent: false });
+    for (const line of receipt.lines) this.lineForms.push(lineGroup(line), { emitEvent: false });
+    this.bump();
+  }
+
+  private bump(): void {
+    this.formTick.update((tick) => tick + 1);
+  }
+}
