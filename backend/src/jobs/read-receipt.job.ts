@@ -111,10 +111,11 @@ export async function readQueuedReceipt(deps: ReadReceiptDeps, receiptId: string
       fieldConfidence: {
         vendor: reading.vendor.confidence,
         date: reading.date.confidence,
-        subtotal: reading.subtotal.confidence,
+        // Most slips print no subtotal, shipping or discount: a field the reader found nothing for is not a doubt.
+        subtotal: reading.subtotal.value === null ? 1 : reading.subtotal.confidence,
         tax: reading.tax.confidence,
-        shipping: reading.shipping.confidence,
-        discount: reading.discount.confidence,
+        shipping: reading.shipping.value === null ? 1 : reading.shipping.confidence,
+        discount: reading.discount.value === null ? 1 : reading.discount.confidence,
         total: reading.total.confidence,
       },
       notes: reading.notes,
