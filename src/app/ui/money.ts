@@ -1,6 +1,6 @@
 // Shows an amount from the API (a decimal string) in the build's currency and locale; money stays a Decimal throughout.
 import { Pipe, PipeTransform } from '@angular/core';
-import { Decimal, formatMoney, parseMoney } from '../../../shared/money';
+import { Decimal, formatMoney, parseMoney, toWire } from '../../../shared/money';
 
 /** Display text for an amount, or '' when there is none; `maxDecimals` 4 shows unit prices such as 0.125 in full. */
 export function moneyText(amount: string | Decimal | null | undefined, currency: string, locale: string, maxDecimals?: number): string {
@@ -16,7 +16,8 @@ export function moneyText(amount: string | Decimal | null | undefined, currency:
   try {
     return formatMoney(value, currency, locale || 'en-US', maxDecimals === undefined ? {} : { maxDecimals });
   } catch {
-    return value.toFixed();
+    // An unknown currency code: show the plain amount rather than nothing.
+    return toWire(value);
   }
 }
 

@@ -1,5 +1,5 @@
 // Budget arithmetic for the screens: estimate against budget in words, and sums of amounts from the API.
-import { Decimal, parseMoney, subtract, sum } from '../../../../../shared/money';
+import { Decimal, parseMoney, subtract, sum, toWire } from '../../../../../shared/money';
 
 /** An amount from the API as a Decimal; a malformed one counts as zero rather than breaking a screen. */
 export function amountOf(text: string | null | undefined): Decimal {
@@ -28,6 +28,6 @@ export function budgetStanding(estimate: Decimal, budget: Decimal): BudgetStandi
   const unbudgeted = budget.isZero() && !estimate.isZero();
   let fillPercent = '0';
   if (budget.isZero()) fillPercent = estimate.isZero() ? '0' : '100';
-  else fillPercent = Decimal.min(estimate.dividedBy(budget).times(100), 100).toDecimalPlaces(1).toFixed();
+  else fillPercent = toWire(Decimal.min(estimate.dividedBy(budget).times(100), 100).toDecimalPlaces(1));
   return { unbudgeted, over, difference, fillPercent };
 }
