@@ -8,6 +8,7 @@ import helmet from 'helmet';
 import { existsSync } from 'node:fs';
 import path from 'node:path';
 import pg from 'pg';
+import { alertPreferencesRoutes } from './alerts/alert-preferences.routes';
 import { authRoutes } from './auth/auth.routes';
 import { createPassport } from './auth/passport';
 import { buildsRoutes } from './builds/builds.routes';
@@ -93,6 +94,7 @@ export function createApp({ orm, config, mailer, store, queue }: AppDeps): Runni
   api.use('/invites', inviteLinkRoutes());
   api.use('/builds', buildsRoutes());
   api.use('/builds/:buildId', crewRoutes(mailer, config));
+  api.use('/builds/:buildId', alertPreferencesRoutes());
   api.use('/builds/:buildId', systemsRoutes());
   api.use('/builds/:buildId', partsRoutes());
   api.use('/builds/:buildId', receiptsRoutes({ store, queue }));

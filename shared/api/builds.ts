@@ -47,6 +47,13 @@ function targetAfterStart(value: { startedOn?: string | null; targetDate?: strin
 export const createBuildRequest = z.object(buildFields).superRefine(targetAfterStart);
 export type CreateBuildRequest = z.input<typeof createBuildRequest>;
 
+/** How many days after purchase a shop takes a part back; a year at most, 0 for shops that take nothing back. */
+export const returnWindowDaysSchema = z
+  .number({ error: 'Enter the return window as a number of days.' })
+  .int('Enter the return window as a whole number of days.')
+  .min(0, 'The return window cannot be negative.')
+  .max(365, 'The return window is at most 365 days.');
+
 /** The currency is fixed at creation: every amount of the build is in it. */
 export const updateBuildRequest = z
   .object({
@@ -56,6 +63,7 @@ export const updateBuildRequest = z
     status: buildFields.status.optional().transform((value) => value),
     startedOn: optionalIsoDate,
     targetDate: optionalIsoDate,
+    returnWindowDays: returnWindowDaysSchema.optional(),
     version: z.number({ error: 'Send the version you last saw.' }).int().min(1),
   })
   .strict()
@@ -71,6 +79,8 @@ export interface BuildDto {
   status: BuildStatus;
   startedOn: string | null;
   targetDate: string | null;
+  /** Days after purchase a part not yet fitted can be returned. */
+  returnWindowDays: number;
   archived: boolean;
   version: number;
   /** The caller's role on this build. */

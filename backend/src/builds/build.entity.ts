@@ -6,7 +6,7 @@ import { Decimal } from '../../../shared/money';
 import { DecimalType } from '../db/decimal-type';
 
 export class Build {
-  [OptionalProps]?: 'createdAt' | 'updatedAt' | 'version' | 'vehicle' | 'locale' | 'status' | 'startedOn' | 'targetDate' | 'archivedAt' | 'contingencyBudget';
+  [OptionalProps]?: 'createdAt' | 'updatedAt' | 'version' | 'vehicle' | 'locale' | 'status' | 'startedOn' | 'targetDate' | 'archivedAt' | 'contingencyBudget' | 'returnWindowDays';
   id: string = randomUUID();
   name!: string;
   vehicle = '';
@@ -20,6 +20,8 @@ export class Build {
   archivedAt: Date | null = null;
   /** Held back for the unexpected; the build's budget is the systems' budgets plus this. */
   contingencyBudget: Decimal = new Decimal(0);
+  /** Days after purchase a shop takes a part back: 30 is common practice, from memory (windows of 30 to 90 days are usual). */
+  returnWindowDays = 30;
   version = 1;
   createdAt: Date = new Date();
   updatedAt: Date = new Date();
@@ -38,6 +40,7 @@ export const BuildSchema = new EntitySchema<Build>({
     targetDate: { type: 'date', nullable: true },
     archivedAt: { type: 'datetime', nullable: true },
     contingencyBudget: { type: DecimalType, default: '0' },
+    returnWindowDays: { type: 'integer', default: 30 },
     version: { type: 'integer', version: true },
     createdAt: { type: 'datetime', defaultRaw: 'now()' },
     updatedAt: { type: 'datetime', defaultRaw: 'now()', onUpdate: () => new Date() },

@@ -28,6 +28,7 @@ export function buildDto(build: Build, role: BuildRole): BuildDto {
     status: build.status,
     startedOn: build.startedOn ?? null,
     targetDate: build.targetDate ?? null,
+    returnWindowDays: build.returnWindowDays,
     archived: build.archivedAt !== null,
     version: build.version,
     role,

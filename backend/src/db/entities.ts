@@ -12,5 +12,7 @@ import { ReceiptLineSchema } from '../receipts/receipt-line.entity';
 import { ReceiptSchema } from '../receipts/receipt.entity';
 import { VendorSchema } from '../receipts/vendor.entity';
 import { CommentSchema } from '../review/comment.entity';
+import { AlertPreferenceSchema } from '../alerts/alert-preference.entity';
+import { AlertSentSchema } from '../alerts/alert-sent.entity';
 
-export const entities = [UserSchema, PasswordResetSchema, BuildSchema, MembershipSchema, InviteSchema, VehicleSystemSchema, PartSchema, VendorSchema, ReceiptSchema, ReceiptLineSchema, CoreSchema, AuditEventSchema, CommentSchema];
+export const entities = [UserSchema, PasswordResetSchema, BuildSchema, MembershipSchema, InviteSchema, VehicleSystemSchema, PartSchema, VendorSchema, ReceiptSchema, ReceiptLineSchema, CoreSchema, AuditEventSchema, CommentSchema, AlertPreferenceSchema, AlertSentSchema];

@@ -3,6 +3,10 @@ import PgBoss from 'pg-boss';
 import type { AppConfig } from '../config';
 
 export const READ_RECEIPT = 'read-receipt';
+/** Mail alerts: due events found and mailed once each (backend/src/alerts). */
+export const SEND_ALERTS = 'send-alerts';
+/** Every 15 minutes, in UTC: often enough for a 7-day warning, rare enough to cost nothing. */
+export const SEND_ALERTS_CRON = '*/15 * * * *';
 
 export interface ReadReceiptJob {
   receiptId: string;
@@ -11,10 +15,12 @@ export interface ReadReceiptJob {
 export interface JobQueue {
   boss: PgBoss;
   readReceipt(receiptId: string): Promise<void>;
+  /** Puts the alerts job on pg-boss's cron; the clock runs in the process started with `schedule: true`. */
+  scheduleAlerts(): Promise<void>;
   stop(): Promise<void>;
 }
 
-export async function startJobQueue(db: AppConfig['db'], options: { supervise?: boolean } = {}): Promise<JobQueue> {
+export async function startJobQueue(db: AppConfig['db'], options: { supervise?: boolean; schedule?: boolean } = {}): Promise<JobQueue> {
   const boss = new PgBoss({
     host: db.host,
     port: db.port,
@@ -24,16 +30,22 @@ export async function startJobQueue(db: AppConfig['db'], options: { supervise?: 
     schema: 'pgboss',
     max: 4,
     supervise: options.supervise ?? false,
-    schedule: false,
+    // Only the worker runs the cron clock; pg-boss keeps one clock across processes anyway.
+    schedule: options.schedule ?? false,
   });
   boss.on('error', (error) => console.error('[jobs]', error.message));
   await boss.start();
   // A reading that crashes or is killed is retried; the handler makes a retry replace, never add, lines.
   await boss.createQueue(READ_RECEIPT, { name: READ_RECEIPT, retryLimit: 3, retryDelay: 10, retryBackoff: true, expireInSeconds: 15 * 60 });
+  // One alerts run at a time: a second one would find nothing new to send, so it is not worth queueing.
+  await boss.createQueue(SEND_ALERTS, { name: SEND_ALERTS, policy: 'singleton', retryLimit: 2, retryDelay: 60, expireInSeconds: 10 * 60 });
   return {
     boss,
     async readReceipt(receiptId) {
       await boss.send(READ_RECEIPT, { receiptId } satisfies ReadReceiptJob);
+    },
+    async scheduleAlerts() {
+      await boss.schedule(SEND_ALERTS, SEND_ALERTS_CRON, {}, { tz: 'UTC' });
     },
     async stop() {
       await boss.stop({ graceful: true, wait: true, timeout: 10_000 });

@@ -1,4 +1,5 @@
-// The receipt reading worker, its own process (npm start runs it): takes reading jobs from the PostgreSQL queue.
+// The receipt reading worker, its own process (npm start runs it): takes reading jobs from the PostgreSQL queue,
+// and runs the cron clock of the mail alerts job and works that queue too.
 import { MikroORM } from '@mikro-orm/postgresql';
 import { loadConfig } from '../config';
 import { ormConfig } from '../db/mikro-orm.config';
@@ -6,6 +7,8 @@ import { Receipt } from '../receipts/receipt.entity';
 import { closeReaders } from '../receipts/reading/read-document';
 import { readWithPageImages } from '../receipts/read-with-pages';
 import { createObjectStore } from '../storage/object-store';
+import { startAlertsWorker } from '../alerts/alerts.job';
+import { createMailer } from '../mail/mailer';
 import { READ_RECEIPT, startJobQueue, type JobQueue, type ReadReceiptJob } from './queue';
 import { readQueuedReceipt, type ReadReceiptDeps } from './read-receipt.job';
 
@@ -31,12 +34,17 @@ if (require.main === module) {
     const orm = await MikroORM.init(ormConfig(config.db));
     const store = createObjectStore(config.storage);
     await store.ensureBucket();
-    const queue = await startJobQueue(config.db, { supervise: true });
+    const queue = await startJobQueue(config.db, { supervise: true, schedule: true });
     await requeueStranded(orm, queue);
     const stop = await startReadingWorker(queue, { orm, store, read: readWithPageImages });
-    console.log('[worker] reading receipts from the queue');
+    const mailer = createMailer(config.smtp);
+    await queue.scheduleAlerts();
+    const stopAlerts = await startAlertsWorker(queue, { orm, mailer, config });
+    console.log('[worker] reading receipts from the queue; mail alerts every 15 minutes');
     const shutdown = async () => {
       await stop();
+      await stopAlerts();
+      mailer.close();
       await queue.stop();
       await closeReaders();
       store.close();

@@ -45,3 +45,139 @@ export function commentMail(input: { to: string; author: string; receiptLabel: s
     html: html(lines, { href: input.link, label: 'Open the receipt' }),
   };
 }
+
+// Mail alerts (budget, core deposit, return window, likely duplicate, reviewer digest). Amounts arrive formatted
+// in the build's currency and locale; each mail ends with where to change which alerts a person gets.
+
+function alertMail(input: { to: string; subject: string; lines: string[]; link: { href: string; label: string }; settingsLink: string }): MailMessage {
+  const footer = `You get this mail because this alert is on for you. Choose which alerts you get: ${input.settingsLink}`;
+  return {
+    to: input.to,
+    subject: input.subject,
+    text: `${input.lines.join('\n\n')}\n\n${input.link.label}: ${input.link.href}\n\n${footer}\n`,
+    html: html([...input.lines, footer], input.link),
+  };
+}
+
+export function budgetAlertMail(input: {
+  to: string;
+  buildName: string;
+  systemName: string;
+  threshold: 90 | 100;
+  netCost: string;
+  budget: string;
+  percent: string;
+  link: string;
+  settingsLink: string;
+}): MailMessage {
+  const reached = input.threshold === 100 ? 'has used all of its budget' : 'has used 90 % of its budget';
+  return alertMail({
+    to: input.to,
+    subject: `${input.systemName} ${reached} on "${input.buildName}"`,
+    lines: [
+      `${input.systemName} on "${input.buildName}" has cost ${input.netCost} so far, against a budget of ${input.budget} (${input.percent} %).`,
+      input.threshold === 100
+        ? 'Raise the budget, or look at the parts still planned for this system.'
+        : 'Check the parts still planned for this system before the budget runs out.',
+    ],
+    link: { href: input.link, label: 'Open the ledger' },
+    settingsLink: input.settingsLink,
+  });
+}
+
+export function coreDueMail(input: {
+  to: string;
+  buildName: string;
+  description: string;
+  deposit: string;
+  dueDate: string;
+  /** "in 7 days", "today", "3 days ago". */
+  when: string;
+  vendorName: string | null;
+  overdue: boolean;
+  link: string;
+  settingsLink: string;
+}): MailMessage {
+  const from = input.vendorName ? ` to ${input.vendorName}` : '';
+  return alertMail({
+    to: input.to,
+    subject: `Core deposit of ${input.deposit} due back by ${input.dueDate}: ${input.description}`,
+    lines: [
+      `The old part for "${input.description}" on "${input.buildName}" ${input.overdue ? 'was' : 'is'} due back${from} by ${input.dueDate} (${input.when}).`,
+      `Hand it in to get the core deposit of ${input.deposit} refunded, then mark the core as handed in.`,
+    ],
+    link: { href: input.link, label: 'Open cores and returns' },
+    settingsLink: input.settingsLink,
+  });
+}
+
+export function returnWindowMail(input: {
+  to: string;
+  buildName: string;
+  vendorName: string | null;
+  purchaseDate: string;
+  returnableUntil: string;
+  lines: { description: string; amount: string }[];
+  link: string;
+  settingsLink: string;
+}): MailMessage {
+  const from = input.vendorName ?? 'a receipt';
+  const count = input.lines.length === 1 ? '1 part' : `${input.lines.length} parts`;
+  return alertMail({
+    to: input.to,
+    subject: `Return window closes ${input.returnableUntil}: ${count} from ${from}`,
+    lines: [
+      `These parts on "${input.buildName}", bought from ${from} on ${input.purchaseDate}, are not fitted yet and can be returned until ${input.returnableUntil}:`,
+      ...input.lines.map((line) => `${line.description}: ${line.amount}`),
+      'If you will not use them, return them with the receipt before then. The shop decides in the end what it takes back.',
+    ],
+    link: { href: input.link, label: 'Open the receipt' },
+    settingsLink: input.settingsLink,
+  });
+}
+
+export function duplicateReceiptMail(input: {
+  to: string;
+  buildName: string;
+  receiptLabel: string;
+  sameDocument: boolean;
+  otherCount: number;
+  link: string;
+  settingsLink: string;
+}): MailMessage {
+  const others = input.otherCount === 1 ? 'another receipt' : `${input.otherCount} other receipts`;
+  const why = input.sameDocument ? 'the same document' : 'the same shop, date and total';
+  return alertMail({
+    to: input.to,
+    subject: `Possible duplicate receipt on "${input.buildName}": ${input.receiptLabel}`,
+    lines: [
+      `${input.receiptLabel} has ${why} as ${others} on "${input.buildName}".`,
+      'If it was entered twice, delete one so the money is not counted twice. Small items bought again are normal: then there is nothing to do.',
+    ],
+    link: { href: input.link, label: 'Open the receipt' },
+    settingsLink: input.settingsLink,
+  });
+}
+
+export function reviewDigestMail(input: {
+  to: string;
+  buildName: string;
+  since: string;
+  receipts: { label: string; total: string }[];
+  totals: string[];
+  link: string;
+  settingsLink: string;
+}): MailMessage {
+  const count = input.receipts.length === 1 ? '1 receipt' : `${input.receipts.length} receipts`;
+  return alertMail({
+    to: input.to,
+    subject: `Digest: ${count} filed on "${input.buildName}"`,
+    lines: [
+      `Filed on "${input.buildName}" since ${input.since}:`,
+      ...input.receipts.map((receipt) => `${receipt.label}: ${receipt.total}`),
+      `Total: ${input.totals.join(', ')}`,
+    ],
+    link: { href: input.link, label: 'Open the review queue' },
+    settingsLink: input.settingsLink,
+  });
+}

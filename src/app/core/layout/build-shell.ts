@@ -27,6 +27,7 @@ export const BUILD_SECTIONS: readonly BuildSection[] = [
   { path: 'inventory', label: 'Inventory', icon: 'inventory', phoneBar: false },
   { path: 'cores', label: 'Cores and returns', icon: 'autorenew', phoneBar: false },
   { path: 'crew', label: 'Crew', icon: 'group', phoneBar: false },
+  { path: 'alerts', label: 'Mail alerts', icon: 'notifications', phoneBar: false },
 ];
 
 @Component({

@@ -24,6 +24,7 @@ const saved: BuildDto = {
   status: 'active',
   startedOn: '2026-03-14',
   targetDate: '2026-11-02',
+  returnWindowDays: 30,
   archived: false,
   version: 5,
   role: 'owner',
@@ -147,6 +148,7 @@ describe('BuildForm', () => {
       status: 'active',
       startedOn: '2026-03-14',
       targetDate: '2026-11-02',
+      returnWindowDays: 30,
       version: 5,
     });
     patch.flush({ error: { code: 'conflict', message: 'Changed by someone else.' } }, { status: 409, statusText: 'Conflict' });
@@ -163,5 +165,33 @@ describe('BuildForm', () => {
     const second = http.expectOne((request) => request.method === 'PATCH');
     expect(second.request.body.version).toBe(6);
     second.flush({ ...saved, name: 'Green wagon (Ines)', version: 7 });
+  });
+
+  it('edits the return window in days and puts a bad value on that field', async () => {
+    await render(BuildForm, { providers, bindings: [inputBinding('buildId', () => 'b-42')] });
+    const user = userEvent.setup();
+    const http = TestBed.inject(HttpTestingController);
+    http.expectOne('/api/builds/b-42').flush({ ...saved, returnWindowDays: 14 });
+    const field = (await screen.findByLabelText('Return window (days)')) as HTMLInputElement;
+    expect(field.value).toBe('14');
+
+    await user.clear(field);
+    await user.type(field, '-3');
+    await user.click(screen.getByRole('button', { name: 'Save changes' }));
+    expect(await screen.findByText('The return window cannot be negative.')).toBeTruthy();
+    expect(describedText(field)).toBe('The return window cannot be negative.');
+    http.expectNone((request) => request.method === 'PATCH');
+
+    await user.clear(field);
+    await user.type(field, '45');
+    await user.click(screen.getByRole('button', { name: 'Save changes' }));
+    const patch = http.expectOne((request) => request.method === 'PATCH');
+    expect(patch.request.body.returnWindowDays).toBe(45);
+    patch.flush({ ...saved, returnWindowDays: 45, version: 6 });
+  });
+
+  it('has no return window field when creating a build', async () => {
+    await render(BuildForm, { providers });
+    expect(screen.queryByLabelText('Return window (days)')).toBeNull();
   });
 });

@@ -109,6 +109,16 @@ import { CurrentBuild } from '../services/current-build';
           <mat-error>{{ errorOf(form.controls.targetDate) }}</mat-error>
         </mat-form-field>
 
+        @if (editing()) {
+          <mat-form-field subscriptSizing="dynamic">
+            <mat-label>Return window (days)</mat-label>
+            <input matInput type="number" min="0" max="365" step="1" formControlName="returnWindowDays" />
+            <mat-hint>How long shops take unfitted parts back; 30 is usual</mat-hint>
+            <mat-error>{{ errorOf(form.controls.returnWindowDays) }}</mat-error>
+          </mat-form-field>
+          <span class="spacer"></span>
+        }
+
         <div class="form-actions wide">
           <button mat-flat-button class="cta" type="submit" [disabled]="saving() || loading()">
             {{ editing() ? 'Save changes' : 'Create build' }}
@@ -169,6 +179,8 @@ export class BuildForm {
     status: this.formBuilder.control<BuildStatus>('planning'),
     startedOn: this.formBuilder.control<Moment | null>(null),
     targetDate: this.formBuilder.control<Moment | null>(null),
+    // Days after purchase an unfitted part can go back: 30 is common practice, from memory.
+    returnWindowDays: this.formBuilder.control<number | null>(30),
   });
 
   private readonly currencyTyped = toSignal(this.form.controls.currency.valueChanges, { initialValue: 'USD' });
@@ -203,6 +215,7 @@ export class BuildForm {
         locale: raw.locale,
         status: raw.status,
         ...dates,
+        returnWindowDays: raw.returnWindowDays,
         version: this.version,
       });
       if (!request) return;
@@ -265,6 +278,7 @@ export class BuildForm {
       status: build.status,
       startedOn: build.startedOn ? this.dateAdapter.deserialize(build.startedOn) : null,
       targetDate: build.targetDate ? this.dateAdapter.deserialize(build.targetDate) : null,
+      returnWindowDays: build.returnWindowDays,
     });
     // The currency is fixed at creation: every amount of the build is in it.
     this.form.controls.currency.disable();

@@ -16,6 +16,7 @@ const coupe: BuildDto = {
   status: 'active',
   startedOn: '2026-02-01',
   targetDate: null,
+  returnWindowDays: 30,
   archived: false,
   version: 3,
   role: 'owner',

@@ -20,6 +20,7 @@ const build = (role: BuildRole): BuildDto => ({
   status: 'active',
   startedOn: null,
   targetDate: null,
+  returnWindowDays: 30,
   archived: false,
   version: 2,
   role,
