@@ -33,7 +33,8 @@ const env = {
 if (!(await timed('migrate', timings, () => migrate(env)))) fail('The migrations failed (see above); nothing was started.');
 const seedScript = path.join(ROOT, 'backend/src/seed/seed-demo.ts');
 await timed('seed', timings, async () => {
-  // The seed itself does nothing when the database already holds accounts.
+  // The seed does nothing when the database already holds accounts. Its receipt documents go to the same fake S3
+  // (port and folder) the servers use below: it starts that store briefly itself, as it is not running yet here.
   if ((await runAsync(npmBin('tsx'), [seedScript], { env })).code !== 0) fail('Seeding the demo build failed (see above).');
 });
 const build = await timed('client build', timings, ensureClientBuild);

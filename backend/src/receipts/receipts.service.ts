@@ -22,6 +22,25 @@ export interface UploadedDocument {
   sniffed: SniffedDocument;
 }
 
+/** Stores one document under the build's key scheme and makes its receipt row (flushed by the caller), queued for reading. */
+export async function storeReceiptDocument(em: EntityManager, store: ObjectStore, build: Build, user: User, document: UploadedDocument): Promise<Receipt> {
+  const sha256 = createHash('sha256').update(document.bytes).digest('hex');
+  const receipt = em.create(Receipt, {
+    build,
+    uploadedBy: user,
+    originalFilename: document.originalFilename.slice(0, 255) || `receipt.${document.sniffed.ext}`,
+    documentKey: '',
+    contentType: document.sniffed.mime,
+    sha256,
+    size: document.bytes.length,
+    pages: document.sniffed.pages,
+  });
+  receipt.documentKey = `builds/${build.id}/receipts/${receipt.id}/original.${document.sniffed.ext}`;
+  // The document is stored before the row exists, so a row never points at nothing.
+  await store.put(receipt.documentKey, document.bytes, document.sniffed.mime);
+  return receipt;
+}
+
 export async function createReceipts(
   em: EntityManager,
   deps: { store: ObjectStore; queue: JobQueue },
@@ -30,23 +49,7 @@ export async function createReceipts(
   documents: UploadedDocument[],
 ): Promise<Receipt[]> {
   const receipts: Receipt[] = [];
-  for (const document of documents) {
-    const sha256 = createHash('sha256').update(document.bytes).digest('hex');
-    const receipt = em.create(Receipt, {
-      build,
-      uploadedBy: user,
-      originalFilename: document.originalFilename.slice(0, 255) || `receipt.${document.sniffed.ext}`,
-      documentKey: '',
-      contentType: document.sniffed.mime,
-      sha256,
-      size: document.bytes.length,
-      pages: document.sniffed.pages,
-    });
-    receipt.documentKey = `builds/${build.id}/receipts/${receipt.id}/original.${document.sniffed.ext}`;
-    // The document is stored before the row exists, so a row never points at nothing.
-    await deps.store.put(receipt.documentKey, document.bytes, document.sniffed.mime);
-    receipts.push(receipt);
-  }
+  for (const document of documents) receipts.push(await storeReceiptDocument(em, deps.store, build, user, document));
   await em.flush();
   for (const receipt of receipts) await deps.queue.readReceipt(receipt.id);
   return receipts;

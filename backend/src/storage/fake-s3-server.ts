@@ -3,6 +3,9 @@ import S3rver from 's3rver';
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 
+/** Where npm start's fake keeps documents (git-ignored). */
+export const DEFAULT_S3_DIRECTORY = path.resolve(__dirname, '../../../.data/objects');
+
 export interface FakeS3 {
   endpoint: string;
   close(): Promise<void>;
@@ -20,7 +23,7 @@ export async function startFakeS3(options: { port?: number; directory: string })
 
 if (require.main === module) {
   const port = Number.parseInt(process.env.S3_PORT ?? '4569', 10);
-  const directory = process.env.S3_DIRECTORY ?? path.resolve(__dirname, '../../../.data/objects');
+  const directory = process.env.S3_DIRECTORY ?? DEFAULT_S3_DIRECTORY;
   startFakeS3({ port, directory })
     .then((s3) => console.log(`Fake S3 on ${s3.endpoint}, files in ${directory}`))
     .catch((error) => {
