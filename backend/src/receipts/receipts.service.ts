@@ -1,6 +1,6 @@
 // Receipts of a build: upload (stored in object storage, queued for reading), list with filters, view, edit header.
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { createHash } from 'node:crypto';
+import { createHash, randomUUID } from 'node:crypto';
 import type { ReceiptSummaryDto, UpdateReceiptRequest } from '../../../shared/api/receipts';
 import type { ReceiptState } from '../../../shared/enums';
 import { type Decimal, fitsMinorUnits, minorUnits } from '../../../shared/money';
@@ -105,7 +105,17 @@ export async function vendorNamed(em: EntityManager, build: Build, name: string)
   const trimmed = name.trim();
   const normalizedName = normalizeVendorName(trimmed);
   if (!normalizedName) return null;
-  return (await em.findOne(Vendor, { build, normalizedName })) ?? em.create(Vendor, { build, name: trimmed, normalizedName });
+  const known = await em.findOne(Vendor, { build, normalizedName });
+  if (known) return known;
+  // Two readings of a new shop's receipts at once: ON CONFLICT DO NOTHING waits for the other to commit, then the
+  // lookup finds its row, instead of one reading failing on the unique name.
+  await em.getConnection().execute(
+    'insert into vendor (id, build_id, name, normalized_name) values (?, ?, ?, ?) on conflict (build_id, normalized_name) do nothing',
+    [randomUUID(), build.id, trimmed, normalizedName],
+    'run',
+    em.getTransactionContext(),
+  );
+  return em.findOneOrFail(Vendor, { build, normalizedName });
 }
 
 const MONEY_FIELDS = ['subtotal', 'tax', 'shipping', 'discount', 'total'] as const;
