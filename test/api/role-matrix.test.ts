@@ -208,6 +208,16 @@ const ROUTES: RouteCase[] = [
     expected: editors(200),
   },
   { name: 'GET /api/builds/:buildId/ledger', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/ledger`), expected: readable },
+  { name: 'GET /api/builds/:buildId/ledger/spend', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/ledger/spend?by=week`), expected: readable },
+  { name: 'GET /api/builds/:buildId/ledger/vendors', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/ledger/vendors`), expected: readable },
+  {
+    name: 'GET /api/builds/:buildId/ledger/lines',
+    call: async (f, a) => {
+      await receiptFor(f, { filed: true });
+      return f.clients[a].get(`/api/builds/${f.buildId}/ledger/lines?figure=netCost&systemId=${f.systemId}`);
+    },
+    expected: readable,
+  },
   { name: 'GET /api/builds/:buildId/exports/tax-ledger.csv', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/exports/tax-ledger.csv`), expected: readable },
   { name: 'GET /api/builds/:buildId/exports/build-sheet.csv', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/exports/build-sheet.csv`), expected: readable },
   { name: 'GET /api/builds/:buildId/exports/archive.zip', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/exports/archive.zip`), expected: readable },

@@ -1,13 +1,12 @@
 // The ledger: budget, estimate and money spent per system, aggregated in SQL; rounding and the forecast through
 // the shared money module, so the systems always add up to the build total to the cent.
 import type { EntityManager } from '@mikro-orm/postgresql';
-import type { LedgerDto, LedgerFigures } from '../../../shared/api/ledger';
+import { OVERRUN_MIN_SAMPLE, type LedgerDto, type LedgerFigures, type LedgerLineFigure } from '../../../shared/api/ledger';
 import { Decimal, minorUnits, multiply, roundHalfUp, sum, subtract, toDecimal, toWire } from '../../../shared/money';
 import { needsSafetyCaution } from '../../../shared/safety';
 import type { Build } from '../builds/build.entity';
 
-/** The factor is only trusted once this many bought parts have both an estimate and a cost (common practice, our choice). */
-export const OVERRUN_MIN_SAMPLE = 5;
+export { OVERRUN_MIN_SAMPLE };
 
 interface SystemRow {
   id: string;
@@ -22,7 +21,36 @@ interface SystemRow {
 }
 
 // A line's full cost: its amount with its share of the receipt's tax and shipping, less its share of the discount.
-const LINE_TOTAL = `(l.amount + l.allocated_tax + l.allocated_shipping - l.allocated_discount)`;
+export const LINE_TOTAL = `(l.amount + l.allocated_tax + l.allocated_shipping - l.allocated_discount)`;
+
+/**
+ * The rows every money figure is summed from: lines of filed receipts that carry a system (an unassigned fee or
+ * discount was spread over the other lines at filing, so counting it too would count it twice). One parameter: the
+ * build's id. Aliases: l (line), r (receipt), c (its core, if a core charge); `joins` adds tables for a breakdown.
+ */
+export function filedLines(joins = ''): string {
+  return `
+      from receipt_line l
+      join receipt r on r.id = l.receipt_id and r.state = 'filed'
+      left join core c on c.charge_line_id = l.id ${joins}
+     where l.build_id = ? and l.system_id is not null`;
+}
+
+/**
+ * Which of filedLines() each figure counts: the ledger, its spend over time, its vendors and the lines behind a
+ * figure all use these, so the lines shown always add up to the figure shown.
+ */
+export const FIGURE_FILTER: Record<LedgerLineFigure, string> = {
+  // Net cash out: everything, money back included.
+  spent: `true`,
+  netCost: `(l.kind in ('part', 'fee', 'discount', 'return') or (l.kind = 'core_charge' and c.state = 'forfeited'))`,
+  coreDepositsOutstanding: `(l.kind = 'core_charge' and c.state in ('owed', 'dropped_off'))`,
+  // Parts sent back with no filed return line yet: what was paid for them is owed back.
+  returnsAwaitingRefund: `(l.kind = 'part' and exists (
+      select 1 from part p where p.id = l.part_id and p.status = 'returned'
+         and not exists (select 1 from receipt_line rl join receipt rr on rr.id = rl.receipt_id and rr.state = 'filed'
+                          where rl.kind = 'return' and (rl.return_of_id = l.id or rl.part_id = p.id))))`,
+};
 
 const SYSTEM_FIGURES = `
   with parts as (
@@ -32,34 +60,20 @@ const SYSTEM_FIGURES = `
       from part p where p.build_id = ? group by p.system_id
   ), lines as (
     select l.system_id,
-           sum(${LINE_TOTAL}) as spent,
-           sum(${LINE_TOTAL}) filter (where l.kind in ('part', 'fee', 'discount', 'return')
-                                        or (l.kind = 'core_charge' and c.state = 'forfeited')) as net_cost,
-           sum(${LINE_TOTAL}) filter (where l.kind = 'core_charge' and c.state in ('owed', 'dropped_off')) as cores_outstanding
-      from receipt_line l
-      join receipt r on r.id = l.receipt_id and r.state = 'filed'
-      left join core c on c.charge_line_id = l.id
-     where l.build_id = ? and l.system_id is not null
-     group by l.system_id
-  ), awaiting as (
-    -- Parts sent back with no filed return line yet: what was paid for them is owed back.
-    select l.system_id, sum(${LINE_TOTAL}) as returns_awaiting
-      from receipt_line l
-      join receipt r on r.id = l.receipt_id and r.state = 'filed'
-      join part p on p.id = l.part_id and p.status = 'returned'
-     where l.build_id = ? and l.kind = 'part' and l.system_id is not null
-       and not exists (select 1 from receipt_line rl join receipt rr on rr.id = rl.receipt_id and rr.state = 'filed'
-                        where rl.kind = 'return' and (rl.return_of_id = l.id or rl.part_id = p.id))
+           sum(${LINE_TOTAL}) filter (where ${FIGURE_FILTER.spent}) as spent,
+           sum(${LINE_TOTAL}) filter (where ${FIGURE_FILTER.netCost}) as net_cost,
+           sum(${LINE_TOTAL}) filter (where ${FIGURE_FILTER.coreDepositsOutstanding}) as cores_outstanding,
+           sum(${LINE_TOTAL}) filter (where ${FIGURE_FILTER.returnsAwaitingRefund}) as returns_awaiting
+      ${filedLines()}
      group by l.system_id
   )
   select s.id, s.name, s.budget,
          coalesce(parts.estimate, 0) as estimate, coalesce(parts.remaining_estimate, 0) as remaining_estimate,
          coalesce(lines.spent, 0) as spent, coalesce(lines.net_cost, 0) as net_cost,
-         coalesce(lines.cores_outstanding, 0) as cores_outstanding, coalesce(awaiting.returns_awaiting, 0) as returns_awaiting
+         coalesce(lines.cores_outstanding, 0) as cores_outstanding, coalesce(lines.returns_awaiting, 0) as returns_awaiting
     from vehicle_system s
     left join parts on parts.system_id = s.id
     left join lines on lines.system_id = s.id
-    left join awaiting on awaiting.system_id = s.id
    where s.build_id = ? and (s.archived_at is null or lines.spent is not null)
    order by s.sort_order, s.created_at`;
 
@@ -107,7 +121,7 @@ export function addFigures(rows: LedgerFigures[], places: number): LedgerFigures
 
 export async function buildLedger(em: EntityManager, build: Build): Promise<LedgerDto> {
   const places = minorUnits(build.currency);
-  const rows = await em.getConnection().execute<SystemRow[]>(SYSTEM_FIGURES, [places, places, build.id, build.id, build.id, build.id]);
+  const rows = await em.getConnection().execute<SystemRow[]>(SYSTEM_FIGURES, [places, places, build.id, build.id, build.id]);
   const { factor, sample } = await overrunFactor(em, build);
   const money = (value: string | Decimal) => roundHalfUp(typeof value === 'string' ? toDecimal(String(value)) : value, places);
   const systems = rows.map((row) => {

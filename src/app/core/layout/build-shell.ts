@@ -21,9 +21,10 @@ export interface BuildSection {
  */
 export const BUILD_SECTIONS: readonly BuildSection[] = [
   { path: '.', label: 'Overview', icon: 'directions_car' },
+  { path: 'ledger', label: 'Ledger', icon: 'query_stats' },
   { path: 'receipts', label: 'Receipts', icon: 'receipt_long' },
   { path: 'parts', label: 'Parts', icon: 'list_alt' },
-  { path: 'budgets', label: 'Budgets', icon: 'savings' },
+  { path: 'budgets', label: 'Budgets', icon: 'savings', phoneBar: false },
   { path: 'inventory', label: 'Inventory', icon: 'inventory', phoneBar: false },
   { path: 'cores', label: 'Cores and returns', icon: 'autorenew', phoneBar: false },
   { path: 'crew', label: 'Crew', icon: 'group', phoneBar: false },

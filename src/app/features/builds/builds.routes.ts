@@ -22,6 +22,7 @@ export const buildsRoutes: Routes = [
           { path: 'crew', loadChildren: () => import('../crew/crew.routes').then((m) => m.crewRoutes) },
           { path: 'receipts', loadChildren: () => import('../receipts/receipts.routes').then((m) => m.receiptsRoutes) },
           { path: 'cores', loadChildren: () => import('../receipts/receipts.routes').then((m) => m.coresRoutes) },
+          { path: 'ledger', loadChildren: () => import('../ledger/ledger.routes').then((m) => m.ledgerRoutes) },
           { path: 'alerts', loadChildren: () => import('../alerts/alerts.routes').then((m) => m.alertsRoutes) },
           // Parts, Budgets and Inventory share one lazy chunk; listed last so other sections never load it.
           { path: '', loadChildren: () => import('../parts/parts.routes').then((m) => m.partsRoutes) },

@@ -1,0 +1,232 @@
+// Each system's budget against its net cost and forecast: a bar chart, and the same figures as a table whose money
+// figures open the lines behind them.
+import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
+import { MatIconModule } from '@angular/material/icon';
+import type { LedgerDto, LedgerLineFigure, LedgerSystemDto } from '../../../../../shared/api/ledger';
+import { Decimal } from '../../../../../shared/money';
+import { moneyText, MoneyPipe } from '../../../ui/money';
+import { FIGURE_LABELS, absolute, varianceWords, type LinesRequest } from '../models/ledger-words';
+import { BarChart, type BarClick, type ChartSeries } from './bar-chart';
+import { LEDGER_COLORS } from './ledger-colors';
+
+const FIGURES_SHOWN = ['budget', 'spent', 'netCost', 'forecast', 'coreDepositsOutstanding', 'returnsAwaitingRefund'] as const;
+
+export function hasFigures(system: LedgerSystemDto): boolean {
+  return FIGURES_SHOWN.some((key) => !new Decimal(system[key]).isZero());
+}
+
+const LINKED: LedgerLineFigure[] = ['spent', 'netCost', 'coreDepositsOutstanding', 'returnsAwaitingRefund'];
+
+@Component({
+  selector: 'th-system-bars',
+  imports: [MatIconModule, MoneyPipe, BarChart],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  template: `
+    <th-bar-chart
+      [categories]="names()"
+      [series]="series()"
+      [horizontal]="true"
+      [height]="chartHeight()"
+      [format]="format()"
+      [summary]="'Bar chart of budget, net cost and forecast for each system; the table below lists the same figures.'"
+      (barClick)="clicked($event)"
+    />
+    <p class="hint">Select a net cost or forecast bar, or a figure in the table, to see the receipt lines behind it.</p>
+    <div class="table-box" role="region" aria-label="Figures by system" tabindex="0">
+      <table class="systems">
+        <caption class="visually-hidden">Figures by system, in {{ ledger().currency }}</caption>
+        <thead>
+          <tr>
+            <th scope="col">System</th>
+            <th scope="col" class="number">Budget</th>
+            <th scope="col" class="number">Spent</th>
+            <th scope="col" class="number">Net cost</th>
+            <th scope="col" class="number">Forecast</th>
+            <th scope="col" class="number">Variance</th>
+            <th scope="col" class="number">Cores out</th>
+            <th scope="col" class="number">Returns due</th>
+          </tr>
+        </thead>
+        <tbody>
+          @for (system of shown(); track system.systemId) {
+            @let variance = varianceOf(system);
+            <tr>
+              <th scope="row" class="name">
+                {{ system.name }}
+                @if (system.safetyCaution) {
+                  <mat-icon class="caution-icon" inline aria-hidden="true">health_and_safety</mat-icon>
+                  <span class="visually-hidden"> (safety caution applies)</span>
+                }
+              </th>
+              <td class="number tabular">{{ system.budget | money: ledger().currency : locale() }}</td>
+              @for (figure of linkedFirst; track figure) {
+                <td class="number tabular">
+                  @if (isZero(system[figure])) {
+                    {{ system[figure] | money: ledger().currency : locale() }}
+                  } @else {
+                    <button type="button" class="figure-button" (click)="openFigure(system, figure)">
+                      {{ system[figure] | money: ledger().currency : locale() }} <span class="visually-hidden">({{ labels[figure] }} of {{ system.name }}: show the lines)</span>
+                    </button>
+                  }
+                </td>
+              }
+              <td class="number tabular">{{ system.forecast | money: ledger().currency : locale() }}</td>
+              <td class="number tabular" [class.over]="!variance.under" [class.under]="variance.under">
+                <span class="variance">
+                  <mat-icon inline aria-hidden="true">{{ variance.under ? 'check_circle' : 'warning' }}</mat-icon>
+                  {{ variance.amount | money: ledger().currency : locale() }} {{ variance.under ? 'under' : 'over' }}
+                </span>
+              </td>
+              @for (figure of linkedLast; track figure) {
+                <td class="number tabular">
+                  @if (isZero(system[figure])) {
+                    {{ system[figure] | money: ledger().currency : locale() }}
+                  } @else {
+                    <button type="button" class="figure-button" (click)="openFigure(system, figure)">
+                      {{ system[figure] | money: ledger().currency : locale() }} <span class="visually-hidden">({{ labels[figure] }} of {{ system.name }}: show the lines)</span>
+                    </button>
+                  }
+                </td>
+              }
+            </tr>
+          }
+        </tbody>
+      </table>
+    </div>
+    @if (idle().length > 0) {
+      <p class="hint">Nothing budgeted, planned or spent yet, so left out: {{ idle().join(', ') }}.</p>
+    }
+  `,
+  styles: `
+    :host {
+      display: block;
+    }
+    .hint {
+      font: var(--mat-sys-body-small);
+      color: var(--mat-sys-on-surface-variant);
+      margin: 8px 0;
+    }
+    .table-box {
+      /* Positioned, so the hidden words of its buttons (absolutely placed) scroll with it instead of widening the page. */
+      position: relative;
+      overflow-x: auto;
+      border: 1px solid var(--mat-sys-outline-variant);
+      border-radius: 12px;
+    }
+    .table-box:focus-visible {
+      outline: 2px solid var(--mat-sys-primary);
+      outline-offset: 2px;
+    }
+    table {
+      border-collapse: collapse;
+      width: 100%;
+      font: var(--mat-sys-body-medium);
+    }
+    th,
+    td {
+      padding: 8px 10px;
+      border-bottom: 1px solid var(--mat-sys-outline-variant);
+      white-space: nowrap;
+      text-align: left;
+    }
+    thead th {
+      font: var(--mat-sys-label-medium);
+      color: var(--mat-sys-on-surface-variant);
+      background: var(--mat-sys-surface-container-low);
+    }
+    tbody tr:last-child > * {
+      border-bottom: none;
+    }
+    .number {
+      text-align: right;
+    }
+    .name {
+      font-weight: 500;
+      position: sticky;
+      left: 0;
+      background: var(--mat-sys-surface);
+    }
+    thead th:first-child {
+      position: sticky;
+      left: 0;
+    }
+    .caution-icon {
+      color: var(--mat-sys-tertiary);
+      vertical-align: -2px;
+    }
+    .over {
+      color: var(--mat-sys-error);
+    }
+    .under mat-icon {
+      color: var(--mat-sys-primary);
+    }
+    .variance {
+      display: inline-flex;
+      align-items: center;
+      gap: 4px;
+    }
+    .figure-button {
+      font: inherit;
+      color: var(--mat-sys-primary);
+      background: none;
+      border: none;
+      padding: 0;
+      min-height: 24px;
+      min-width: 24px;
+      text-decoration: underline;
+      text-underline-offset: 3px;
+      cursor: pointer;
+    }
+    .figure-button:focus-visible {
+      outline: 2px solid var(--mat-sys-primary);
+      outline-offset: 2px;
+    }
+  `,
+})
+export class SystemBars {
+  readonly ledger = input.required<LedgerDto>();
+  readonly locale = input.required<string>();
+  readonly open = output<LinesRequest>();
+
+  protected readonly labels = FIGURE_LABELS;
+  protected readonly linkedFirst: LedgerLineFigure[] = LINKED.slice(0, 2);
+  protected readonly linkedLast: LedgerLineFigure[] = LINKED.slice(2);
+
+  /** Systems with a figure to show; a dozen rows of zeros would hide the few that matter. */
+  protected readonly shown = computed(() => this.ledger().systems.filter((system) => hasFigures(system)));
+  protected readonly idle = computed(() => this.ledger().systems.filter((system) => !hasFigures(system)).map((system) => system.name));
+  protected readonly names = computed(() => this.shown().map((system) => system.name));
+  protected readonly chartHeight = computed(() => 64 + this.shown().length * 56);
+  protected readonly series = computed<ChartSeries[]>(() => {
+    const systems = this.shown();
+    return [
+      { label: 'Budget', values: systems.map((s) => s.budget), color: LEDGER_COLORS.budget, outline: true },
+      { label: 'Net cost', values: systems.map((s) => s.netCost), color: LEDGER_COLORS.netCost },
+      { label: 'Forecast', values: systems.map((s) => s.forecast), color: LEDGER_COLORS.forecast },
+    ];
+  });
+  protected readonly format = computed(() => {
+    const currency = this.ledger().currency;
+    const locale = this.locale();
+    return (amount: string) => moneyText(amount, currency, locale);
+  });
+
+  protected varianceOf(system: LedgerSystemDto): { under: boolean; amount: string } {
+    return { under: varianceWords(system.variance).under, amount: absolute(system.variance) };
+  }
+
+  protected isZero(amount: string): boolean {
+    return new Decimal(amount).isZero();
+  }
+
+  protected openFigure(system: LedgerSystemDto, figure: LedgerLineFigure): void {
+    this.open.emit({ figure, systemId: system.systemId, title: `${FIGURE_LABELS[figure]} of ${system.name}` });
+  }
+
+  /** A budget bar has no lines behind it; net cost and forecast bars open the net cost's lines (what is bought so far). */
+  protected clicked(click: BarClick): void {
+    const system = this.shown()[click.index];
+    if (!system || click.seriesIndex === 0) return;
+    this.openFigure(system, 'netCost');
+  }
+}

@@ -1,0 +1,408 @@
+// /builds/:buildId/ledger: the build's money at a glance: totals, each system against its budget, spend over time
+// and by shop; every money figure and bar opens the receipt lines behind it.
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked } from '@angular/core';
+import { MatButtonToggleModule } from '@angular/material/button-toggle';
+import { MatDialog } from '@angular/material/dialog';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { RouterLink } from '@angular/router';
+import { forkJoin } from 'rxjs';
+import type { LedgerDto, LedgerLineFigure, SpendPeriod, SpendResponse, VendorSpendDto, VendorsResponse } from '../../../../../shared/api/ledger';
+import { Decimal } from '../../../../../shared/money';
+import { SAFETY_CAUTION } from '../../../../../shared/safety';
+import { EmptyState } from '../../../ui/empty-state';
+import { MoneyPipe, moneyText } from '../../../ui/money';
+import { CurrentBuild } from '../../builds/services/current-build';
+import { BarChart, type BarClick, type ChartSeries } from '../components/bar-chart';
+import { LEDGER_COLORS } from '../components/ledger-colors';
+import { LinesDialog, type LinesDialogData } from '../components/lines-dialog';
+import { SystemBars, hasFigures } from '../components/system-bars';
+import { TotalsStrip } from '../components/totals-strip';
+import { FIGURE_LABELS, type LinesRequest } from '../models/ledger-words';
+import { LedgerApi } from '../services/ledger-api';
+
+const MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
+
+/** "2026-07" as "Jul 2026" on the axis and "July 2026" in words; a week "2026-W27" as "Week 27, 2026". */
+function periodWords(period: string, short: boolean): string {
+  const week = /^(\d{4})-W(\d{2})$/.exec(period);
+  if (week) return short ? `W${Number(week[2])} ${week[1]}` : `week ${Number(week[2])} of ${week[1]}`;
+  const [year, month] = period.split('-');
+  const name = MONTHS[Number(month) - 1] ?? month;
+  return `${short ? name.slice(0, 3) : name} ${year}`;
+}
+
+@Component({
+  selector: 'th-ledger-page',
+  imports: [MatButtonToggleModule, MatIconModule, MatProgressBarModule, RouterLink, BarChart, EmptyState, MoneyPipe, SystemBars, TotalsStrip],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  template: `
+    @if (loading()) {
+      <mat-progress-bar mode="indeterminate" aria-label="Loading the ledger" />
+    }
+    <div class="page">
+      <h1 class="page-heading">Ledger</h1>
+      @if (problem()) {
+        <p class="notice notice-error" role="alert">{{ problem() }}</p>
+      }
+
+      @if (ledger(); as ledger) {
+        @if (nothingFiled()) {
+          <th-empty-state icon="query_stats" heading="Upload a receipt to start the ledger">
+            <p>
+              The ledger adds up filed receipts: each system's net cost against its budget, the forecast, and spend over time and by
+              shop.
+              @if (canAddReceipts()) {
+                Add a receipt, check its lines and file it, and its money shows here.
+              } @else {
+                Once the owner or crew file a receipt, its money shows here.
+              }
+            </p>
+            <a emptyStateActions class="cta-link" routerLink="../receipts">
+              <mat-icon aria-hidden="true">receipt_long</mat-icon>
+              Go to Receipts
+            </a>
+          </th-empty-state>
+        } @else {
+          <section aria-labelledby="totals-heading">
+            <h2 id="totals-heading" class="visually-hidden">Whole build</h2>
+            <th-totals-strip [ledger]="ledger" [locale]="locale()" (open)="openTotal($event)" />
+          </section>
+
+          @if (hasCaution()) {
+            <p class="notice caution" role="note">
+              <mat-icon aria-hidden="true">health_and_safety</mat-icon>
+              <span>{{ cautionSystems() }}: {{ safetyCaution }}</span>
+            </p>
+          }
+
+          <section aria-labelledby="systems-heading">
+            <h2 id="systems-heading" class="section-heading">By system</h2>
+            <th-system-bars [ledger]="ledger" [locale]="locale()" (open)="openLines($event)" />
+          </section>
+
+          <section aria-labelledby="time-heading">
+            <div class="section-header">
+              <h2 id="time-heading" class="section-heading">Spend over time</h2>
+              <mat-button-toggle-group [value]="by()" (change)="setPeriod($event.value)" aria-label="Group spend by" hideSingleSelectionIndicator>
+                <mat-button-toggle value="month">By month</mat-button-toggle>
+                <mat-button-toggle value="week">By week</mat-button-toggle>
+              </mat-button-toggle-group>
+            </div>
+            @if (spend(); as spend) {
+              <th-bar-chart
+                [categories]="periodLabels()"
+                [series]="spendSeries()"
+                [format]="format()"
+                [summary]="'Bar chart of money spent and net cost ' + (by() === 'month' ? 'per month' : 'per week') + '; the table below lists the same figures.'"
+                (barClick)="periodClicked($event)"
+              />
+              <details class="figures-table">
+                <summary>Figures {{ by() === 'month' ? 'by month' : 'by week' }}</summary>
+                <div class="table-box" role="region" [attr.aria-label]="'Spend ' + (by() === 'month' ? 'by month' : 'by week')" tabindex="0">
+                  <table>
+                    <thead>
+                      <tr>
+                        <th scope="col">{{ by() === 'month' ? 'Month' : 'Week' }}</th>
+                        <th scope="col" class="number">Spent</th>
+                        <th scope="col" class="number">Net cost</th>
+                      </tr>
+                    </thead>
+                    <tbody>
+                      @for (row of spend.periods; track row.period) {
+                        <tr>
+                          <th scope="row">{{ periodName(row.period) }}</th>
+                          @for (figure of periodFigures; track figure) {
+                            <td class="number tabular">
+                              @if (isZero(row[figure])) {
+                                {{ row[figure] | money: ledger.currency : locale() }}
+                              } @else {
+                                <button type="button" class="figure-button" (click)="openPeriod(row.period, figure)">
+                                  {{ row[figure] | money: ledger.currency : locale() }} <span class="visually-hidden">({{ labels[figure] }} in {{ periodName(row.period) }}: show the lines)</span>
+                                </button>
+                              }
+                            </td>
+                          }
+                        </tr>
+                      }
+                    </tbody>
+                  </table>
+                </div>
+              </details>
+            }
+          </section>
+
+          <section aria-labelledby="vendors-heading">
+            <h2 id="vendors-heading" class="section-heading">By shop</h2>
+            @if (vendors(); as vendors) {
+              <th-bar-chart
+                [categories]="vendorNames()"
+                [series]="vendorSeries()"
+                [horizontal]="true"
+                [height]="64 + vendors.vendors.length * 40"
+                [format]="format()"
+                [summary]="'Bar chart of net cost per shop, largest first; the table below lists the same figures.'"
+                (barClick)="vendorClicked($event)"
+              />
+              <div class="table-box" role="region" aria-label="Spend by shop" tabindex="0">
+                <table>
+                  <thead>
+                    <tr>
+                      <th scope="col">Shop</th>
+                      <th scope="col" class="number">Receipts</th>
+                      <th scope="col" class="number">Spent</th>
+                      <th scope="col" class="number">Net cost</th>
+                    </tr>
+                  </thead>
+                  <tbody>
+                    @for (vendor of vendors.vendors; track vendor.vendorId) {
+                      <tr>
+                        <th scope="row">{{ vendorName(vendor) }}</th>
+                        <td class="number tabular">{{ vendor.receipts }}</td>
+                        @for (figure of periodFigures; track figure) {
+                          <td class="number tabular">
+                            @if (isZero(vendor[figure])) {
+                              {{ vendor[figure] | money: ledger.currency : locale() }}
+                            } @else {
+                              <button type="button" class="figure-button" (click)="openVendor(vendor, figure)">
+                                {{ vendor[figure] | money: ledger.currency : locale() }} <span class="visually-hidden">({{ labels[figure] }} at {{ vendorName(vendor) }}: show the lines)</span>
+                              </button>
+                            }
+                          </td>
+                        }
+                      </tr>
+                    }
+                  </tbody>
+                </table>
+              </div>
+            }
+          </section>
+        }
+      }
+    </div>
+  `,
+  styles: `
+    section {
+      margin-bottom: 24px;
+    }
+    .section-heading {
+      font: var(--mat-sys-title-large);
+      margin: 24px 0 12px;
+    }
+    .section-header {
+      display: flex;
+      flex-wrap: wrap;
+      align-items: center;
+      justify-content: space-between;
+      gap: 8px 16px;
+    }
+    .caution mat-icon {
+      flex: none;
+    }
+    .caution {
+      display: flex;
+      gap: 8px;
+      align-items: flex-start;
+      margin-top: 16px;
+      background: var(--mat-sys-tertiary-container);
+      color: var(--mat-sys-on-tertiary-container);
+    }
+    .cta-link {
+      display: inline-flex;
+      align-items: center;
+      gap: 8px;
+      min-height: 48px;
+      padding: 0 24px;
+      border-radius: 24px;
+      background: var(--th-brass);
+      color: var(--th-on-brass);
+      font: var(--mat-sys-label-large);
+      text-decoration: none;
+    }
+    .cta-link:focus-visible {
+      outline: 2px solid var(--mat-sys-primary);
+      outline-offset: 2px;
+    }
+    .figures-table {
+      margin-top: 8px;
+    }
+    .figures-table summary {
+      cursor: pointer;
+      min-height: 24px;
+      color: var(--mat-sys-primary);
+      margin-bottom: 8px;
+    }
+    .table-box {
+      /* Positioned, so the hidden words of its buttons (absolutely placed) scroll with it instead of widening the page. */
+      position: relative;
+      overflow-x: auto;
+      border: 1px solid var(--mat-sys-outline-variant);
+      border-radius: 12px;
+      margin-top: 8px;
+    }
+    .table-box:focus-visible {
+      outline: 2px solid var(--mat-sys-primary);
+      outline-offset: 2px;
+    }
+    table {
+      border-collapse: collapse;
+      width: 100%;
+      font: var(--mat-sys-body-medium);
+    }
+    th,
+    td {
+      padding: 8px 10px;
+      border-bottom: 1px solid var(--mat-sys-outline-variant);
+      text-align: left;
+    }
+    thead th {
+      font: var(--mat-sys-label-medium);
+      color: var(--mat-sys-on-surface-variant);
+      background: var(--mat-sys-surface-container-low);
+    }
+    tbody th {
+      font-weight: 500;
+    }
+    tbody tr:last-child > * {
+      border-bottom: none;
+    }
+    .number {
+      text-align: right;
+      white-space: nowrap;
+    }
+    .figure-button {
+      font: inherit;
+      color: var(--mat-sys-primary);
+      background: none;
+      border: none;
+      padding: 0;
+      min-height: 24px;
+      text-decoration: underline;
+      text-underline-offset: 3px;
+      cursor: pointer;
+    }
+    .figure-button:focus-visible {
+      outline: 2px solid var(--mat-sys-primary);
+      outline-offset: 2px;
+    }
+  `,
+})
+export class LedgerPage {
+  private readonly ledgerApi = inject(LedgerApi);
+  private readonly dialog = inject(MatDialog);
+  private readonly current = inject(CurrentBuild);
+
+  /** Route parameter (inherited from the build), bound by the router. */
+  readonly buildId = input.required<string>();
+
+  protected readonly safetyCaution = SAFETY_CAUTION;
+  protected readonly labels = FIGURE_LABELS;
+  protected readonly periodFigures = ['spent', 'netCost'] as const;
+
+  protected readonly ledger = signal<LedgerDto | null>(null);
+  protected readonly spend = signal<SpendResponse | null>(null);
+  protected readonly vendors = signal<VendorsResponse | null>(null);
+  protected readonly by = signal<SpendPeriod>('month');
+  protected readonly loading = signal(false);
+  protected readonly problem = signal('');
+
+  protected readonly locale = computed(() => this.current.build()?.locale ?? 'en-US');
+  protected readonly canAddReceipts = computed(() => this.current.build()?.role !== 'reviewer');
+  /** Nothing filed yet: no period has any line (the spend series only spans filed purchases). */
+  protected readonly nothingFiled = computed(() => this.spend()?.periods.length === 0);
+  /** The caution names the systems the page shows (those with figures), not every system the build could have. */
+  protected readonly hasCaution = computed(() => (this.ledger()?.systems ?? []).some((system) => system.safetyCaution && hasFigures(system)));
+  protected readonly cautionSystems = computed(() =>
+    (this.ledger()?.systems ?? [])
+      .filter((system) => system.safetyCaution && hasFigures(system))
+      .map((system) => system.name)
+      .join(', '),
+  );
+  protected readonly format = computed(() => {
+    const currency = this.ledger()?.currency ?? '';
+    const locale = this.locale();
+    return (amount: string) => moneyText(amount, currency, locale);
+  });
+  protected readonly periodLabels = computed(() => (this.spend()?.periods ?? []).map((row) => periodWords(row.period, true)));
+  protected readonly spendSeries = computed<ChartSeries[]>(() => {
+    const periods = this.spend()?.periods ?? [];
+    return [
+      { label: 'Spent', values: periods.map((row) => row.spent), color: LEDGER_COLORS.spent },
+      { label: 'Net cost', values: periods.map((row) => row.netCost), color: LEDGER_COLORS.netCost },
+    ];
+  });
+  protected readonly vendorNames = computed(() => (this.vendors()?.vendors ?? []).map((vendor) => this.vendorName(vendor)));
+  protected readonly vendorSeries = computed<ChartSeries[]>(() => [
+    { label: 'Net cost', values: (this.vendors()?.vendors ?? []).map((vendor) => vendor.netCost), color: LEDGER_COLORS.netCost },
+  ]);
+
+  constructor() {
+    effect(() => {
+      const buildId = this.buildId();
+      untracked(() => this.load(buildId));
+    });
+  }
+
+  protected periodName(period: string): string {
+    return periodWords(period, false);
+  }
+
+  protected vendorName(vendor: VendorSpendDto): string {
+    return vendor.vendor ?? 'Shop not named';
+  }
+
+  protected isZero(amount: string): boolean {
+    return new Decimal(amount).isZero();
+  }
+
+  protected setPeriod(by: SpendPeriod): void {
+    this.by.set(by);
+    this.ledgerApi.spend(this.buildId(), by).subscribe({ next: (spend) => this.spend.set(spend) });
+  }
+
+  protected openTotal(figure: LedgerLineFigure): void {
+    this.openLines({ figure, title: `${FIGURE_LABELS[figure]} of the whole build` });
+  }
+
+  protected openPeriod(period: string, figure: LedgerLineFigure): void {
+    this.openLines({ figure, period, title: `${FIGURE_LABELS[figure]} in ${periodWords(period, false)}` });
+  }
+
+  protected openVendor(vendor: VendorSpendDto, figure: LedgerLineFigure): void {
+    this.openLines({ figure, vendorId: vendor.vendorId ?? 'none', title: `${FIGURE_LABELS[figure]} at ${this.vendorName(vendor)}` });
+  }
+
+  protected periodClicked(click: BarClick): void {
+    const row = this.spend()?.periods[click.index];
+    if (row) this.openPeriod(row.period, click.seriesIndex === 0 ? 'spent' : 'netCost');
+  }
+
+  protected vendorClicked(click: BarClick): void {
+    const vendor = this.vendors()?.vendors[click.index];
+    if (vendor) this.openVendor(vendor, 'netCost');
+  }
+
+  protected openLines(request: LinesRequest): void {
+    const ledger = this.ledger();
+    if (!ledger) return;
+    const data: LinesDialogData = { buildId: this.buildId(), currency: ledger.currency, locale: this.locale(), request };
+    this.dialog.open(LinesDialog, { data, width: '640px', maxWidth: 'calc(100vw - 24px)', autoFocus: 'dialog' });
+  }
+
+  private load(buildId: string): void {
+    this.loading.set(true);
+    this.problem.set('');
+    forkJoin([this.ledgerApi.ledger(buildId), this.ledgerApi.spend(buildId, this.by()), this.ledgerApi.vendors(buildId)]).subscribe({
+      next: ([ledger, spend, vendors]) => {
+        this.ledger.set(ledger);
+        this.spend.set(spend);
+        this.vendors.set(vendors);
+        this.loading.set(false);
+      },
+      error: () => {
+        this.problem.set('The ledger could not be loaded. Check your connection and reload the page.');
+        this.loading.set(false);
+      },
+    });
+  }
+}

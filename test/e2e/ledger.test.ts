@@ -1,0 +1,129 @@
+// In Debian's chromium: a build with two filed receipts; the ledger shows the API's totals formatted, a system's net
+// cost opens the lines behind it with links to their receipts, a bar of the chart does too, and an empty build says
+// what to do first. Screenshots at desktop and phone widths; axe finds no WCAG A/AA violation.
+import type { Browser, Page } from 'playwright-core';
+import { formatMoney, toDecimal } from '../../shared/money';
+import { NEW_BUILD, signedUpClient, TEST_PASSWORD } from '../support/api-client';
+import { accessibilityViolations, launchBrowser, newPage, screenshot } from '../support/browser';
+import { filedReceipt } from '../support/receipts';
+import { startTestApp, type TestApp } from '../support/test-app';
+
+jest.setTimeout(180_000);
+
+let t: TestApp;
+let browser: Browser;
+beforeAll(async () => {
+  t = await startTestApp({ serveClient: true });
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+  await t?.close();
+});
+
+async function signIn(page: Page, email: string) {
+  await page.goto(`${t.url}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(TEST_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('heading', { name: 'Your builds' }).waitFor();
+}
+
+const usd = (amount: string) => formatMoney(toDecimal(amount), 'USD', 'en-US');
+
+it('shows the ledger of two filed receipts and the lines behind a figure', async () => {
+  const owner = await signedUpClient(t.app, 'e2e-ledger');
+  const { client } = owner;
+  const buildId = (await client.post('/api/builds', { ...NEW_BUILD, name: 'Teal wagon swap', locale: 'en-US' })).body.id as string;
+  const systems = (await client.get(`/api/builds/${buildId}/systems`)).body.systems as { id: string; name: string; version: number }[];
+  const system = (name: string) => systems.find((s) => s.name === name)!;
+  for (const [name, budget] of [['Engine', '400.00'], ['Cooling', '60.00'], ['Brakes', '900.00']] as const) {
+    expect((await client.patch(`/api/builds/${buildId}/systems/${system(name).id}`, { budget, version: system(name).version })).status).toBe(200);
+  }
+  // Parts still to buy make the forecast differ from the net cost: Brakes 2 × 149.50 = 299.00.
+  await client.post(`/api/builds/${buildId}/parts`, { systemId: system('Brakes').id, description: 'Front caliper, reman', quantity: '2', unit: 'each', estimatedUnitCost: '149.50' });
+
+  // Receipt A (as in test/api/ledger-screen.test.ts): alternator 69.85, core 23.42 owed, coolant 34.93, fee 11.00.
+  await filedReceipt(t, client, buildId, { vendorName: 'Quayside Parts', purchaseDate: '2026-07-03', tax: '7.21', shipping: '9.99', total: '139.20' }, [
+    { kind: 'part', description: 'Alternator, reman', amount: '60.00', systemId: system('Engine').id },
+    { kind: 'core_charge', description: 'Alternator core', amount: '22.00', systemId: system('Engine').id },
+    { kind: 'part', description: 'Coolant', amount: '30.00', systemId: system('Cooling').id },
+    { kind: 'fee', description: 'Bench test', amount: '10.00', taxable: false, systemId: system('Engine').id },
+  ]);
+  // Receipt B: discount 14.00 over 25 : 15 : 100 -> 2.50, 1.50, 10.00; thermostat 22.50, cap 13.50, starter 90.00.
+  await filedReceipt(t, client, buildId, { vendorName: 'Harbour Row Supply', purchaseDate: '2026-08-20', discount: '14.00', total: '126.00' }, [
+    { kind: 'part', description: 'Thermostat', amount: '25.00', systemId: system('Cooling').id },
+    { kind: 'part', description: 'Radiator cap', amount: '15.00', systemId: system('Cooling').id },
+    { kind: 'part', description: 'Starter', amount: '100.00', systemId: system('Engine').id },
+  ]);
+  const ledger = (await client.get(`/api/builds/${buildId}/ledger`)).body;
+  // Engine net 69.85 + 11.00 + 90.00 = 170.85; Cooling 34.93 + 22.50 + 13.50 = 70.93 (over its 60.00); build 241.78.
+  expect(ledger.total.netCost).toBe('241.78');
+
+  const page = await newPage(browser);
+  await signIn(page, owner.email);
+  await page.goto(`${t.url}/builds/${buildId}/ledger`);
+  await page.getByRole('heading', { name: 'Ledger', level: 1 }).waitFor();
+  // The total on screen is the API's figure, formatted (its hidden words say what the button opens).
+  const netCost = page.locator('dt', { hasText: /^Net cost$/ }).locator('xpath=following-sibling::dd[1]').getByRole('button');
+  await expect(netCost.getAttribute('class')).resolves.toBe('figure-button');
+  await expect(netCost.innerText()).resolves.toBe(`${usd(ledger.total.netCost)}\n(show the lines behind the net cost)`);
+  expect(usd(ledger.total.netCost)).toBe('$241.78');
+  const forecast = page.locator('dt', { hasText: /^Forecast$/ }).locator('xpath=following-sibling::dd[1]');
+  // 241.78 + 299.00 = 540.78.
+  await expect(forecast.innerText()).resolves.toBe('$540.78');
+  // Cooling: 60.00 - 70.93 = 10.93 over its budget, said in words.
+  await page.getByRole('row', { name: /^Cooling/ }).getByRole('cell', { name: '$10.93 over' }).waitFor();
+  await page.getByRole('note').filter({ hasText: "manufacturer's instructions" }).waitFor();
+  await screenshot(page, 'ledger-desktop');
+  expect(await accessibilityViolations(page)).toEqual([]);
+
+  // A system's net cost in the table opens its lines, which add up to it and link to their receipts.
+  await page.getByRole('button', { name: '$170.85 (Net cost of Engine: show the lines)' }).click();
+  const dialog = page.getByRole('dialog');
+  await dialog.getByRole('heading', { name: 'Net cost of Engine' }).waitFor();
+  await dialog.getByText('3 lines add up to $170.85').waitFor();
+  await dialog.getByText('$60.00 on the receipt + tax $3.86 + shipping $5.99').waitFor();
+  await screenshot(page, 'ledger-lines');
+  expect(await accessibilityViolations(page)).toEqual([]);
+  await dialog.getByRole('link', { name: 'Starter' }).click();
+  await page.waitForURL(/\/receipts\/[0-9a-f-]{36}$/);
+  await page.goBack();
+
+  // Spend by week, then a bar of the shops chart opens that shop's lines.
+  await page.getByRole('heading', { name: 'Ledger', level: 1 }).waitFor();
+  await page.getByRole('radio', { name: 'By week' }).click();
+  await page.getByText('Figures by week').waitFor();
+  const shopsChart = page.locator('th-bar-chart').nth(2);
+  await shopsChart.scrollIntoViewIfNeeded();
+  const box = (await shopsChart.boundingBox())!;
+  // Largest first: Harbour Row Supply (126.00), then Quayside Parts (115.78); below the legend, the first bar is in the
+  // upper half of the plot (the chart is 64 + 2 × 40 px high).
+  await page.mouse.click(box.x + box.width * 0.3, box.y + 56);
+  await page.getByRole('dialog').getByRole('heading', { name: 'Net cost at Harbour Row Supply' }).waitFor();
+  await page.getByRole('dialog').getByText('3 lines add up to $126.00').waitFor();
+  await page.getByRole('button', { name: 'Close' }).click();
+
+  const phone = await newPage(browser, { phone: true });
+  await signIn(phone, owner.email);
+  await phone.goto(`${t.url}/builds/${buildId}`);
+  await phone.getByRole('link', { name: 'Ledger' }).click();
+  await phone.getByRole('heading', { name: 'By system' }).waitFor();
+  // Nothing widens the page at 390 px: the wide table scrolls inside its own box.
+  await expect(phone.evaluate('document.documentElement.scrollWidth')).resolves.toBe(390);
+  await screenshot(phone, 'ledger-phone');
+  expect(await accessibilityViolations(phone)).toEqual([]);
+  await phone.getByRole('button', { name: '$70.93 (Net cost of Cooling: show the lines)' }).click();
+  await phone.getByRole('dialog').getByText('3 lines add up to $70.93').waitFor();
+  await screenshot(phone, 'ledger-lines-phone');
+  expect(await accessibilityViolations(phone)).toEqual([]);
+
+  // A build with nothing filed says what to do first.
+  const empty = (await client.post('/api/builds', { ...NEW_BUILD, name: 'Empty shell' })).body.id as string;
+  await page.goto(`${t.url}/builds/${empty}/ledger`);
+  await page.getByRole('heading', { name: 'Upload a receipt to start the ledger' }).waitFor();
+  await screenshot(page, 'ledger-empty');
+  expect(await accessibilityViolations(page)).toEqual([]);
+  await page.getByRole('link', { name: 'Go to Receipts' }).click();
+  await page.getByRole('heading', { name: 'Receipts', level: 1 }).waitFor();
+});
