@@ -220,6 +220,7 @@ const ROUTES: RouteCase[] = [
   },
   { name: 'GET /api/builds/:buildId/exports/tax-ledger.csv', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/exports/tax-ledger.csv`), expected: readable },
   { name: 'GET /api/builds/:buildId/exports/build-sheet.csv', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/exports/build-sheet.csv`), expected: readable },
+  { name: 'GET /api/builds/:buildId/exports/build-sheet', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/exports/build-sheet`), expected: readable },
   { name: 'GET /api/builds/:buildId/exports/archive.zip', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/exports/archive.zip`), expected: readable },
   { name: 'GET /api/builds/:buildId/review-queue', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/review-queue`), expected: readable },
   {

@@ -1,15 +1,18 @@
 // The ledger and the exports: every member of a build may read and export them.
 import { Router, type Request } from 'express';
 import { pipeline } from 'node:stream/promises';
+import type { Build } from '../builds/build.entity';
 import { ANY_MEMBER, buildRole, em, isUuid, membershipOf } from '../http/build-access';
 import { NotFound, ValidationFailed } from '../http/errors';
 import { buildLedger } from '../ledger/ledger.service';
 import type { ObjectStore } from '../storage/object-store';
 import { writeArchive } from './archive';
-import { buildSheetCsv } from './build-sheet';
+import { VehicleSystem } from '../systems/vehicle-system.entity';
+import { buildSheetCsv, buildSheetJson } from './build-sheet';
 import { taxLedgerCsv, type ExportFilter } from './tax-ledger';
 
-function exportFilter(req: Request): ExportFilter {
+/** A system of another build is as unknown as one that does not exist: 404, never an empty file. */
+async function exportFilter(req: Request, build: Build): Promise<ExportFilter> {
   const fields: Record<string, string> = {};
   const date = (name: 'from' | 'to') => {
     const value = req.query[name];
@@ -23,6 +26,7 @@ function exportFilter(req: Request): ExportFilter {
     filter.systemId = req.query.systemId;
   }
   if (Object.keys(fields).length) throw new ValidationFailed(fields);
+  if (filter.systemId && !(await em().count(VehicleSystem, { id: filter.systemId, build }))) throw new NotFound('That system');
   return filter;
 }
 
@@ -40,7 +44,7 @@ export function exportsRoutes(deps: { store: ObjectStore }): Router {
 
   router.get('/exports/tax-ledger.csv', buildRole(...ANY_MEMBER), async (req, res) => {
     const build = membershipOf(res).build;
-    const filter = exportFilter(req);
+    const filter = await exportFilter(req, build);
     res.setHeader('Content-Type', 'text/csv; charset=utf-8; header=present');
     res.setHeader('Content-Disposition', `attachment; filename="${fileName(build.name, 'tax-ledger.csv')}"`);
     await pipeline(taxLedgerCsv(em(), build, filter), res);
@@ -48,10 +52,15 @@ export function exportsRoutes(deps: { store: ObjectStore }): Router {
 
   router.get('/exports/build-sheet.csv', buildRole(...ANY_MEMBER), async (req, res) => {
     const build = membershipOf(res).build;
-    const filter = exportFilter(req);
+    const filter = await exportFilter(req, build);
     res.setHeader('Content-Type', 'text/csv; charset=utf-8; header=present');
     res.setHeader('Content-Disposition', `attachment; filename="${fileName(build.name, 'build-sheet.csv')}"`);
     await pipeline(await buildSheetCsv(em(), build, filter), res);
+  });
+
+  router.get('/exports/build-sheet', buildRole(...ANY_MEMBER), async (req, res) => {
+    const build = membershipOf(res).build;
+    res.json(await buildSheetJson(em(), build, await exportFilter(req, build)));
   });
 
   router.get('/exports/archive.zip', buildRole(...ANY_MEMBER), async (_req, res) => {

@@ -27,6 +27,8 @@ export const BUILD_SECTIONS: readonly BuildSection[] = [
   { path: 'budgets', label: 'Budgets', icon: 'savings', phoneBar: false },
   { path: 'inventory', label: 'Inventory', icon: 'inventory', phoneBar: false },
   { path: 'cores', label: 'Cores and returns', icon: 'autorenew', phoneBar: false },
+  { path: 'review', label: 'Review', icon: 'fact_check', phoneBar: false },
+  { path: 'exports', label: 'Exports', icon: 'file_download', phoneBar: false },
   { path: 'crew', label: 'Crew', icon: 'group', phoneBar: false },
   { path: 'alerts', label: 'Mail alerts', icon: 'notifications', phoneBar: false },
 ];

@@ -22,6 +22,8 @@ export const buildsRoutes: Routes = [
           { path: 'crew', loadChildren: () => import('../crew/crew.routes').then((m) => m.crewRoutes) },
           { path: 'receipts', loadChildren: () => import('../receipts/receipts.routes').then((m) => m.receiptsRoutes) },
           { path: 'cores', loadChildren: () => import('../receipts/receipts.routes').then((m) => m.coresRoutes) },
+          { path: 'review', loadChildren: () => import('../review/review.routes').then((m) => m.reviewRoutes) },
+          { path: 'exports', loadChildren: () => import('../exports/exports.routes').then((m) => m.exportsRoutes) },
           { path: 'ledger', loadChildren: () => import('../ledger/ledger.routes').then((m) => m.ledgerRoutes) },
           { path: 'alerts', loadChildren: () => import('../alerts/alerts.routes').then((m) => m.alertsRoutes) },
           // Parts, Budgets and Inventory share one lazy chunk; listed last so other sections never load it.

@@ -12,6 +12,10 @@ import { apiTestProviders } from '../../../../testing/api-test-providers';
 import { CurrentBuild } from '../../builds/services/current-build';
 import { ReceiptCheck } from './receipt-check';
 
+// The first test pays the compilation of the check screen with its image and review panels, and the typing tests
+// type many keys: on a busy 2-core machine they came near jest's 5 s default.
+jest.setTimeout(15_000);
+
 const build = (role: BuildRole): BuildDto => ({
   id: 'b-1',
   name: 'Teal wagon swap',
@@ -186,6 +190,22 @@ describe('ReceiptCheck', () => {
     expect(screen.getByText('Brake hose pair')).toBeTruthy();
     expect(screen.getByText('Feb 14, 2026')).toBeTruthy();
     expect(screen.getByText('You can read this receipt; the owner and crew change it.')).toBeTruthy();
+  });
+
+  it('shows the review panel (state, comments, changes) under a filed receipt, and none before filing', async () => {
+    const http = await renderAs('reviewer', receipt({ state: 'filed', editable: false, reviewState: 'approved' }));
+    await new Promise((resolve) => setTimeout(resolve, 0));
+    http.expectOne('/api/builds/b-1/receipts/r-1/comments').flush({ comments: [{ id: 'c-1', author: 'Ines Varga', body: 'Matches the slip.', createdAt: '2026-02-15T12:00:00.000Z' }] });
+    http.expectOne('/api/builds/b-1/receipts/r-1/audit').flush({ events: [] });
+    expect(await screen.findByText('Matches the slip.')).toBeTruthy();
+    expect(screen.getByRole('heading', { name: 'Review' })).toBeTruthy();
+    expect(screen.getByText('Approved', { selector: 'strong' })).toBeTruthy();
+  });
+
+  it('shows no review panel on a receipt still being checked', async () => {
+    const http = await renderAs('crew', receipt());
+    http.expectNone('/api/builds/b-1/receipts/r-1/comments');
+    expect(screen.queryByRole('heading', { name: 'Review' })).toBeNull();
   });
 
   it('files with the version it last saw, and says which line blocks it when the server refuses', async () => {

@@ -26,7 +26,9 @@ import { moneyText } from '../../../ui/money';
 import { CurrentBuild } from '../../builds/services/current-build';
 import { PartsApi } from '../../parts/services/parts-api';
 import { SystemsApi } from '../../parts/services/systems-api';
+import { ReviewPanel } from '../../review/components/review-panel';
 import { AcceptDifferenceData, AcceptDifferenceDialog } from '../components/accept-difference-dialog';
+import { ReceiptPages } from '../components/receipt-pages';
 import { ReturnLinkData, ReturnLinkDialog } from '../components/return-link-dialog';
 import { SplitDialog, SplitDialogData, SplitShare } from '../components/split-dialog';
 import { liveReconciliation } from '../models/live-reconciliation';
@@ -78,6 +80,8 @@ type LineGroup = ReturnType<typeof lineGroup>;
     MatProgressBarModule,
     MatSelectModule,
     RouterLink,
+    ReceiptPages,
+    ReviewPanel,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
@@ -140,38 +144,7 @@ type LineGroup = ReturnType<typeof lineGroup>;
 
           <div class="check">
             <section class="pages" aria-label="Receipt image">
-              @if (receipt.pages.length > 0) {
-                <div class="zoom" role="group" aria-label="Zoom">
-                  <button mat-icon-button type="button" (click)="zoomBy(-0.25)" [disabled]="zoom() <= 0.5" aria-label="Zoom out">
-                    <mat-icon aria-hidden="true">zoom_out</mat-icon>
-                  </button>
-                  <span class="tabular">{{ zoomPercent() }}%</span>
-                  <button mat-icon-button type="button" (click)="zoomBy(0.25)" [disabled]="zoom() >= 3" aria-label="Zoom in">
-                    <mat-icon aria-hidden="true">zoom_in</mat-icon>
-                  </button>
-                </div>
-                <div class="page-scroll" tabindex="0" role="region" aria-label="Receipt pages, scroll to pan">
-                  @for (page of receipt.pages; track page.index) {
-                    <div class="page-image" [style.width.px]="pageWidth()" [style.height.px]="page.height * scaleOf(page.width)">
-                      <img [src]="pageUrl(page.index)" [alt]="'Page ' + (page.index + 1) + ' of the receipt'" [width]="pageWidth()" />
-                      @if (activeBox(); as box) {
-                        @if (box.page === page.index) {
-                          <span
-                            class="box"
-                            aria-hidden="true"
-                            [style.left.px]="box.x * scaleOf(page.width)"
-                            [style.top.px]="box.y * scaleOf(page.width)"
-                            [style.width.px]="box.w * scaleOf(page.width)"
-                            [style.height.px]="box.h * scaleOf(page.width)"
-                          ></span>
-                        }
-                      }
-                    </div>
-                  }
-                </div>
-              } @else {
-                <p class="muted"><mat-icon aria-hidden="true">description</mat-icon> No page image; open the original file to see it.</p>
-              }
+              <th-receipt-pages [buildId]="buildId()" [receiptId]="receiptId()" [pages]="receipt.pages" [activeBox]="activeBox()" />
             </section>
 
             <section class="fields" aria-label="What was read">
@@ -415,6 +388,7 @@ type LineGroup = ReturnType<typeof lineGroup>;
                   <mat-icon aria-hidden="true">lock_open</mat-icon> Reopen to change it
                 </button>
               }
+              <th-review-panel [buildId]="buildId()" [receipt]="receipt" [systems]="systems()" />
             } @else if (editable()) {
               <div class="file-row">
                 @if (canAcceptDifference()) {
@@ -492,33 +466,6 @@ type LineGroup = ReturnType<typeof lineGroup>;
       .check {
         grid-template-columns: minmax(0, 1fr);
       }
-    }
-    .zoom {
-      display: flex;
-      align-items: center;
-      gap: 4px;
-    }
-    .page-scroll {
-      max-height: 70vh;
-      overflow: auto;
-      border: 1px solid var(--mat-sys-outline-variant);
-      border-radius: 8px;
-      background: var(--mat-sys-surface-container);
-    }
-    .page-image {
-      position: relative;
-      margin: 0 auto 8px;
-    }
-    .page-image img {
-      display: block;
-      height: auto;
-    }
-    .box {
-      position: absolute;
-      outline: 3px solid var(--th-brass, #b8892b);
-      background: color-mix(in srgb, var(--th-brass, #b8892b) 18%, transparent);
-      border-radius: 2px;
-      pointer-events: none;
     }
     .header-fields {
       display: grid;
@@ -702,8 +649,6 @@ export class ReceiptCheck {
   protected readonly activeLineId = signal<string | null>(null);
   protected readonly selected = signal<ReadonlySet<string>>(new Set());
   protected readonly partQuery = signal('');
-  /** Phones start smaller, so the slip fits the screen's width before the person zooms in. */
-  protected readonly zoom = signal(globalThis.matchMedia?.('(max-width: 599.98px)').matches ? 0.7 : 1);
   protected readonly lineProblems = signal<Record<string, string>>({});
   protected readonly fileProblems = signal<string[]>([]);
 
@@ -728,8 +673,6 @@ export class ReceiptCheck {
   protected readonly locale = computed(() => this.receipt()?.locale ?? this.current.build()?.locale ?? 'en-US');
   protected readonly editable = computed(() => this.receipt()?.editable ?? false);
   protected readonly isOwner = computed(() => this.current.build()?.role === 'owner');
-  protected readonly zoomPercent = computed(() => Math.round(this.zoom() * 100));
-  protected readonly pageWidth = computed(() => Math.round(480 * this.zoom()));
   protected readonly documentUrl = computed(() => this.receiptsApi.documentUrl(this.buildId(), this.receiptId()));
 
   protected readonly activeBox = computed(() => this.receipt()?.lines.find((line) => line.id === this.activeLineId())?.box ?? null);
@@ -803,18 +746,6 @@ export class ReceiptCheck {
     });
     this.header.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => this.bump());
     this.lineForms.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => this.bump());
-  }
-
-  protected pageUrl(index: number): string {
-    return this.receiptsApi.pageUrl(this.buildId(), this.receiptId(), index);
-  }
-
-  protected scaleOf(pageWidth: number): number {
-    return pageWidth > 0 ? this.pageWidth() / pageWidth : 1;
-  }
-
-  protected zoomBy(step: number): void {
-    this.zoom.update((zoom) => Math.min(3, Math.max(0.5, zoom + step)));
   }
 
   protected isLow(key: string): boolean {

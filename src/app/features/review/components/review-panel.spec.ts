@@ -1,0 +1,166 @@
+// Review panel: the state in words, the comment thread with a checked comment box, and the audit trail in words with
+// money through the money pipe.
+import { inputBinding, signal } from '@angular/core';
+import { TestBed } from '@angular/core/testing';
+import { HttpTestingController } from '@angular/common/http/testing';
+import { render, screen, within } from '@testing-library/angular/zoneless';
+import userEvent from '@testing-library/user-event';
+import type { SystemDto } from '../../../../../shared/api/parts';
+import type { ReceiptDto } from '../../../../../shared/api/receipts';
+import type { AuditEventDto, CommentDto } from '../../../../../shared/api/review';
+import { apiTestProviders } from '../../../../testing/api-test-providers';
+import { ReviewPanel } from './review-panel';
+
+const system = (id: string, name: string): SystemDto => ({ id, name, budget: '0.00', estimate: '0.00', partCount: 0, sortOrder: 0, archived: false, safetyCaution: false, version: 1 });
+
+const receipt = (extra: Partial<ReceiptDto> = {}): ReceiptDto => ({
+  id: 'r-1',
+  vendorName: 'Ridgeback Parts',
+  purchaseDate: '2026-02-14',
+  receiptNumber: 'A-100',
+  total: '42.00',
+  state: 'filed',
+  readingProgress: 100,
+  reviewState: 'questioned',
+  originalFilename: 'slip.png',
+  contentType: 'image/png',
+  lineCount: 0,
+  duplicateOf: [],
+  systemIds: [],
+  uploadedBy: 'Dario Fenn',
+  createdAt: '2026-02-14T10:00:00.000Z',
+  version: 5,
+  currency: 'USD',
+  locale: 'en-US',
+  subtotal: null,
+  tax: '2.00',
+  shipping: null,
+  discount: null,
+  differenceAccepted: false,
+  differenceReason: '',
+  readingError: null,
+  reviewComment: 'Which car is the gauge for?',
+  pages: [],
+  fieldConfidence: {},
+  readingNotes: [],
+  lines: [],
+  reconciliation: { linesTotal: '40.00', computedTotal: '42.00', printedTotal: '42.00', difference: '0.00', reconciles: true },
+  editable: false,
+  ...extra,
+});
+
+const comments: CommentDto[] = [
+  { id: 'c-1', author: 'Ines Varga', body: 'Which car is the gauge for?', createdAt: '2026-02-15T12:00:00.000Z' },
+  { id: 'c-2', author: 'Dario Fenn', body: 'The wagon: oil pressure.', createdAt: '2026-02-15T13:30:00.000Z' },
+];
+
+const events: AuditEventDto[] = [
+  { id: 'e-1', who: 'Dario Fenn', at: '2026-02-14T10:05:00.000Z', entity: 'receipt', action: 'edit', before: { total: null, tax: null }, after: { total: '42', tax: '2' } },
+  { id: 'e-0', who: 'Dario Fenn', at: '2026-02-14T10:05:30.000Z', entity: 'receipt_line', action: 'add', before: null, after: { kind: 'fee', description: 'Hazmat fee', amount: '4.5', partId: null, systemId: 's-tools' } },
+  {
+    id: 'e-2',
+    who: 'Dario Fenn',
+    at: '2026-02-14T10:06:00.000Z',
+    entity: 'receipt_line',
+    action: 'edit',
+    before: { kind: 'part', description: 'Gauge', amount: '30', systemId: 's-brakes' },
+    after: { kind: 'part', description: 'Gauge', amount: '35.5', systemId: 's-tools' },
+  },
+  { id: 'e-4', who: 'Rosa Quill', at: '2026-02-14T10:07:00.000Z', entity: 'receipt_line', action: 'delete', before: { kind: 'part', description: 'Rags', amount: '3', systemId: null }, after: null },
+  { id: 'e-3', who: 'Ines Varga', at: '2026-02-15T12:00:00.000Z', entity: 'receipt', action: 'review', before: { reviewState: 'none' }, after: { reviewState: 'questioned' } },
+];
+
+async function renderPanel(shown = signal(receipt())) {
+  await render(ReviewPanel, {
+    providers: apiTestProviders(),
+    bindings: [inputBinding('buildId', () => 'b-1'), inputBinding('receipt', shown), inputBinding('systems', () => [system('s-brakes', 'Brakes'), system('s-tools', 'Tools and consumables')])],
+  });
+  const http = TestBed.inject(HttpTestingController);
+  http.expectOne('/api/builds/b-1/receipts/r-1/comments').flush({ comments });
+  http.expectOne('/api/builds/b-1/receipts/r-1/audit').flush({ events });
+  await screen.findByText('The wagon: oil pressure.');
+  return { http, shown };
+}
+
+const text = (element: Element) => (element.textContent ?? '').replace(/\s+/g, ' ').trim();
+/** Each change of a trail entry as [what, before → after]. */
+const changes = (item: Element) => Array.from(item.querySelectorAll('.changes > div')).map((row) => [text(row.querySelector('dt')!), text(row.querySelector('dd')!)]);
+
+describe('ReviewPanel', () => {
+  it('says the review state in words, lists the thread and the trail with before → after and money formatted', async () => {
+    await renderPanel();
+    expect(text(screen.getByRole('status').querySelector('.state-words')!)).toBe('Questioned: Which car is the gauge for?');
+    expect(text(screen.getByRole('status').querySelector('mat-icon')!)).toBe('help');
+    const thread = screen.getByRole('list', { name: 'Comments' });
+    expect(within(thread).getAllByRole('listitem').map((item) => within(item).getByText(/./, { selector: '.comment-body' }).textContent)).toEqual([
+      'Which car is the gauge for?',
+      'The wagon: oil pressure.',
+    ]);
+    const trail = within(screen.getByRole('list', { name: 'Changes to money' })).getAllByRole('listitem');
+    expect(trail.map((item) => text(item.querySelector('.trail-head')!).replace(/ · .*$/, ''))).toEqual(['Changed the receipt', 'Added a line', 'Changed a line', 'Deleted a line', 'Reviewed the receipt']);
+    // Money is compared as amounts ("2" and "2.00" are one amount) and shown in the currency; unchanged fields are left out.
+    expect(changes(trail[0])).toEqual([
+      ['Total', '— → $42.00'],
+      ['Tax', '— → $2.00'],
+    ]);
+    // A new line shows its values without an arrow; a deleted one what it was.
+    expect(changes(trail[1])).toEqual([
+      ['Kind', 'Fee'],
+      ['Description', 'Hazmat fee'],
+      ['Amount', '$4.50'],
+      ['System', 'Tools and consumables'],
+    ]);
+    expect(changes(trail[2])).toEqual([
+      ['Amount', '$30.00 → $35.50'],
+      ['System', 'Brakes → Tools and consumables'],
+    ]);
+    expect(changes(trail[3])).toEqual([
+      ['Kind', 'Purchase (removed)'],
+      ['Description', 'Rags (removed)'],
+      ['Amount', '$3.00 (removed)'],
+    ]);
+    expect(changes(trail[4])).toEqual([['Review', 'Not reviewed → Questioned']]);
+    expect(text(trail[4].querySelector('.trail-head')!)).toMatch(/^Reviewed the receipt · Ines Varga · Feb 15, 2026/);
+  });
+
+  it('refuses an empty comment without sending, then posts one and adds it to the thread', async () => {
+    const { http } = await renderPanel();
+    const user = userEvent.setup();
+    await user.type(screen.getByRole('textbox', { name: 'Add a comment' }), '   ');
+    await user.click(screen.getByRole('button', { name: 'Post comment' }));
+    expect(await screen.findByText('Write a comment.')).toBeTruthy();
+    http.expectNone('/api/builds/b-1/receipts/r-1/comments');
+
+    await user.type(screen.getByRole('textbox', { name: 'Add a comment' }), 'Thanks, approved next.');
+    await user.click(screen.getByRole('button', { name: 'Post comment' }));
+    const post = http.expectOne('/api/builds/b-1/receipts/r-1/comments');
+    expect(post.request.method).toBe('POST');
+    expect(post.request.body).toEqual({ body: 'Thanks, approved next.' });
+    post.flush({ id: 'c-3', author: 'Ines Varga', body: 'Thanks, approved next.', createdAt: '2026-02-16T09:00:00.000Z' }, { status: 201, statusText: 'Created' });
+    expect(await screen.findByText('Thanks, approved next.', { selector: '.comment-body' })).toBeTruthy();
+    expect((screen.getByRole('textbox', { name: 'Add a comment' }) as HTMLTextAreaElement).value).toBe('');
+  });
+
+  it("shows the server's refusal of a comment beside the box", async () => {
+    const { http } = await renderPanel();
+    const user = userEvent.setup();
+    await user.type(screen.getByRole('textbox', { name: 'Add a comment' }), 'x');
+    await user.click(screen.getByRole('button', { name: 'Post comment' }));
+    http
+      .expectOne('/api/builds/b-1/receipts/r-1/comments')
+      .flush({ error: { code: 'validation_failed', message: 'Check the fields.', fields: { body: 'A comment is at most 2000 characters.' } } }, { status: 400, statusText: 'Bad Request' });
+    expect(await screen.findByText('A comment is at most 2000 characters.')).toBeTruthy();
+  });
+
+  it('reloads the thread and trail when the receipt gets a new version, and says when nothing is there yet', async () => {
+    const { http, shown } = await renderPanel();
+    shown.set(receipt({ reviewState: 'approved', reviewComment: '', version: 6 }));
+    await new Promise((resolve) => setTimeout(resolve, 0));
+    http.expectOne('/api/builds/b-1/receipts/r-1/comments').flush({ comments: [] });
+    http.expectOne('/api/builds/b-1/receipts/r-1/audit').flush({ events: [] });
+    expect(await screen.findByText(/No comments yet/)).toBeTruthy();
+    expect(screen.getByText('No changes recorded yet.')).toBeTruthy();
+    expect(text(screen.getByRole('status').querySelector('.state-words')!)).toBe('Approved');
+    expect(text(screen.getByRole('status').querySelector('mat-icon')!)).toBe('verified');
+  });
+});
