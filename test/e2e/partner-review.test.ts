@@ -1,4 +1,5 @@
-// In Debian's chromium: the partner (an invited reviewer) reads the receipts' totals on the Review page, questions one
+// In Debian's chromium: the partner (an invited reviewer) reads the build's totals on the Ledger and the receipts'
+// totals on the Review page, questions one
 // receipt with a comment (its uploader is mailed) and approves another, downloads the tax ledger and checks it with an
 // independent CSV parser, then opens the printable build sheet with its safety caution.
 import { readFileSync } from 'node:fs';
@@ -80,7 +81,19 @@ it('lets the partner review receipts, export the tax ledger and print the build 
 
   const page = await newPage(browser);
   await signIn(page, partner.email);
-  await page.goto(`${t.url}/builds/${build.id}/review`);
+  // The totals first, on the Ledger: net cost 150.00 + 12.96 + 118.00 = 280.96 (each receipt's printed total, all
+  // purchases); by system, Engine 94.40 and Wiring harness 23.60 as allocated above.
+  await page.getByRole('link', { name: 'Teal wagon swap' }).click();
+  await page.getByRole('link', { name: 'Ledger' }).click();
+  await page.getByRole('heading', { name: 'Ledger', level: 1 }).waitFor();
+  const netCost = page.locator('dt', { hasText: /^Net cost$/ }).locator('xpath=following-sibling::dd[1]');
+  await expect(netCost.innerText()).resolves.toMatch(/^\$280\.96\b/);
+  const ledger = (await partner.client.get(`/api/builds/${build.id}/ledger`)).body;
+  expect(ledger.total.netCost).toBe('280.96');
+  await page.getByRole('row', { name: /^Engine/ }).getByRole('button', { name: /^\$94\.40 / }).first().waitFor();
+  await page.getByRole('row', { name: /^Wiring harness/ }).getByRole('button', { name: /^\$23\.60 / }).first().waitFor();
+
+  await page.getByRole('link', { name: 'Review' }).click();
   await page.getByRole('heading', { name: 'Waiting for review (3)' }).waitFor();
   // The totals as the partner reads them: newest first.
   const queue = page.getByRole('region', { name: /Waiting for review/ }).getByRole('button');
