@@ -131,9 +131,11 @@ async function budgetAlerts(em: EntityManager, ctx: BuildContext): Promise<DueAl
 async function coreDueAlerts(em: EntityManager, ctx: BuildContext): Promise<DueAlert[]> {
   // Still owed (the old part not handed in) and due within the week, or already late; on filed receipts only.
   const rows = await em.getConnection().execute<{ id: string; due_date: string; description: string; amount: string; vendor_name: string | null }[]>(
-    `select c.id, c.due_date, l.description, l.amount, v.name as vendor_name
+    // The part the deposit is for names it better than the slip's line, which often just says "core charge".
+    `select c.id, c.due_date, coalesce(p.description, l.description) as description, l.amount, v.name as vendor_name
        from core c
        join receipt_line l on l.id = c.charge_line_id
+       left join part p on p.id = l.part_id
        join receipt r on r.id = l.receipt_id and r.state = 'filed'
        left join vendor v on v.id = r.vendor_id
       where c.build_id = ? and c.state = 'owed' and c.due_date <= ?::date

@@ -13,7 +13,7 @@ export const DEMO_BUILD = {
   currency: 'USD',
   locale: 'en-US',
   status: 'active' as const,
-  startedOn: '2026-08-03',
+  startedOn: '2026-07-01',
   targetDate: '2027-03-28',
 };
 
