@@ -1,10 +1,11 @@
 // A build's frame: its sections as a side rail on wide screens and a bottom bar on phones.
-import { ChangeDetectionStrategy, Component, effect, inject, input, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, untracked } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import { MatMenuModule } from '@angular/material/menu';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { CurrentBuild } from '../../features/builds/services/current-build';
+import { ReceiptUploads } from '../../features/receipts/services/receipt-uploads';
 
 export interface BuildSection {
   /** Relative to /builds/:buildId. */
@@ -42,7 +43,17 @@ export const BUILD_SECTIONS: readonly BuildSection[] = [
     <div class="shell">
       <nav class="sections" aria-label="Build sections">
         <ul>
-          @for (section of sections; track section.path) {
+          @for (section of sections; track section.path; let index = $index) {
+            @if (index === 2 && canAddReceipts()) {
+              <!-- Phones only: the camera straight from any section; the upload's progress shows on Receipts. -->
+              <li class="add-receipt">
+                <input id="bar-receipt-camera" class="visually-hidden" type="file" accept="image/*,application/pdf" capture="environment" (change)="photographed($event)" />
+                <label for="bar-receipt-camera">
+                  <span class="add-receipt-button"><mat-icon aria-hidden="true">add_a_photo</mat-icon></span>
+                  <span class="section-label">Add receipt</span>
+                </label>
+              </li>
+            }
             <li [class.off-phone]="section.phoneBar === false">
               <a
                 [routerLink]="section.path"
@@ -173,7 +184,8 @@ export const BUILD_SECTIONS: readonly BuildSection[] = [
         background: var(--mat-sys-surface-container-low);
         border-right: 1px solid var(--mat-sys-outline-variant);
       }
-      .sections .more {
+      .sections .more,
+      .sections .add-receipt {
         display: none;
       }
       .sections ul {
@@ -209,6 +221,31 @@ export const BUILD_SECTIONS: readonly BuildSection[] = [
       .sections li.off-phone {
         display: none;
       }
+      .add-receipt label {
+        display: flex;
+        flex-direction: column;
+        align-items: center;
+        gap: 2px;
+        margin-top: -22px;
+        color: var(--mat-sys-on-surface);
+        font: var(--mat-sys-label-small);
+        white-space: nowrap;
+        cursor: pointer;
+      }
+      .add-receipt-button {
+        display: grid;
+        place-items: center;
+        width: 56px;
+        height: 56px;
+        border-radius: 18px;
+        background: var(--th-brass);
+        color: var(--th-on-brass);
+        box-shadow: 0 2px 6px rgb(0 0 0 / 25%);
+      }
+      .add-receipt input:focus-visible + label .add-receipt-button {
+        outline: 2px solid var(--mat-sys-primary);
+        outline-offset: 2px;
+      }
     }
   `,
 })
@@ -217,8 +254,26 @@ export class BuildShell {
   protected readonly sections = BUILD_SECTIONS;
   protected readonly moreSections = BUILD_SECTIONS.filter((section) => section.phoneBar === false);
 
+  private readonly uploads = inject(ReceiptUploads);
+  private readonly router = inject(Router);
+
   /** Route parameter, bound by the router. */
   readonly buildId = input.required<string>();
+
+  protected readonly canAddReceipts = computed(() => {
+    const role = this.current.build()?.role;
+    return role === 'owner' || role === 'crew';
+  });
+
+  /** The photo goes up at once; Receipts shows its progress and then the receipt being read. */
+  protected photographed(event: Event): void {
+    const input = event.target as HTMLInputElement;
+    const files = Array.from(input.files ?? []);
+    input.value = '';
+    if (files.length === 0) return;
+    this.uploads.send(this.buildId(), files);
+    void this.router.navigate(['/builds', this.buildId(), 'receipts']);
+  }
 
   constructor() {
     effect(() => {

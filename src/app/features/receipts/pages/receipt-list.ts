@@ -12,22 +12,13 @@ import { Subject, Subscription, debounceTime, timer } from 'rxjs';
 import type { SystemDto } from '../../../../../shared/api/parts';
 import { ACCEPTED_UPLOAD_LABEL, MAX_UPLOAD_BYTES, ReceiptSummaryDto } from '../../../../../shared/api/receipts';
 import { RECEIPT_STATES, RECEIPT_STATE_LABELS, ReceiptState } from '../../../../../shared/enums';
-import { toApiError } from '../../../core/http/api-error';
 import { formatCalendarDate } from '../../../ui/dates';
 import { EmptyState } from '../../../ui/empty-state';
 import { MoneyPipe } from '../../../ui/money';
 import { CurrentBuild } from '../../builds/services/current-build';
 import { SystemsApi } from '../../parts/services/systems-api';
 import { ReceiptsApi, ReceiptsFilter } from '../services/receipts-api';
-
-/** One file on its way up: its own progress bar, then done or the server's reason for refusing it. */
-interface UploadRow {
-  key: number;
-  name: string;
-  percent: number;
-  status: 'sending' | 'done' | 'refused';
-  message: string;
-}
+import { ReceiptUploads } from '../services/receipt-uploads';
 
 const STATE_ICONS: Record<ReceiptState, string> = {
   queued: 'hourglass_empty',
@@ -386,12 +377,13 @@ export class ReceiptList {
 
   protected readonly receipts = signal<ReceiptSummaryDto[]>([]);
   protected readonly systems = signal<SystemDto[]>([]);
-  protected readonly uploads = signal<UploadRow[]>([]);
+  private readonly uploader = inject(ReceiptUploads);
+  /** This build's uploads of the session, including those started from the phone bar's camera button. */
+  protected readonly uploads = computed(() => this.uploader.rows().filter((row) => row.buildId === this.buildId()));
   protected readonly filter = signal<ReceiptsFilter>({});
   protected readonly loading = signal(false);
   protected readonly loaded = signal(false);
   private readonly brokenImages = signal<ReadonlySet<string>>(new Set());
-  private uploadKey = 0;
   private refresh: Subscription | null = null;
   private readonly vendorInput = new Subject<string>();
 
@@ -412,6 +404,11 @@ export class ReceiptList {
     effect(() => {
       const buildId = this.buildId();
       untracked(() => this.systemsApi.list(buildId).subscribe({ next: (response) => this.systems.set(response.systems), error: () => this.systems.set([]) }));
+    });
+    // An upload the server has taken (from this page or the phone bar) shows up in the list.
+    effect(() => {
+      if (this.uploader.finished() === 0) return;
+      untracked(() => this.load(this.buildId(), true));
     });
     // Typing a shop name asks the server once the person pauses.
     this.vendorInput.pipe(debounceTime(300), takeUntilDestroyed()).subscribe((vendor) => this.setFilter({ vendor: vendor || undefined }));
@@ -442,38 +439,11 @@ export class ReceiptList {
     this.brokenImages.update((broken) => new Set([...broken, receiptId]));
   }
 
-  /** Sends each chosen file on its own, so each has its own progress bar and a refused file leaves the others alone. */
   protected picked(event: Event): void {
     const input = event.target as HTMLInputElement;
     const files = Array.from(input.files ?? []);
     input.value = '';
-    for (const file of files) this.send(file);
-  }
-
-  private send(file: File): void {
-    const key = ++this.uploadKey;
-    const patch = (change: Partial<UploadRow>) =>
-      this.uploads.update((rows) => rows.map((row) => (row.key === key ? { ...row, ...change } : row)));
-    this.uploads.update((rows) => [...rows, { key, name: file.name, percent: 0, status: 'sending', message: '' }]);
-    this.receiptsApi
-      .upload(this.buildId(), [file])
-      .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe({
-        next: (progress) => {
-          if (progress.kind === 'progress') {
-            patch({ percent: progress.percent });
-          } else {
-            patch({ percent: 100, status: 'done' });
-            this.load(this.buildId());
-          }
-        },
-        error: (error: unknown) => {
-          const apiError = toApiError(error);
-          // One file per request, so its problem is under files.0 (or files when the whole upload was refused).
-          const message = apiError.fields['files.0'] ?? apiError.fields['files'] ?? apiError.message;
-          patch({ status: 'refused', message });
-        },
-      });
+    this.uploader.send(this.buildId(), files);
   }
 
   /** While a receipt waits or is read, ask again every two seconds so its state and progress move on their own. */

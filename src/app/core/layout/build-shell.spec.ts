@@ -1,0 +1,56 @@
+// The build shell: the phone bar's camera button is there for those who add receipts, sends the photo at once
+// and opens Receipts, where its progress shows; a reviewer, who adds none, does not get it.
+import { inputBinding } from '@angular/core';
+import { TestBed } from '@angular/core/testing';
+import { HttpTestingController } from '@angular/common/http/testing';
+import { Router } from '@angular/router';
+import { render, screen } from '@testing-library/angular/zoneless';
+import userEvent from '@testing-library/user-event';
+import type { BuildDto } from '../../../../shared/api/builds';
+import type { BuildRole } from '../../../../shared/enums';
+import { apiTestProviders } from '../../../testing/api-test-providers';
+import { ReceiptUploads } from '../../features/receipts/services/receipt-uploads';
+import { BuildShell } from './build-shell';
+
+const build = (role: BuildRole): BuildDto => ({
+  id: 'b-1',
+  name: 'Teal wagon swap',
+  vehicle: '1979 invented wagon',
+  currency: 'USD',
+  locale: 'en-US',
+  status: 'active',
+  startedOn: null,
+  targetDate: null,
+  returnWindowDays: 30,
+  archived: false,
+  version: 2,
+  role,
+  createdAt: '2026-01-05T09:00:00.000Z',
+});
+
+async function renderAs(role: BuildRole) {
+  await render(BuildShell, { providers: [...apiTestProviders([{ path: '**', children: [] }])], bindings: [inputBinding('buildId', () => 'b-1')] });
+  const http = TestBed.inject(HttpTestingController);
+  http.expectOne('/api/builds/b-1').flush(build(role));
+  await screen.findByText('Teal wagon swap');
+  return http;
+}
+
+describe('BuildShell', () => {
+  it('sends a photo from the bar at once and opens Receipts', async () => {
+    const http = await renderAs('crew');
+    const navigate = jest.spyOn(TestBed.inject(Router), 'navigate');
+    await userEvent.setup().upload(screen.getByLabelText(/Add receipt/), new File(['png'], 'counter-slip.png', { type: 'image/png' }));
+    const upload = http.expectOne({ method: 'POST', url: '/api/builds/b-1/receipts' });
+    expect((upload.request.body as FormData).getAll('files').map((file) => (file as File).name)).toEqual(['counter-slip.png']);
+    expect(navigate).toHaveBeenCalledWith(['/builds', 'b-1', 'receipts']);
+    const rows = TestBed.inject(ReceiptUploads).rows();
+    expect(rows.map((row) => [row.buildId, row.name, row.status])).toEqual([['b-1', 'counter-slip.png', 'sending']]);
+  });
+
+  it('gives a reviewer no camera button', async () => {
+    await renderAs('reviewer');
+    expect(screen.queryByLabelText(/Add receipt/)).toBeNull();
+    expect(screen.getByRole('link', { name: 'Review' })).toBeTruthy();
+  });
+});
