@@ -1,6 +1,6 @@
 // Request schemas and response types for receipts, their lines, filing and core deposits.
 import { z } from 'zod';
-import { CORE_STATES, CoreState, RECEIPT_LINE_KINDS, ReceiptLineKind, ReceiptState, ReviewState } from '../enums';
+import { CORE_STATES, CoreState, PartStatus, RECEIPT_LINE_KINDS, ReceiptLineKind, ReceiptState, ReviewState } from '../enums';
 import { moneyString } from '../money';
 import { createPartRequest } from './parts';
 
@@ -187,6 +187,7 @@ export interface CoreDto {
   state: CoreState;
   dueDate: string;
   amount: string;
+  /** The part the deposit is for when the line is assigned to one (the slip often just says "core charge"), else the line's text. */
   description: string;
   partNumber: string;
   receiptId: string;
@@ -207,3 +208,53 @@ export interface LineSearchResultDto {
   kind: ReceiptLineKind;
 }
 
+
+/** A part line bought on a filed receipt, as the returns lists show it. */
+export interface ReturnLineDto {
+  lineId: string;
+  receiptId: string;
+  vendorName: string | null;
+  purchaseDate: string;
+  /** The part's description when the line is assigned to a part, else the line's. */
+  description: string;
+  partNumber: string;
+  /** What the line cost: its amount with its share of tax and shipping, less its share of the discount. */
+  amountPaid: string;
+}
+
+/** The part behind a line, with the version its status change must send. */
+export interface ReturnPartDto {
+  partId: string;
+  partVersion: number;
+  partStatus: PartStatus;
+}
+
+/**
+ * Still on the shelf (or on order) with no return line yet. Listed until 14 days after the window closed, with
+ * `windowClosed`, so a return that went back late is still in sight.
+ */
+export interface ReturnableItemDto extends ReturnLineDto, ReturnPartDto {
+  /** The last day it can go back: purchase date + the build's return window (ISO date). */
+  returnableUntil: string;
+  windowClosed: boolean;
+}
+
+/** Sent back, with no filed return slip yet: `amountPaid` is owed back. */
+export type AwaitingRefundItemDto = ReturnLineDto & ReturnPartDto;
+
+/** A line with a filed return slip; the part may since have been removed from the bill of materials. */
+export interface RefundedItemDto extends ReturnLineDto {
+  partId: string | null;
+  partVersion: number | null;
+  partStatus: PartStatus | null;
+  /** The latest return slip for it (several are added up in `refundedAmount`, a positive figure). */
+  refundReceiptId: string;
+  refundDate: string | null;
+  refundedAmount: string;
+}
+
+export interface ReturnsDto {
+  returnable: ReturnableItemDto[];
+  awaitingRefund: AwaitingRefundItemDto[];
+  refunded: RefundedItemDto[];
+}

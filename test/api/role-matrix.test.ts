@@ -207,6 +207,7 @@ const ROUTES: RouteCase[] = [
     },
     expected: editors(200),
   },
+  { name: 'GET /api/builds/:buildId/returns', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/returns`), expected: readable },
   { name: 'GET /api/builds/:buildId/ledger', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/ledger`), expected: readable },
   { name: 'GET /api/builds/:buildId/ledger/spend', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/ledger/spend?by=week`), expected: readable },
   { name: 'GET /api/builds/:buildId/ledger/vendors', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/ledger/vendors`), expected: readable },

@@ -12,6 +12,7 @@ import type { MailMessage, Mailer } from '../mail/mailer';
 import { budgetAlertMail, coreDueMail, duplicateReceiptMail, returnWindowMail, reviewDigestMail } from '../mail/templates';
 import { findDuplicates } from '../receipts/receipt-dto';
 import { Receipt } from '../receipts/receipt.entity';
+import { RETURNABLE_LINE, RETURNABLE_UNTIL } from '../receipts/returns.service';
 import { AlertPreference } from './alert-preference.entity';
 import { AlertSent } from './alert-sent.entity';
 
@@ -166,22 +167,22 @@ async function coreDueAlerts(em: EntityManager, ctx: BuildContext): Promise<DueA
 
 /**
  * A part line of a filed receipt is returnable until purchase date + the build's return window, while its part is
- * not fitted, sent back or sold and no return line points at it. Announced in the last week of the window.
+ * not fitted, sent back or sold and no return line points at it (the rule the returns list shares). Announced in
+ * the last week of the window.
  */
 async function returnWindowAlerts(em: EntityManager, ctx: BuildContext): Promise<DueAlert[]> {
   const rows = await em.getConnection().execute<
     { id: string; receipt_id: string; description: string; amount: string; purchase_date: string; returnable_until: string; vendor_name: string | null }[]
   >(
     `select l.id, l.receipt_id, l.description, l.amount, r.purchase_date,
-            (r.purchase_date + b.return_window_days)::text as returnable_until, v.name as vendor_name
+            ${RETURNABLE_UNTIL}::text as returnable_until, v.name as vendor_name
        from receipt_line l
-       join receipt r on r.id = l.receipt_id and r.state = 'filed'
+       join receipt r on r.id = l.receipt_id
        join build b on b.id = l.build_id
-       join part p on p.id = l.part_id and p.status not in ('installed', 'returned', 'sold')
+       join part p on p.id = l.part_id
        left join vendor v on v.id = r.vendor_id
-      where l.build_id = ? and l.kind = 'part'
-        and r.purchase_date + b.return_window_days between ?::date and ?::date
-        and not exists (select 1 from receipt_line rl where rl.return_of_id = l.id)
+      where l.build_id = ? and ${RETURNABLE_LINE}
+        and ${RETURNABLE_UNTIL} between ?::date and ?::date
       order by r.purchase_date, r.id, l.position, l.id`,
     [ctx.build.id, ctx.today, addDays(ctx.today, DAYS_AHEAD)],
   );

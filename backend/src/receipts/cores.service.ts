@@ -16,7 +16,8 @@ export function coreDto(core: Core, currency: string): CoreDto {
     state: core.state,
     dueDate: core.dueDate,
     amount: toWire(line.amount, minorUnits(currency)),
-    description: line.description,
+    // The part names the deposit better than the slip's line, which often just says "core charge".
+    description: line.part?.description ?? line.description,
     partNumber: line.partNumber,
     receiptId: line.receipt.id,
     vendorName: line.receipt.vendor?.name ?? null,
@@ -27,12 +28,12 @@ export function coreDto(core: Core, currency: string): CoreDto {
 }
 
 export async function listCores(em: EntityManager, build: Build): Promise<CoreDto[]> {
-  const cores = await em.find(Core, { build }, { populate: ['chargeLine.receipt.vendor', 'refundLine'], orderBy: { dueDate: 'asc' } });
+  const cores = await em.find(Core, { build }, { populate: ['chargeLine.receipt.vendor', 'chargeLine.part', 'refundLine'], orderBy: { dueDate: 'asc' } });
   return cores.map((core) => coreDto(core, build.currency));
 }
 
 export async function updateCore(em: EntityManager, build: Build, coreId: string, user: User, input: { state?: CoreState; dueDate?: string; version: number }): Promise<CoreDto> {
-  const core = await em.findOne(Core, { id: coreId, build }, { populate: ['chargeLine.receipt.vendor', 'refundLine'] });
+  const core = await em.findOne(Core, { id: coreId, build }, { populate: ['chargeLine.receipt.vendor', 'chargeLine.part', 'refundLine'] });
   if (!core) throw new NotFound('That core deposit');
   if (core.version !== input.version) throw new StaleVersion('This core deposit');
   const before = { state: core.state, dueDate: core.dueDate };

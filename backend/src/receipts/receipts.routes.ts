@@ -1,5 +1,5 @@
 // Receipts of a build: upload, list, view (with the document and page images), correct, assign lines, file.
-// Every member reads; owner and crew upload and edit (crew until filed); cores change state in one click.
+// Every member reads; owner and crew upload and edit (crew until filed); cores change state in one click; returns are listed.
 import { Router, type Response } from 'express';
 import multer from 'multer';
 import {
@@ -20,6 +20,7 @@ import { validBody } from '../http/validate';
 import type { JobQueue } from '../jobs/queue';
 import type { ObjectStore } from '../storage/object-store';
 import { listCores, updateCore } from './cores.service';
+import { listReturns } from './returns.service';
 import { searchLines } from './line-search';
 import { receiptDto, lineDto } from './receipt-dto';
 import { fileReceipt, reopenReceipt } from './receipt-filing';
@@ -187,6 +188,10 @@ export function receiptsRoutes(deps: { store: ObjectStore; queue: JobQueue }): R
 
   router.get('/cores', buildRole(...ANY_MEMBER), async (_req, res) => {
     res.json({ cores: await listCores(em(), membershipOf(res).build) });
+  });
+
+  router.get('/returns', buildRole(...ANY_MEMBER), async (_req, res) => {
+    res.json(await listReturns(em(), membershipOf(res).build));
   });
 
   router.patch('/cores/:coreId', buildRole(...EDITORS), validBody(updateCoreRequest), async (req, res) => {

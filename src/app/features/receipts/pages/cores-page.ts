@@ -1,16 +1,18 @@
-// /builds/:buildId/cores: core deposits with their due dates, one click to record where each stands, overdue ones marked.
+// /builds/:buildId/cores: core deposits with their due dates and returns (can still go back, awaiting a refund, refunded),
+// each moved on in one click; overdue deposits and closing return windows marked.
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
-import type { CoreDto } from '../../../../../shared/api/receipts';
-import { CORE_STATE_LABELS, CoreState } from '../../../../../shared/enums';
+import type { AwaitingRefundItemDto, CoreDto, ReturnableItemDto, ReturnsDto } from '../../../../../shared/api/receipts';
+import { CORE_STATE_LABELS, CoreState, PART_STATUS_LABELS, type PartStatus } from '../../../../../shared/enums';
 import { toApiError } from '../../../core/http/api-error';
 import { formatCalendarDate } from '../../../ui/dates';
 import { EmptyState } from '../../../ui/empty-state';
 import { MoneyPipe } from '../../../ui/money';
 import { CurrentBuild } from '../../builds/services/current-build';
+import { PartsApi } from '../../parts/services/parts-api';
 import { ReceiptsApi } from '../services/receipts-api';
 
 /** The next steps a core can take from where it stands, as the buttons beside it. */
@@ -27,6 +29,21 @@ const NEXT_STATES: Record<CoreState, { state: CoreState; label: string; icon: st
   forfeited: [{ state: 'owed', label: 'Still can hand it in', icon: 'undo' }],
 };
 
+/** A return window this close to its end (in days) is marked as closing soon, as the alert mails do. */
+export const CLOSING_SOON_DAYS = 7;
+
+/** Whole calendar days from one ISO date to another (negative when `to` is earlier). */
+export function daysBetween(from: string, to: string): number {
+  return Math.round((Date.parse(`${to}T00:00:00Z`) - Date.parse(`${from}T00:00:00Z`)) / 86_400_000);
+}
+
+/** How long a return window has left, in words. */
+export function windowText(daysLeft: number): string {
+  if (daysLeft < 0) return daysLeft === -1 ? 'Window closed yesterday' : `Window closed ${-daysLeft} days ago`;
+  if (daysLeft === 0) return 'Last day today';
+  return daysLeft === 1 ? '1 day left' : `${daysLeft} days left`;
+}
+
 /** Today as YYYY-MM-DD in the person's own time zone, to compare with calendar due dates. */
 export function todayIso(now = new Date()): string {
   const month = String(now.getMonth() + 1).padStart(2, '0');
@@ -40,12 +57,13 @@ export function todayIso(now = new Date()): string {
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     @if (loading() || busy()) {
-      <mat-progress-bar mode="indeterminate" [attr.aria-label]="loading() ? 'Loading the core deposits' : 'Saving'" />
+      <mat-progress-bar mode="indeterminate" [attr.aria-label]="loading() ? 'Loading the core deposits and returns' : 'Saving'" />
     }
     <div class="page">
       <h1 class="page-heading">Cores and returns</h1>
       <p class="intro">
         A core deposit is paid when you buy a rebuilt part; you get it back when you hand in the old part before its due date.
+        A part you send back stays listed until the return slip with its refund is filed.
       </p>
       @if (problem()) {
         <p class="notice notice-error" role="alert">{{ problem() }}</p>
@@ -93,6 +111,118 @@ export function todayIso(now = new Date()): string {
           }
         </ul>
       }
+
+      <section class="returns" aria-labelledby="returns-heading">
+        <h2 id="returns-heading" class="section-heading">Returns</h2>
+        @if (returns(); as returns) {
+          <h3 class="group-heading">Can still go back ({{ returns.returnable.length }})</h3>
+          @if (returns.returnable.length === 0) {
+            <p class="quiet">Nothing bought is within its return window now.</p>
+          } @else {
+            <ul class="cores" aria-label="Can still go back">
+              @for (item of returns.returnable; track item.lineId) {
+                <li class="core">
+                  <div class="core-main">
+                    <span class="core-description">{{ item.description }}{{ item.partNumber ? ' · ' + item.partNumber : '' }}</span>
+                    <span class="core-shop">
+                      <a [routerLink]="['../receipts', item.receiptId]">{{ item.vendorName || 'Receipt' }}</a>
+                      · bought {{ dateText(item.purchaseDate) }}
+                    </span>
+                    <span class="core-due" [class.overdue]="daysLeft(item) < 0" [class.closing]="isClosingSoon(item)">
+                      @if (daysLeft(item) < 0) {
+                        <mat-icon aria-hidden="true">event_busy</mat-icon>
+                        Could go back until {{ dateText(item.returnableUntil) }} · {{ windowWords(item) }}
+                      } @else if (isClosingSoon(item)) {
+                        <mat-icon aria-hidden="true">hourglass_bottom</mat-icon>
+                        Closing soon: returnable until {{ dateText(item.returnableUntil) }} · {{ windowWords(item) }}
+                      } @else {
+                        Returnable until {{ dateText(item.returnableUntil) }} · {{ windowWords(item) }}
+                      }
+                    </span>
+                  </div>
+                  <div class="core-side">
+                    <span class="tabular core-amount">{{ item.amountPaid | money: currency() : locale() }}</span>
+                    <span class="core-state">{{ partStatusLabel(item.partStatus) }}</span>
+                  </div>
+                  @if (canEdit()) {
+                    <div class="core-actions">
+                      <button mat-stroked-button type="button" [disabled]="busy()" (click)="setPartStatus(item, 'returned')">
+                        <mat-icon aria-hidden="true">assignment_return</mat-icon>
+                        Sent back
+                      </button>
+                    </div>
+                  }
+                </li>
+              }
+            </ul>
+          }
+
+          <h3 class="group-heading">Sent back, refund not filed yet ({{ returns.awaitingRefund.length }})</h3>
+          @if (returns.awaitingRefund.length === 0) {
+            <p class="quiet">Nothing sent back is waiting for its refund.</p>
+          } @else {
+            <ul class="cores" aria-label="Sent back, refund not filed yet">
+              @for (item of returns.awaitingRefund; track item.lineId) {
+                <li class="core">
+                  <div class="core-main">
+                    <span class="core-description">{{ item.description }}{{ item.partNumber ? ' · ' + item.partNumber : '' }}</span>
+                    <span class="core-shop">
+                      <a [routerLink]="['../receipts', item.receiptId]">{{ item.vendorName || 'Receipt' }}</a>
+                      · bought {{ dateText(item.purchaseDate) }}
+                    </span>
+                    <span class="core-shop">The refund is recorded when its return slip is filed.</span>
+                  </div>
+                  <div class="core-side">
+                    <span class="tabular core-amount">{{ item.amountPaid | money: currency() : locale() }}</span>
+                    <span class="core-state">Owed back</span>
+                  </div>
+                  @if (canEdit()) {
+                    <div class="core-actions">
+                      <a mat-flat-button routerLink="../receipts">
+                        <mat-icon aria-hidden="true">upload_file</mat-icon>
+                        Upload the return slip
+                      </a>
+                      <button mat-stroked-button type="button" [disabled]="busy()" (click)="setPartStatus(item, 'on_hand')">
+                        <mat-icon aria-hidden="true">undo</mat-icon>
+                        Keep it after all
+                      </button>
+                    </div>
+                  }
+                </li>
+              }
+            </ul>
+          }
+
+          <details class="refunded">
+            <summary class="group-heading">Refunded ({{ returns.refunded.length }})</summary>
+            @if (returns.refunded.length === 0) {
+              <p class="quiet">No refunds filed yet.</p>
+            } @else {
+              <ul class="cores" aria-label="Refunded">
+                @for (item of returns.refunded; track item.lineId) {
+                  <li class="core">
+                    <div class="core-main">
+                      <span class="core-description">{{ item.description }}{{ item.partNumber ? ' · ' + item.partNumber : '' }}</span>
+                      <span class="core-shop">
+                        <a [routerLink]="['../receipts', item.receiptId]">{{ item.vendorName || 'Receipt' }}</a>
+                        · bought {{ dateText(item.purchaseDate) }} for {{ item.amountPaid | money: currency() : locale() }}
+                      </span>
+                      <span class="core-shop">
+                        <a [routerLink]="['../receipts', item.refundReceiptId]">Return slip</a>
+                        {{ item.refundDate ? 'of ' + dateText(item.refundDate) : '' }}
+                      </span>
+                    </div>
+                    <div class="core-side">
+                      <span class="tabular core-amount">{{ item.refundedAmount | money: currency() : locale() }}</span>
+                      <span class="core-state">Refunded</span>
+                    </div>
+                  </li>
+                }
+              </ul>
+            }
+          </details>
+        }
+      </section>
     </div>
   `,
   styles: `
@@ -145,6 +275,28 @@ export function todayIso(now = new Date()): string {
     .core-amount {
       font: var(--mat-sys-title-medium);
     }
+    .core-due.closing {
+      color: var(--mat-sys-on-surface);
+      font-weight: 600;
+    }
+    .returns {
+      margin-top: 32px;
+    }
+    .section-heading {
+      font: var(--mat-sys-headline-small);
+      margin: 0 0 8px;
+    }
+    .group-heading {
+      font: var(--mat-sys-title-medium);
+      margin: 20px 0 8px;
+    }
+    .refunded summary {
+      cursor: pointer;
+    }
+    .quiet {
+      color: var(--mat-sys-on-surface-variant);
+      margin: 0;
+    }
     .core-actions {
       flex: 1 1 100%;
       display: flex;
@@ -155,6 +307,7 @@ export function todayIso(now = new Date()): string {
 })
 export class CoresPage {
   private readonly receiptsApi = inject(ReceiptsApi);
+  private readonly partsApi = inject(PartsApi);
   protected readonly current = inject(CurrentBuild);
 
   /** Route parameter (inherited from the build), bound by the router. */
@@ -163,6 +316,7 @@ export class CoresPage {
   protected readonly stateLabels = CORE_STATE_LABELS;
   protected readonly nextStates = NEXT_STATES;
   protected readonly cores = signal<CoreDto[]>([]);
+  protected readonly returns = signal<ReturnsDto | null>(null);
   protected readonly loading = signal(false);
   protected readonly loaded = signal(false);
   protected readonly busy = signal(false);
@@ -179,13 +333,55 @@ export class CoresPage {
   constructor() {
     effect(() => {
       const buildId = this.buildId();
-      untracked(() => this.load(buildId));
+      untracked(() => {
+        this.load(buildId);
+        this.loadReturns(buildId);
+      });
     });
   }
 
   /** Only a deposit still owed can be late; ISO dates compare as text. */
   protected isOverdue(core: CoreDto): boolean {
     return core.state === 'owed' && core.dueDate < this.today;
+  }
+
+  protected daysLeft(item: ReturnableItemDto): number {
+    return daysBetween(this.today, item.returnableUntil);
+  }
+
+  protected isClosingSoon(item: ReturnableItemDto): boolean {
+    const days = this.daysLeft(item);
+    return days >= 0 && days <= CLOSING_SOON_DAYS;
+  }
+
+  protected windowWords(item: ReturnableItemDto): string {
+    return windowText(this.daysLeft(item));
+  }
+
+  protected partStatusLabel(status: PartStatus): string {
+    return PART_STATUS_LABELS[status];
+  }
+
+  /** One click on a return: the part's status with the version last seen; a stale version reloads the list. */
+  protected setPartStatus(item: ReturnableItemDto | AwaitingRefundItemDto, status: PartStatus): void {
+    this.busy.set(true);
+    this.problem.set('');
+    this.partsApi.update(this.buildId(), item.partId, { status, version: item.partVersion }).subscribe({
+      next: () => {
+        this.busy.set(false);
+        this.loadReturns(this.buildId());
+      },
+      error: (error: unknown) => {
+        const problem = toApiError(error);
+        this.problem.set(
+          problem.status === 409
+            ? `Someone else changed "${item.description}" in the meantime. The list is reloaded: check it and try again.`
+            : problem.message,
+        );
+        this.busy.set(false);
+        this.loadReturns(this.buildId());
+      },
+    });
   }
 
   protected dateText(value: string): string {
@@ -217,6 +413,13 @@ export class CoresPage {
         this.loaded.set(true);
       },
       error: () => this.loading.set(false),
+    });
+  }
+
+  private loadReturns(buildId: string): void {
+    this.receiptsApi.returns(buildId).subscribe({
+      next: (returns) => this.returns.set(returns),
+      error: (error: unknown) => this.problem.set(toApiError(error).message),
     });
   }
 }

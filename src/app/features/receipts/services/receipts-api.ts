@@ -1,4 +1,4 @@
-// Calls for a build's receipts: upload with progress, list, check (header, lines, split, merge), file, reopen, line search and cores.
+// Calls for a build's receipts: upload with progress, list, check (header, lines, split, merge), file, reopen, line search, cores and returns.
 import { HttpClient, HttpContext, HttpEvent, HttpEventType, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, filter, map } from 'rxjs';
@@ -10,6 +10,7 @@ import type {
   ReceiptDto,
   ReceiptLineDto,
   ReceiptSummaryDto,
+  ReturnsDto,
   SplitLineRequest,
   UpdateCoreRequest,
   UpdateLineRequest,
@@ -129,5 +130,9 @@ export class ReceiptsApi {
   updateCore(buildId: string, coreId: string, request: UpdateCoreRequest): Observable<CoreDto> {
     return this.http.patch<CoreDto>(`${buildPath(buildId)}/cores/${encodeURIComponent(coreId)}`, request);
   }
-}
 
+  /** Part lines that can still go back, those sent back awaiting a refund, and those refunded. */
+  returns(buildId: string): Observable<ReturnsDto> {
+    return this.http.get<ReturnsDto>(`${buildPath(buildId)}/returns`);
+  }
+}
