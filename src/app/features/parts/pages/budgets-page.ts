@@ -18,6 +18,7 @@ import { SAFETY_CAUTION } from '../../../../../shared/safety';
 import { applyFieldErrors, errorOf, validateWith } from '../../../core/forms/form-errors';
 import { toApiError } from '../../../core/http/api-error';
 import { confirmAction } from '../../../ui/confirm-dialog';
+import { Meter } from '../../../ui/meter';
 import { MoneyPipe } from '../../../ui/money';
 import { CurrentBuild } from '../../builds/services/current-build';
 import { BudgetStanding, amountOf, budgetStanding } from '../models/budget-math';
@@ -55,6 +56,7 @@ interface SystemLine {
     MatInputModule,
     MatProgressBarModule,
     MatTooltipModule,
+    Meter,
     MoneyPipe,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -91,8 +93,8 @@ interface SystemLine {
                   }
                 </span>
               </dd>
-              <dd aria-hidden="true">
-                <span class="meter"><span class="fill" [class.over]="totalStanding().over" [style.width]="totalStanding().fillPercent + '%'"></span></span>
+              <dd>
+                <th-meter [fillPercent]="totalStanding().fillPercent" [over]="totalStanding().over" />
               </dd>
             </div>
           </dl>
@@ -167,9 +169,7 @@ interface SystemLine {
               </div>
 
               <div class="system-standing">
-                <span class="meter" aria-hidden="true"
-                  ><span class="fill" [class.over]="line.standing.over" [style.width]="line.standing.fillPercent + '%'"></span
-                ></span>
+                <th-meter [fillPercent]="line.standing.fillPercent" [over]="line.standing.over" />
                 @if (line.budget.isZero()) {
                   <span class="quiet">{{ line.estimate.isZero() ? 'No budget set' : 'No budget set for this estimate' }}</span>
                 } @else if (line.standing.over) {
@@ -449,21 +449,6 @@ interface SystemLine {
       display: flex;
       flex-direction: column;
       gap: 4px;
-    }
-    .meter {
-      display: block;
-      height: 8px;
-      border-radius: 4px;
-      background: var(--mat-sys-surface-container-highest);
-      overflow: hidden;
-    }
-    .meter .fill {
-      display: block;
-      height: 100%;
-      background: var(--mat-sys-primary);
-    }
-    .meter .fill.over {
-      background: var(--mat-sys-error);
     }
     .system-actions {
       display: flex;

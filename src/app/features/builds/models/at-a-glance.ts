@@ -1,0 +1,82 @@
+// What a build's overview tells at a glance: the budget used, and the things that need someone, in the order the role acts on them.
+import type { LedgerDto } from '../../../../../shared/api/ledger';
+import type { CoreDto, ReceiptSummaryDto } from '../../../../../shared/api/receipts';
+import type { BuildRole } from '../../../../../shared/enums';
+import { Decimal, roundHalfUp, sum } from '../../../../../shared/money';
+import { amountOf, budgetStanding } from '../../parts/models/budget-math';
+
+export interface BudgetUse {
+  /** No budget set for the systems: nothing to measure against. */
+  noBudget: boolean;
+  over: boolean;
+  /** Net cost as a whole percent of the budget (may pass 100); display only. */
+  usedPercent: string;
+  /** 0 to 100 for the meter's width. */
+  fillPercent: string;
+  /** Budget left, or how far over; never negative. */
+  difference: Decimal;
+}
+
+/** Net cost against the systems' budget, as the ledger counts it (the contingency is kept aside). */
+export function budgetUse(ledger: LedgerDto): BudgetUse {
+  const budget = amountOf(ledger.total.budget);
+  const netCost = amountOf(ledger.total.netCost);
+  const standing = budgetStanding(netCost, budget);
+  const over = netCost.greaterThan(budget);
+  const usedPercent = budget.isZero() ? '0' : roundHalfUp(netCost.dividedBy(budget).times(100), 0).toFixed(0);
+  return { noBudget: budget.isZero(), over, usedPercent, fillPercent: standing.fillPercent, difference: standing.difference };
+}
+
+export type AttentionItem =
+  | { kind: 'to_check' | 'reading' | 'failed' | 'review' | 'duplicates'; count: number }
+  | { kind: 'cores'; count: number; amount: string; nearestDue: string; overdue: number }
+  | { kind: 'over_budget'; count: number; systems: string[] };
+
+export interface AttentionSources {
+  role: BuildRole;
+  /** Every receipt of the build, in any state. */
+  receipts: ReceiptSummaryDto[];
+  reviewQueue: ReceiptSummaryDto[];
+  cores: CoreDto[];
+  ledger: LedgerDto | null;
+  /** YYYY-MM-DD in the person's own time zone. */
+  today: string;
+}
+
+/** Only the lines with something in them; the reviewer's own work first, otherwise the checking that blocks the ledger first. */
+export function attentionItems(sources: AttentionSources): AttentionItem[] {
+  const count = (test: (receipt: ReceiptSummaryDto) => boolean) => sources.receipts.filter(test).length;
+  const owed = sources.cores.filter((core) => core.state === 'owed');
+  const overBudget = (sources.ledger?.systems ?? []).filter((system) => {
+    const budget = amountOf(system.budget);
+    // A system with no budget is not "over" it (the budgets page says "No budget set" instead).
+    return budget.greaterThan(0) && amountOf(system.netCost).greaterThan(budget);
+  });
+
+  const review: AttentionItem = { kind: 'review', count: sources.reviewQueue.length };
+  const items: AttentionItem[] = [
+    { kind: 'to_check', count: count((receipt) => receipt.state === 'to_check') },
+    { kind: 'reading', count: count((receipt) => receipt.state === 'queued' || receipt.state === 'reading') },
+    { kind: 'failed', count: count((receipt) => receipt.state === 'failed') },
+    review,
+    {
+      kind: 'cores',
+      count: owed.length,
+      amount: sum(owed.map((core) => amountOf(core.amount))).toFixed(),
+      // Due dates are calendar dates (YYYY-MM-DD), so text order is date order.
+      nearestDue: owed.map((core) => core.dueDate).sort()[0] ?? '',
+      overdue: owed.filter((core) => core.dueDate < sources.today).length,
+    },
+    { kind: 'over_budget', count: overBudget.length, systems: overBudget.map((system) => system.name) },
+    { kind: 'duplicates', count: count((receipt) => receipt.duplicateOf.length > 0) },
+  ];
+  const ordered = sources.role === 'reviewer' ? [review, ...items.filter((item) => item !== review)] : items;
+  return ordered.filter((item) => item.count > 0);
+}
+
+/** Today as YYYY-MM-DD in the person's own time zone, to compare with calendar due dates. */
+export function todayIso(now = new Date()): string {
+  const month = String(now.getMonth() + 1).padStart(2, '0');
+  const day = String(now.getDate()).padStart(2, '0');
+  return `${now.getFullYear()}-${month}-${day}`;
+}
