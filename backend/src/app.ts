@@ -66,10 +66,21 @@ export function createApp({ orm, config, mailer, store, queue }: AppDeps): Runni
 
   const sessionPool = new pg.Pool({ ...config.db, database: config.db.dbName, max: 4 });
   const PgStore = connectPgSimple(session);
+  let closing = false;
+  const sessionStore = new PgStore({
+    pool: sessionPool,
+    tableName: 'session',
+    createTableIfMissing: false,
+    pruneSessionInterval: 15 * 60,
+    // A prune that was under way when the app closed fails on the ended pool: that is no news.
+    errorLog: (...args: unknown[]) => {
+      if (!closing) console.error(...args);
+    },
+  });
   app.use(
     session({
       name: 'tallyhood.sid',
-      store: new PgStore({ pool: sessionPool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 15 * 60 }),
+      store: sessionStore,
       secret: config.sessionSecret,
       resave: false,
       saveUninitialized: false,
@@ -117,6 +128,8 @@ export function createApp({ orm, config, mailer, store, queue }: AppDeps): Runni
   return {
     app,
     async close() {
+      closing = true;
+      await sessionStore.close();
       await sessionPool.end();
     },
   };

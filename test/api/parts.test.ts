@@ -1,7 +1,7 @@
 // Systems, budgets and parts against the real PostgreSQL: exact totals, field errors, stale edits, bulk changes.
 import { Part } from '../../backend/src/parts/part.entity';
 import { DEFAULT_SYSTEMS } from '../../shared/enums';
-import { NEW_BUILD, signedUpClient, type ApiClient } from '../support/api-client';
+import { NEW_BUILD, signedUpClient } from '../support/api-client';
 import { startTestApp, type TestApp } from '../support/test-app';
 
 let t: TestApp;

@@ -1,8 +1,8 @@
 // In Debian's chromium: the owner signs in, creates a build and invites a reviewer by e-mail; the invite is read
 // from the fake SMTP server and accepted in a second browser; the reviewer sees the build without edit controls.
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { signedUpClient, TEST_PASSWORD, uniqueEmail } from '../support/api-client';
-import { accessibilityViolations, launchBrowser, newPage, screenshot } from '../support/browser';
+import { accessibilityViolations, launchBrowser, newPage, screenshot, signIn } from '../support/browser';
 import { startTestApp, type TestApp } from '../support/test-app';
 
 jest.setTimeout(120_000);
@@ -18,18 +18,10 @@ afterAll(async () => {
   await t?.close();
 });
 
-async function signIn(page: Page, email: string) {
-  await page.goto(`${t.url}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(TEST_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: 'Your builds' }).waitFor();
-}
-
 it('takes a reviewer from invite mail to a read-only view of the build', async () => {
   const owner = await signedUpClient(t.app, 'e2e-owner');
   const page = await newPage(browser);
-  await signIn(page, owner.email);
+  await signIn(page, t.url, owner.email);
   await screenshot(page, 'builds-empty');
   expect(await accessibilityViolations(page)).toEqual([]);
 

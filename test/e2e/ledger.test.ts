@@ -1,10 +1,10 @@
 // In Debian's chromium: a build with two filed receipts; the ledger shows the API's totals formatted, a system's net
 // cost opens the lines behind it with links to their receipts, a bar of the chart does too, and an empty build says
 // what to do first. Screenshots at desktop and phone widths; axe finds no WCAG A/AA violation.
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { formatMoney, toDecimal } from '../../shared/money';
-import { NEW_BUILD, signedUpClient, TEST_PASSWORD } from '../support/api-client';
-import { accessibilityViolations, launchBrowser, newPage, screenshot } from '../support/browser';
+import { NEW_BUILD, signedUpClient } from '../support/api-client';
+import { accessibilityViolations, launchBrowser, newPage, screenshot, signIn } from '../support/browser';
 import { filedReceipt } from '../support/receipts';
 import { startTestApp, type TestApp } from '../support/test-app';
 
@@ -20,14 +20,6 @@ afterAll(async () => {
   await browser?.close();
   await t?.close();
 });
-
-async function signIn(page: Page, email: string) {
-  await page.goto(`${t.url}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(TEST_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: 'Your builds' }).waitFor();
-}
 
 const usd = (amount: string) => formatMoney(toDecimal(amount), 'USD', 'en-US');
 
@@ -61,7 +53,7 @@ it('shows the ledger of two filed receipts and the lines behind a figure', async
   expect(ledger.total.netCost).toBe('241.78');
 
   const page = await newPage(browser);
-  await signIn(page, owner.email);
+  await signIn(page, t.url, owner.email);
   await page.goto(`${t.url}/builds/${buildId}/ledger`);
   await page.getByRole('heading', { name: 'Ledger', level: 1 }).waitFor();
   // The total on screen is the API's figure, formatted (its hidden words say what the button opens).
@@ -105,9 +97,9 @@ it('shows the ledger of two filed receipts and the lines behind a figure', async
   await page.getByRole('button', { name: 'Close' }).click();
 
   const phone = await newPage(browser, { phone: true });
-  await signIn(phone, owner.email);
+  await signIn(phone, t.url, owner.email);
   await phone.goto(`${t.url}/builds/${buildId}`);
-  await phone.getByRole('link', { name: 'Ledger' }).click();
+  await phone.getByRole('link', { name: 'Ledger', exact: true }).click();
   await phone.getByRole('heading', { name: 'By system' }).waitFor();
   // Nothing widens the page at 390 px: the wide table scrolls inside its own box.
   await expect(phone.evaluate('document.documentElement.scrollWidth')).resolves.toBe(390);

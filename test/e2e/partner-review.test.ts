@@ -4,10 +4,10 @@
 // independent CSV parser, then opens the printable build sheet with its safety caution.
 import { readFileSync } from 'node:fs';
 import Papa from 'papaparse';
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { SAFETY_CAUTION } from '../../shared/safety';
-import { NEW_BUILD, signedUpClient, TEST_PASSWORD, type ApiClient } from '../support/api-client';
-import { accessibilityViolations, launchBrowser, newPage, screenshot } from '../support/browser';
+import { NEW_BUILD, signedUpClient, type ApiClient } from '../support/api-client';
+import { accessibilityViolations, launchBrowser, newPage, screenshot, signIn } from '../support/browser';
 import { filedReceipt } from '../support/receipts';
 import { startTestApp, type TestApp } from '../support/test-app';
 
@@ -38,14 +38,6 @@ function spoken(elements: unknown[]): string[] {
     Array.from(copy.querySelectorAll('[aria-hidden="true"]')).forEach((hidden) => hidden.remove());
     return (copy.textContent ?? '').replace(/\s+/g, ' ').trim();
   });
-}
-
-async function signIn(page: Page, email: string) {
-  await page.goto(`${t.url}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(TEST_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: 'Your builds' }).waitFor();
 }
 
 async function invite(owner: ApiClient, buildId: string, role: 'reviewer' | 'crew') {
@@ -80,11 +72,11 @@ it('lets the partner review receipts, export the tax ledger and print the build 
   ]);
 
   const page = await newPage(browser);
-  await signIn(page, partner.email);
+  await signIn(page, t.url, partner.email);
   // The totals first, on the Ledger: net cost 150.00 + 12.96 + 118.00 = 280.96 (each receipt's printed total, all
   // purchases); by system, Engine 94.40 and Wiring harness 23.60 as allocated above.
   await page.getByRole('link', { name: 'Teal wagon swap' }).click();
-  await page.getByRole('link', { name: 'Ledger' }).click();
+  await page.getByRole('link', { name: 'Ledger', exact: true }).click();
   await page.getByRole('heading', { name: 'Ledger', level: 1 }).waitFor();
   const netCost = page.locator('dt', { hasText: /^Net cost$/ }).locator('xpath=following-sibling::dd[1]');
   await expect(netCost.innerText()).resolves.toMatch(/^\$280\.96\b/);
@@ -174,7 +166,7 @@ it('lets the partner review receipts, export the tax ledger and print the build 
 
   // The same screens on a 390 px phone.
   const phone = await newPage(browser, { phone: true });
-  await signIn(phone, partner.email);
+  await signIn(phone, t.url, partner.email);
   for (const [path, heading, name] of [
     ['review', 'Waiting for review (1)', 'review-phone'],
     ['exports', 'Exports', 'exports-phone'],

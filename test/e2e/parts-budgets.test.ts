@@ -1,8 +1,8 @@
 // In Debian's chromium: the owner sets system budgets, adds parts through the dialog, imports a 50-row CSV (one bad
 // row left out) and reads each system's estimate against its budget on the Parts screen; then works the inventory.
 import type { Browser, Page } from 'playwright-core';
-import { NEW_BUILD, signedUpClient, TEST_PASSWORD } from '../support/api-client';
-import { accessibilityViolations, launchBrowser, newPage, screenshot } from '../support/browser';
+import { NEW_BUILD, signedUpClient } from '../support/api-client';
+import { accessibilityViolations, launchBrowser, newPage, screenshot, signIn } from '../support/browser';
 import { startTestApp, type TestApp } from '../support/test-app';
 
 jest.setTimeout(180_000);
@@ -17,14 +17,6 @@ afterAll(async () => {
   await browser?.close();
   await t?.close();
 });
-
-async function signIn(page: Page, email: string) {
-  await page.goto(`${t.url}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(TEST_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: 'Your builds' }).waitFor();
-}
 
 const HEADER = 'system,description,part number,quantity,unit,estimated unit cost,status,storage location,source link,notes';
 
@@ -88,7 +80,7 @@ it('budgets two systems, adds and imports parts, and shows each system against i
   const buildUrl = `${t.url}/builds/${created.body.id}`;
 
   const page = await newPage(browser);
-  await signIn(page, owner.email);
+  await signIn(page, t.url, owner.email);
 
   // Budgets: two systems, and the live totals.
   await page.goto(`${buildUrl}/budgets`);
@@ -218,7 +210,7 @@ it('budgets two systems, adds and imports parts, and shows each system against i
 
   // The same screens on a phone, 390 px wide: no sideways scrolling of the page.
   const phone = await newPage(browser, { phone: true });
-  await signIn(phone, owner.email);
+  await signIn(phone, t.url, owner.email);
   for (const section of ['parts', 'budgets', 'inventory']) {
     await phone.goto(`${buildUrl}/${section}`);
     await phone.getByRole('heading', { name: section[0].toUpperCase() + section.slice(1), level: 1 }).waitFor();

@@ -122,7 +122,7 @@ it('reads an uploaded slip, checks and files it, and tracks its core deposit', a
   const phone = await newPage(browser, { phone: true });
   await signIn(phone, owner.email);
   await phone.goto(buildUrl);
-  await phone.getByRole('link', { name: 'Receipts' }).click();
+  await phone.getByRole('link', { name: 'Receipts', exact: true }).click();
   await phone.getByRole('link', { name: /BRACKENRIDGE/i }).waitFor();
   await screenshot(phone, 'receipts-phone');
   expect(await accessibilityViolations(phone)).toEqual([]);

@@ -3,6 +3,7 @@ import AxeBuilder from '@axe-core/playwright';
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { chromium, type Browser, type Page } from 'playwright-core';
+import { TEST_PASSWORD } from './api-client';
 
 export const SCREENSHOT_DIR = path.resolve(process.env.TEST_OUTPUT_DIR ?? 'test-results', 'screenshots');
 
@@ -43,4 +44,13 @@ export async function screenshot(page: Page, name: string): Promise<string> {
 export async function accessibilityViolations(page: Page): Promise<string[]> {
   const result = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa']).analyze();
   return result.violations.map((v) => `${v.id}: ${v.nodes[0]?.target.join(' ')} (${v.help})`);
+}
+
+/** Signs in through the real form and waits for the builds list. */
+export async function signIn(page: Page, appUrl: string, email: string, password = TEST_PASSWORD): Promise<void> {
+  await page.goto(`${appUrl}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('heading', { name: 'Your builds' }).waitFor();
 }
