@@ -5,8 +5,8 @@ import type { Browser, Page } from 'playwright-core';
 import { startReadingWorker } from '../../backend/src/jobs/worker';
 import { readWithPageImages } from '../../backend/src/receipts/read-with-pages';
 import { closeReaders } from '../../backend/src/receipts/reading/read-document';
-import { NEW_BUILD, signedUpClient, TEST_PASSWORD } from '../support/api-client';
-import { accessibilityViolations, launchBrowser, newPage, screenshot } from '../support/browser';
+import { NEW_BUILD, signedUpClient } from '../support/api-client';
+import { accessibilityViolations, launchBrowser, newPage, screenshot, signIn } from '../support/browser';
 import { startTestApp, type TestApp } from '../support/test-app';
 
 jest.setTimeout(240_000);
@@ -28,14 +28,6 @@ afterAll(async () => {
   await closeReaders();
 });
 
-async function signIn(page: Page, email: string) {
-  await page.goto(`${t.url}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(TEST_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: 'Your builds' }).waitFor();
-}
-
 async function assignSystem(page: Page, lineNumber: number, system: string) {
   const saved = page.waitForResponse((response) => response.request().method() === 'PATCH' && response.url().includes('/lines/'));
   await page.getByRole('combobox', { name: `System for line ${lineNumber}` }).click();
@@ -50,7 +42,7 @@ it('reads an uploaded slip, checks and files it, and tracks its core deposit', a
   const buildUrl = `${t.url}/builds/${created.body.id}`;
 
   const page = await newPage(browser);
-  await signIn(page, owner.email);
+  await signIn(page, t.url, owner.email);
   await page.goto(`${buildUrl}/receipts`);
   await page.getByRole('heading', { name: 'No receipts yet' }).waitFor();
   await screenshot(page, 'receipts-empty');
@@ -120,7 +112,7 @@ it('reads an uploaded slip, checks and files it, and tracks its core deposit', a
 
   // On a phone Receipts is in the bottom bar.
   const phone = await newPage(browser, { phone: true });
-  await signIn(phone, owner.email);
+  await signIn(phone, t.url, owner.email);
   await phone.goto(buildUrl);
   await phone.getByRole('link', { name: 'Receipts', exact: true }).click();
   await phone.getByRole('link', { name: /BRACKENRIDGE/i }).waitFor();
