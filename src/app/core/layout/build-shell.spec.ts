@@ -6,32 +6,16 @@ import { HttpTestingController } from '@angular/common/http/testing';
 import { Router } from '@angular/router';
 import { render, screen } from '@testing-library/angular/zoneless';
 import userEvent from '@testing-library/user-event';
-import type { BuildDto } from '../../../../shared/api/builds';
 import type { BuildRole } from '../../../../shared/enums';
 import { apiTestProviders } from '../../../testing/api-test-providers';
+import { testBuild } from '../../../testing/build-fixtures';
 import { ReceiptUploads } from '../../features/receipts/services/receipt-uploads';
 import { BuildShell } from './build-shell';
-
-const build = (role: BuildRole): BuildDto => ({
-  id: 'b-1',
-  name: 'Teal wagon swap',
-  vehicle: '1979 invented wagon',
-  currency: 'USD',
-  locale: 'en-US',
-  status: 'active',
-  startedOn: null,
-  targetDate: null,
-  returnWindowDays: 30,
-  archived: false,
-  version: 2,
-  role,
-  createdAt: '2026-01-05T09:00:00.000Z',
-});
 
 async function renderAs(role: BuildRole) {
   await render(BuildShell, { providers: [...apiTestProviders([{ path: '**', children: [] }])], bindings: [inputBinding('buildId', () => 'b-1')] });
   const http = TestBed.inject(HttpTestingController);
-  http.expectOne('/api/builds/b-1').flush(build(role));
+  http.expectOne('/api/builds/b-1').flush(testBuild(role));
   await screen.findByText('Teal wagon swap');
   return http;
 }

@@ -7,6 +7,7 @@ import { inputBinding } from '@angular/core';
 import { render, screen } from '@testing-library/angular/zoneless';
 import userEvent from '@testing-library/user-event';
 import { apiTestProviders } from '../../../../testing/api-test-providers';
+import { describedText } from '../../../../testing/described-text';
 import { Session } from '../../../core/auth/session';
 import { SignIn } from './sign-in';
 
@@ -17,14 +18,6 @@ const routes = [
   { path: 'builds', component: Blank },
   { path: 'builds/:buildId', component: Blank },
 ];
-
-function describedText(input: HTMLElement): string {
-  return (input.getAttribute('aria-describedby') ?? '')
-    .split(' ')
-    .map((id) => document.getElementById(id)?.textContent?.trim() ?? '')
-    .join(' ')
-    .trim();
-}
 
 describe('SignIn', () => {
   it('says which field is missing and sends nothing', async () => {

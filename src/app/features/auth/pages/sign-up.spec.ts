@@ -6,6 +6,7 @@ import { Router } from '@angular/router';
 import { render, screen } from '@testing-library/angular/zoneless';
 import userEvent from '@testing-library/user-event';
 import { apiTestProviders } from '../../../../testing/api-test-providers';
+import { testBuild } from '../../../../testing/build-fixtures';
 import { Session } from '../../../core/auth/session';
 import { SignUp } from './sign-up';
 
@@ -63,12 +64,7 @@ describe('SignUp', () => {
     request.flush({ user: { id: 'u9', email: 'oskar@example.test', displayName: 'Oskar Brandt' } }, { status: 201, statusText: 'Created' });
     // The answer names no build, so the new account's only build is the one joined.
     http.expectOne('/api/builds').flush({
-      builds: [
-        {
-          id: 'b-5', name: 'Teal coupe swap', vehicle: '', currency: 'USD', locale: 'en-US', status: 'active', startedOn: null,
-          targetDate: null, archived: false, version: 1, role: 'crew', createdAt: '2026-01-01T00:00:00Z',
-        },
-      ],
+      builds: [testBuild('crew', { id: 'b-5', name: 'Teal coupe swap', vehicle: '', version: 1, createdAt: '2026-01-01T00:00:00Z' })],
     });
     await settle();
 

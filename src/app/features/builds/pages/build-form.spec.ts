@@ -6,8 +6,9 @@ import { provideMomentDateAdapter } from '@angular/material-moment-adapter';
 import { Router } from '@angular/router';
 import { render, screen } from '@testing-library/angular/zoneless';
 import userEvent from '@testing-library/user-event';
-import type { BuildDto } from '../../../../../shared/api/builds';
 import { apiTestProviders } from '../../../../testing/api-test-providers';
+import { describedText } from '../../../../testing/described-text';
+import { testBuild } from '../../../../testing/build-fixtures';
 import { BuildForm } from './build-form';
 
 @Component({ template: '' })
@@ -15,29 +16,17 @@ class Blank {}
 
 const providers = [...apiTestProviders([{ path: 'builds/:buildId', component: Blank }]), provideMomentDateAdapter()];
 
-const saved: BuildDto = {
+const saved = testBuild('owner', {
   id: 'b-42',
   name: 'Green wagon refresh',
   vehicle: '1986 Halden wagon, 2.0 L diesel',
   currency: 'EUR',
   locale: 'de-DE',
-  status: 'active',
   startedOn: '2026-03-14',
   targetDate: '2026-11-02',
-  returnWindowDays: 30,
-  archived: false,
   version: 5,
-  role: 'owner',
   createdAt: '2026-03-14T08:00:00.000Z',
-};
-
-function describedText(input: HTMLElement): string {
-  return (input.getAttribute('aria-describedby') ?? '')
-    .split(' ')
-    .map((id) => document.getElementById(id)?.textContent?.trim() ?? '')
-    .join(' ')
-    .trim();
-}
+});
 
 const settle = () => new Promise((resolve) => setTimeout(resolve));
 

@@ -4,24 +4,17 @@ import { HttpTestingController } from '@angular/common/http/testing';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import type { BuildDto } from '../../../../../shared/api/builds';
 import { apiTestProviders } from '../../../../testing/api-test-providers';
+import { testBuild } from '../../../../testing/build-fixtures';
 import { ApiError } from '../../../core/http/api-error';
 import { BuildsApi } from './builds-api';
 
-const coupe: BuildDto = {
-  id: 'b-1',
+const coupe = testBuild('owner', {
   name: 'Teal coupe swap',
   vehicle: '1978 Marlow coupe, 2.3 L four',
-  currency: 'USD',
-  locale: 'en-US',
-  status: 'active',
   startedOn: '2026-02-01',
-  targetDate: null,
-  returnWindowDays: 30,
-  archived: false,
   version: 3,
-  role: 'owner',
   createdAt: '2026-02-01T10:00:00.000Z',
-};
+});
 
 describe('BuildsApi', () => {
   let api: BuildsApi;

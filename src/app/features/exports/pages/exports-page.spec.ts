@@ -7,11 +7,9 @@ import { HttpTestingController } from '@angular/common/http/testing';
 import { provideMomentDateAdapter } from '@angular/material-moment-adapter';
 import { render, screen } from '@testing-library/angular/zoneless';
 import userEvent from '@testing-library/user-event';
-import type { SystemDto } from '../../../../../shared/api/parts';
 import { apiTestProviders } from '../../../../testing/api-test-providers';
+import { testSystem, testSystemsResponse } from '../../../../testing/build-fixtures';
 import { ExportsPage } from './exports-page';
-
-const system = (id: string, name: string): SystemDto => ({ id, name, budget: '0.00', estimate: '0.00', partCount: 0, sortOrder: 0, archived: false, safetyCaution: false, version: 1 });
 
 const saved: { href: string; download: string }[] = [];
 
@@ -34,7 +32,7 @@ async function renderPage() {
   const http = TestBed.inject(HttpTestingController);
   http
     .expectOne('/api/builds/b-1/systems')
-    .flush({ currency: 'USD', systems: [system('s-fuel', 'Fuel'), system('s-tools', 'Tools and consumables')], contingencyBudget: '0', totalBudget: '0', totalEstimate: '0', buildVersion: 2 });
+    .flush(testSystemsResponse([testSystem('s-fuel', 'Fuel'), testSystem('s-tools', 'Tools and consumables')]));
   await screen.findByRole('heading', { name: 'Exports' });
   return http;
 }

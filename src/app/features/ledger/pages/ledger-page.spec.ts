@@ -1,31 +1,10 @@
 // Ledger page: the totals in words, the systems table whose figures open their lines, spend by month and week, the
 // shops, and the empty state. jsdom has no canvas, so getContext answers null and the page stands on its tables.
-import { inputBinding } from '@angular/core';
-import { TestBed } from '@angular/core/testing';
-import { HttpTestingController } from '@angular/common/http/testing';
-import { render, screen, within } from '@testing-library/angular/zoneless';
+import { screen, within } from '@testing-library/angular/zoneless';
 import userEvent from '@testing-library/user-event';
-import type { BuildDto } from '../../../../../shared/api/builds';
 import type { LedgerDto, LedgerLineDto, LedgerSystemDto, SpendResponse, VendorsResponse } from '../../../../../shared/api/ledger';
-import { apiTestProviders } from '../../../../testing/api-test-providers';
-import { CurrentBuild } from '../../builds/services/current-build';
+import { renderInBuild } from '../../../../testing/render-in-build';
 import { LedgerPage } from './ledger-page';
-
-const build = {
-  id: 'b-1',
-  name: 'Teal wagon swap',
-  vehicle: '',
-  currency: 'USD',
-  locale: 'en-US',
-  status: 'active',
-  startedOn: null,
-  targetDate: null,
-  archived: false,
-  version: 4,
-  role: 'reviewer',
-  createdAt: '2026-01-05T09:00:00.000Z',
-  returnWindowDays: 30,
-} as BuildDto;
 
 const system = (systemId: string, name: string, figures: Partial<LedgerSystemDto>): LedgerSystemDto => ({
   systemId,
@@ -112,21 +91,8 @@ const line = (lineId: string, receiptId: string, description: string, figures: P
 
 async function renderPage(answers: { ledger?: LedgerDto; spend?: SpendResponse } = {}) {
   jest.spyOn(HTMLCanvasElement.prototype, 'getContext').mockReturnValue(null);
-  await render(LedgerPage, {
-    providers: [
-      ...apiTestProviders(),
-      {
-        provide: CurrentBuild,
-        useFactory: () => {
-          const current = new CurrentBuild();
-          current.set(build);
-          return current;
-        },
-      },
-    ],
-    bindings: [inputBinding('buildId', () => 'b-1')],
-  });
-  const http = TestBed.inject(HttpTestingController);
+  // The person is a reviewer, which the empty state's words depend on.
+  const { http } = await renderInBuild(LedgerPage, { role: 'reviewer', build: { vehicle: '', version: 4 } });
   http.expectOne('/api/builds/b-1/ledger').flush(answers.ledger ?? ledger);
   http.expectOne('/api/builds/b-1/ledger/spend?by=month').flush(answers.spend ?? months);
   http.expectOne('/api/builds/b-1/ledger/vendors').flush(vendors);

@@ -4,41 +4,15 @@ import { HttpTestingController } from '@angular/common/http/testing';
 import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
 import { render, screen, within } from '@testing-library/angular/zoneless';
 import userEvent from '@testing-library/user-event';
-import type { PartDto, SystemDto } from '../../../../../shared/api/parts';
+import type { PartDto } from '../../../../../shared/api/parts';
 import { apiTestProviders } from '../../../../testing/api-test-providers';
+import { describedText } from '../../../../testing/described-text';
+import { testPart, testSystem } from '../../../../testing/build-fixtures';
 import { PartFormData, PartFormDialog } from './part-form-dialog';
 
-const system = (id: string, name: string): SystemDto => ({
-  id,
-  name,
-  budget: '0.00',
-  estimate: '0.00',
-  partCount: 0,
-  sortOrder: 0,
-  archived: false,
-  safetyCaution: false,
-  version: 1,
-});
-const systems = [system('11111111-1111-4111-8111-111111111111', 'Engine'), system('22222222-2222-4222-8222-222222222222', 'Brakes')];
+const systems = [testSystem('11111111-1111-4111-8111-111111111111', 'Engine'), testSystem('22222222-2222-4222-8222-222222222222', 'Brakes')];
 
-const pads: PartDto = {
-  id: 'p-1',
-  systemId: systems[1].id,
-  description: 'Ceramic brake pads, front axle',
-  partNumber: 'BP-2231',
-  quantity: '2',
-  unit: 'each',
-  estimatedUnitCost: '24.99',
-  estimatedTotal: '49.98',
-  status: 'planned',
-  storageLocation: '',
-  sourceUrl: '',
-  notes: '',
-  forSale: false,
-  askingPrice: null,
-  version: 1,
-  updatedAt: '2026-03-02T10:00:00.000Z',
-};
+const pads = testPart('p-1', { systemId: systems[1].id, estimatedUnitCost: '24.99', estimatedTotal: '49.98' });
 
 async function renderDialog(data: Partial<PartFormData> = {}) {
   const close = jest.fn();
@@ -50,14 +24,6 @@ async function renderDialog(data: Partial<PartFormData> = {}) {
     ],
   });
   return { close, http: TestBed.inject(HttpTestingController), user: userEvent.setup() };
-}
-
-function describedText(input: HTMLElement): string {
-  return (input.getAttribute('aria-describedby') ?? '')
-    .split(' ')
-    .map((id) => document.getElementById(id)?.textContent?.trim() ?? '')
-    .join(' ')
-    .trim();
 }
 
 describe('PartFormDialog', () => {

@@ -1,44 +1,14 @@
 // Budgets page: live totals from what the owner types, saved per field with the version, refused amounts kept on the field.
-import { inputBinding } from '@angular/core';
-import { TestBed } from '@angular/core/testing';
-import { HttpTestingController } from '@angular/common/http/testing';
-import { render, screen } from '@testing-library/angular/zoneless';
+import { screen } from '@testing-library/angular/zoneless';
 import userEvent from '@testing-library/user-event';
-import type { BuildDto } from '../../../../../shared/api/builds';
 import type { SystemDto, SystemsResponse } from '../../../../../shared/api/parts';
 import type { BuildRole } from '../../../../../shared/enums';
-import { apiTestProviders } from '../../../../testing/api-test-providers';
-import { CurrentBuild } from '../../builds/services/current-build';
+import { testSystem } from '../../../../testing/build-fixtures';
+import { renderInBuild } from '../../../../testing/render-in-build';
 import { BudgetsPage } from './budgets-page';
 
-const build = (role: BuildRole): BuildDto => ({
-  id: 'b-1',
-  name: 'Teal wagon swap',
-  vehicle: '',
-  currency: 'USD',
-  locale: 'en-US',
-  status: 'active',
-  startedOn: null,
-  targetDate: null,
-  returnWindowDays: 30,
-  archived: false,
-  version: 4,
-  role,
-  createdAt: '2026-01-05T09:00:00.000Z',
-});
-
-const system = (id: string, name: string, budget: string, estimate: string, extra: Partial<SystemDto> = {}): SystemDto => ({
-  id,
-  name,
-  budget,
-  estimate,
-  partCount: 1,
-  sortOrder: 0,
-  archived: false,
-  safetyCaution: false,
-  version: 2,
-  ...extra,
-});
+const system = (id: string, name: string, budget: string, estimate: string, extra: Partial<SystemDto> = {}): SystemDto =>
+  testSystem(id, name, { budget, estimate, partCount: 1, version: 2, ...extra });
 
 // Budgets 2,000.00 + 1,200.00 + contingency 150.00 = 3,350.00; estimates 2,262.50 + 622.64 + 40.00 (archived) = 2,925.14.
 const overview: SystemsResponse = {
@@ -55,21 +25,8 @@ const overview: SystemsResponse = {
 };
 
 async function renderAs(role: BuildRole) {
-  await render(BudgetsPage, {
-    providers: [
-      ...apiTestProviders(),
-      {
-        provide: CurrentBuild,
-        useFactory: () => {
-          const current = new CurrentBuild();
-          current.set(build(role));
-          return current;
-        },
-      },
-    ],
-    bindings: [inputBinding('buildId', () => 'b-1')],
-  });
-  const http = TestBed.inject(HttpTestingController);
+  // At version 4, as the systems answer's buildVersion says.
+  const { http } = await renderInBuild(BudgetsPage, { role, build: { vehicle: '', version: 4 } });
   http.expectOne('/api/builds/b-1/systems?archived=true').flush(overview);
   await screen.findByText('Engine');
   return { http, user: userEvent.setup() };

@@ -1,43 +1,14 @@
 // Parts table: grouped totals against budget in words, the reviewer's read-only view, and bulk moves sent with the chosen ids.
-import { inputBinding } from '@angular/core';
-import { TestBed } from '@angular/core/testing';
-import { HttpTestingController } from '@angular/common/http/testing';
-import { render, screen, within } from '@testing-library/angular/zoneless';
+import { screen, within } from '@testing-library/angular/zoneless';
 import userEvent from '@testing-library/user-event';
-import type { BuildDto } from '../../../../../shared/api/builds';
 import type { PartDto, SystemDto, SystemsResponse } from '../../../../../shared/api/parts';
 import type { BuildRole } from '../../../../../shared/enums';
-import { apiTestProviders } from '../../../../testing/api-test-providers';
-import { CurrentBuild } from '../../builds/services/current-build';
+import { testPart, testSystem } from '../../../../testing/build-fixtures';
+import { renderInBuild } from '../../../../testing/render-in-build';
 import { PartsPage } from './parts-page';
 
-const build = (role: BuildRole): BuildDto => ({
-  id: 'b-1',
-  name: 'Teal wagon swap',
-  vehicle: '1979 invented wagon',
-  currency: 'USD',
-  locale: 'en-US',
-  status: 'active',
-  startedOn: null,
-  targetDate: null,
-  returnWindowDays: 30,
-  archived: false,
-  version: 2,
-  role,
-  createdAt: '2026-01-05T09:00:00.000Z',
-});
-
-const system = (id: string, name: string, budget: string, sortOrder: number, safetyCaution = false): SystemDto => ({
-  id,
-  name,
-  budget,
-  estimate: '0.00',
-  partCount: 0,
-  sortOrder,
-  archived: false,
-  safetyCaution,
-  version: 1,
-});
+const system = (id: string, name: string, budget: string, sortOrder: number, safetyCaution = false): SystemDto =>
+  testSystem(id, name, { budget, sortOrder, safetyCaution });
 
 const overview: SystemsResponse = {
   currency: 'USD',
@@ -48,25 +19,8 @@ const overview: SystemsResponse = {
   buildVersion: 2,
 };
 
-const part = (id: string, systemId: string, description: string, quantity: string, unitCost: string, total: string, extra: Partial<PartDto> = {}): PartDto => ({
-  id,
-  systemId,
-  description,
-  partNumber: '',
-  quantity,
-  unit: 'each',
-  estimatedUnitCost: unitCost,
-  estimatedTotal: total,
-  status: 'planned',
-  storageLocation: '',
-  sourceUrl: '',
-  notes: '',
-  forSale: false,
-  askingPrice: null,
-  version: 1,
-  updatedAt: '2026-03-02T10:00:00.000Z',
-  ...extra,
-});
+const part = (id: string, systemId: string, description: string, quantity: string, unitCost: string, total: string, extra: Partial<PartDto> = {}): PartDto =>
+  testPart(id, { systemId, description, partNumber: '', quantity, estimatedUnitCost: unitCost, estimatedTotal: total, ...extra });
 
 // Engine: 90.50 + 30.00 = 120.50 against 100.00, so 20.50 over. Brakes: 129.00 against 500.00, so 371.00 left.
 const parts: PartDto[] = [
@@ -76,21 +30,7 @@ const parts: PartDto[] = [
 ];
 
 async function renderAs(role: BuildRole) {
-  await render(PartsPage, {
-    providers: [
-      ...apiTestProviders(),
-      {
-        provide: CurrentBuild,
-        useFactory: () => {
-          const current = new CurrentBuild();
-          current.set(build(role));
-          return current;
-        },
-      },
-    ],
-    bindings: [inputBinding('buildId', () => 'b-1')],
-  });
-  const http = TestBed.inject(HttpTestingController);
+  const { http } = await renderInBuild(PartsPage, { role });
   http.expectOne('/api/builds/b-1/systems?archived=true').flush(overview);
   http.expectOne('/api/builds/b-1/parts').flush({ parts });
   await screen.findByText('Hose clamp pack');

@@ -4,27 +4,11 @@ import { HttpTestingController } from '@angular/common/http/testing';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import type { ImportPreviewDto, PartDto } from '../../../../../shared/api/parts';
 import { apiTestProviders } from '../../../../testing/api-test-providers';
+import { testPart } from '../../../../testing/build-fixtures';
 import { ApiError } from '../../../core/http/api-error';
 import { PartsApi } from './parts-api';
 
-const pads: PartDto = {
-  id: 'p-1',
-  systemId: 's-brakes',
-  description: 'Ceramic brake pads, front axle',
-  partNumber: 'BP-2231',
-  quantity: '2',
-  unit: 'each',
-  estimatedUnitCost: '64.50',
-  estimatedTotal: '129.00',
-  status: 'planned',
-  storageLocation: '',
-  sourceUrl: '',
-  notes: '',
-  forSale: false,
-  askingPrice: null,
-  version: 1,
-  updatedAt: '2026-03-02T10:00:00.000Z',
-};
+const pads = testPart('p-1');
 
 describe('PartsApi', () => {
   let api: PartsApi;

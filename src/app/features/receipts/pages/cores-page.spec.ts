@@ -1,47 +1,14 @@
 // Cores and returns: overdue deposits and closing return windows marked in words with an icon, one click moves a deposit
 // or a part on with its version, a stale version reloads with a message, a reviewer gets no buttons.
-import { inputBinding } from '@angular/core';
-import { TestBed } from '@angular/core/testing';
-import { HttpTestingController } from '@angular/common/http/testing';
-import { render, screen } from '@testing-library/angular/zoneless';
+import { screen } from '@testing-library/angular/zoneless';
 import userEvent from '@testing-library/user-event';
-import type { BuildDto } from '../../../../../shared/api/builds';
 import type { CoreDto, RefundedItemDto, ReturnableItemDto, ReturnsDto } from '../../../../../shared/api/receipts';
 import type { BuildRole } from '../../../../../shared/enums';
-import { apiTestProviders } from '../../../../testing/api-test-providers';
-import { CurrentBuild } from '../../builds/services/current-build';
+import { testCore } from '../../../../testing/build-fixtures';
+import { renderInBuild } from '../../../../testing/render-in-build';
 import { CoresPage, daysBetween, todayIso, windowText } from './cores-page';
 
-const build = (role: BuildRole): BuildDto => ({
-  id: 'b-1',
-  name: 'Teal wagon swap',
-  vehicle: '1979 invented wagon',
-  currency: 'USD',
-  locale: 'en-US',
-  status: 'active',
-  startedOn: null,
-  targetDate: null,
-  returnWindowDays: 30,
-  archived: false,
-  version: 2,
-  role,
-  createdAt: '2026-01-05T09:00:00.000Z',
-});
-
-const core = (id: string, dueDate: string, extra: Partial<CoreDto> = {}): CoreDto => ({
-  id,
-  state: 'owed',
-  dueDate,
-  amount: '40.00',
-  description: 'Alternator core',
-  partNumber: 'ALT-9',
-  receiptId: 'r-1',
-  vendorName: 'Ridgeback Parts',
-  purchaseDate: '2026-01-30',
-  refundLineId: null,
-  version: 2,
-  ...extra,
-});
+const core = (id: string, dueDate: string, extra: Partial<CoreDto> = {}): CoreDto => testCore(id, { dueDate, version: 2, ...extra });
 
 const NO_RETURNS: ReturnsDto = { returnable: [], awaitingRefund: [], refunded: [] };
 
@@ -76,21 +43,7 @@ const refunded = (): RefundedItemDto => ({
 });
 
 async function renderAs(role: BuildRole, cores: CoreDto[], returns: ReturnsDto = NO_RETURNS) {
-  await render(CoresPage, {
-    providers: [
-      ...apiTestProviders(),
-      {
-        provide: CurrentBuild,
-        useFactory: () => {
-          const current = new CurrentBuild();
-          current.set(build(role));
-          return current;
-        },
-      },
-    ],
-    bindings: [inputBinding('buildId', () => 'b-1')],
-  });
-  const http = TestBed.inject(HttpTestingController);
+  const { http } = await renderInBuild(CoresPage, { role });
   http.expectOne('/api/builds/b-1/cores').flush({ cores });
   http.expectOne('/api/builds/b-1/returns').flush(returns);
   return http;

@@ -5,6 +5,7 @@ import { HttpTestingController } from '@angular/common/http/testing';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import type { CoreDto } from '../../../../../shared/api/receipts';
 import { apiTestProviders } from '../../../../testing/api-test-providers';
+import { testCore } from '../../../../testing/build-fixtures';
 import { ApiError } from '../../../core/http/api-error';
 import { ReceiptsApi, UploadProgress } from './receipts-api';
 
@@ -133,19 +134,7 @@ describe('ReceiptsApi', () => {
   });
 
   it('lists cores and changes one with PATCH /cores/:id and the version', () => {
-    const core: CoreDto = {
-      id: 'c-1',
-      state: 'owed',
-      dueDate: '2026-03-01',
-      amount: '22.00',
-      description: 'Alternator core',
-      partNumber: 'ALT-9',
-      receiptId: 'r-1',
-      vendorName: 'Ridgeback Parts',
-      purchaseDate: '2026-01-30',
-      refundLineId: null,
-      version: 1,
-    };
+    const core = testCore('c-1', { amount: '22.00' });
     let cores: CoreDto[] | undefined;
     api.cores('b-1').subscribe((answer) => (cores = answer));
     http.expectOne('/api/builds/b-1/cores').flush({ cores: [core] });

@@ -5,49 +5,14 @@ import { TestBed } from '@angular/core/testing';
 import { HttpTestingController } from '@angular/common/http/testing';
 import { render, screen, within } from '@testing-library/angular/zoneless';
 import userEvent from '@testing-library/user-event';
-import type { SystemDto } from '../../../../../shared/api/parts';
 import type { ReceiptDto } from '../../../../../shared/api/receipts';
 import type { AuditEventDto, CommentDto } from '../../../../../shared/api/review';
 import { apiTestProviders } from '../../../../testing/api-test-providers';
+import { testReceipt, testSystem } from '../../../../testing/build-fixtures';
 import { ReviewPanel } from './review-panel';
 
-const system = (id: string, name: string): SystemDto => ({ id, name, budget: '0.00', estimate: '0.00', partCount: 0, sortOrder: 0, archived: false, safetyCaution: false, version: 1 });
-
-const receipt = (extra: Partial<ReceiptDto> = {}): ReceiptDto => ({
-  id: 'r-1',
-  vendorName: 'Ridgeback Parts',
-  purchaseDate: '2026-02-14',
-  receiptNumber: 'A-100',
-  total: '42.00',
-  state: 'filed',
-  readingProgress: 100,
-  reviewState: 'questioned',
-  originalFilename: 'slip.png',
-  contentType: 'image/png',
-  lineCount: 0,
-  duplicateOf: [],
-  systemIds: [],
-  uploadedBy: 'Dario Fenn',
-  createdAt: '2026-02-14T10:00:00.000Z',
-  version: 5,
-  currency: 'USD',
-  locale: 'en-US',
-  subtotal: null,
-  tax: '2.00',
-  shipping: null,
-  discount: null,
-  differenceAccepted: false,
-  differenceReason: '',
-  readingError: null,
-  reviewComment: 'Which car is the gauge for?',
-  pages: [],
-  fieldConfidence: {},
-  readingNotes: [],
-  lines: [],
-  reconciliation: { linesTotal: '40.00', computedTotal: '42.00', printedTotal: '42.00', difference: '0.00', reconciles: true },
-  editable: false,
-  ...extra,
-});
+const receipt = (extra: Partial<ReceiptDto> = {}): ReceiptDto =>
+  testReceipt('r-1', { state: 'filed', reviewState: 'questioned', version: 5, reviewComment: 'Which car is the gauge for?', ...extra });
 
 const comments: CommentDto[] = [
   { id: 'c-1', author: 'Ines Varga', body: 'Which car is the gauge for?', createdAt: '2026-02-15T12:00:00.000Z' },
@@ -73,7 +38,7 @@ const events: AuditEventDto[] = [
 async function renderPanel(shown = signal(receipt())) {
   await render(ReviewPanel, {
     providers: apiTestProviders(),
-    bindings: [inputBinding('buildId', () => 'b-1'), inputBinding('receipt', shown), inputBinding('systems', () => [system('s-brakes', 'Brakes'), system('s-tools', 'Tools and consumables')])],
+    bindings: [inputBinding('buildId', () => 'b-1'), inputBinding('receipt', shown), inputBinding('systems', () => [testSystem('s-brakes', 'Brakes'), testSystem('s-tools', 'Tools and consumables')])],
   });
   const http = TestBed.inject(HttpTestingController);
   http.expectOne('/api/builds/b-1/receipts/r-1/comments').flush({ comments });

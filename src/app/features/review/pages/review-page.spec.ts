@@ -1,55 +1,16 @@
 // Review page: the queue beside the chosen receipt, Approve and Question (with its required comment) sending the
 // version, the next receipt opening after a verdict, the 409 reload, crew without verdict buttons, the empty queue.
-import { inputBinding } from '@angular/core';
-import { TestBed } from '@angular/core/testing';
 import { HttpTestingController } from '@angular/common/http/testing';
-import { render, screen, within } from '@testing-library/angular/zoneless';
+import { screen, within } from '@testing-library/angular/zoneless';
 import userEvent from '@testing-library/user-event';
-import type { BuildDto } from '../../../../../shared/api/builds';
-import type { SystemDto } from '../../../../../shared/api/parts';
 import type { ReceiptDto, ReceiptLineDto, ReceiptSummaryDto } from '../../../../../shared/api/receipts';
 import type { BuildRole } from '../../../../../shared/enums';
-import { apiTestProviders } from '../../../../testing/api-test-providers';
-import { CurrentBuild } from '../../builds/services/current-build';
+import { testReceipt, testReceiptSummary, testSystem, testSystemsResponse } from '../../../../testing/build-fixtures';
+import { renderInBuild } from '../../../../testing/render-in-build';
 import { ReviewPage } from './review-page';
 
-const build = (role: BuildRole): BuildDto => ({
-  id: 'b-1',
-  name: 'Teal wagon swap',
-  vehicle: '1979 invented wagon',
-  currency: 'USD',
-  locale: 'en-US',
-  status: 'active',
-  startedOn: null,
-  targetDate: null,
-  archived: false,
-  returnWindowDays: 30,
-  version: 2,
-  role,
-  createdAt: '2026-01-05T09:00:00.000Z',
-});
-
-const system = (id: string, name: string): SystemDto => ({ id, name, budget: '0.00', estimate: '0.00', partCount: 0, sortOrder: 0, archived: false, safetyCaution: false, version: 1 });
-
-const summary = (id: string, vendorName: string, purchaseDate: string, total: string, extra: Partial<ReceiptSummaryDto> = {}): ReceiptSummaryDto => ({
-  id,
-  vendorName,
-  purchaseDate,
-  receiptNumber: '',
-  total,
-  state: 'filed',
-  readingProgress: 100,
-  reviewState: 'none',
-  originalFilename: 'slip.png',
-  contentType: 'image/png',
-  lineCount: 1,
-  duplicateOf: [],
-  systemIds: [],
-  uploadedBy: 'Dario Fenn',
-  createdAt: '2026-02-14T10:00:00.000Z',
-  version: 3,
-  ...extra,
-});
+const summary = (id: string, vendorName: string, purchaseDate: string, total: string, extra: Partial<ReceiptSummaryDto> = {}): ReceiptSummaryDto =>
+  testReceiptSummary(id, { vendorName, purchaseDate, receiptNumber: '', total, state: 'filed', lineCount: 1, version: 3, ...extra });
 
 const line = (id: string, description: string, amount: string, tax: string, shipping: string, systemId: string | null, partDescription: string | null = null): ReceiptLineDto => ({
   id,
@@ -73,25 +34,14 @@ const line = (id: string, description: string, amount: string, tax: string, ship
   version: 1,
 });
 
-const detail = (from: ReceiptSummaryDto, lines: ReceiptLineDto[]): ReceiptDto => ({
-  ...from,
-  currency: 'USD',
-  locale: 'en-US',
-  subtotal: null,
-  tax: '2.00',
-  shipping: '5.00',
-  discount: null,
-  differenceAccepted: false,
-  differenceReason: '',
-  readingError: null,
-  reviewComment: '',
-  pages: [{ index: 0, width: 600, height: 900 }],
-  fieldConfidence: {},
-  readingNotes: [],
-  lines,
-  reconciliation: { linesTotal: '40.00', computedTotal: '47.00', printedTotal: '47.00', difference: '0.00', reconciles: true },
-  editable: false,
-});
+const detail = (from: ReceiptSummaryDto, lines: ReceiptLineDto[]): ReceiptDto =>
+  testReceipt(from.id, {
+    ...from,
+    shipping: '5.00',
+    pages: [{ index: 0, width: 600, height: 900 }],
+    lines,
+    reconciliation: { linesTotal: '40.00', computedTotal: '47.00', printedTotal: '47.00', difference: '0.00', reconciles: true },
+  });
 
 const ridgeback = summary('r-1', 'Ridgeback Parts', '2026-02-14', '47.00');
 const quayside = summary('r-2', 'Quayside Counter', '2026-02-20', '80.00');
@@ -112,25 +62,9 @@ function flushPanel(http: HttpTestingController, receiptId: string) {
 }
 
 async function renderAs(role: BuildRole, queue: ReceiptSummaryDto[]) {
-  await render(ReviewPage, {
-    providers: [
-      ...apiTestProviders(),
-      {
-        provide: CurrentBuild,
-        useFactory: () => {
-          const current = new CurrentBuild();
-          current.set(build(role));
-          return current;
-        },
-      },
-    ],
-    bindings: [inputBinding('buildId', () => 'b-1')],
-  });
-  const http = TestBed.inject(HttpTestingController);
+  const { http } = await renderInBuild(ReviewPage, { role });
   http.expectOne('/api/builds/b-1/review-queue').flush({ receipts: queue });
-  http
-    .expectOne('/api/builds/b-1/systems')
-    .flush({ currency: 'USD', systems: [system('s-brakes', 'Brakes'), system('s-tools', 'Tools and consumables')], contingencyBudget: '0', totalBudget: '0', totalEstimate: '0', buildVersion: 2 });
+  http.expectOne('/api/builds/b-1/systems').flush(testSystemsResponse([testSystem('s-brakes', 'Brakes'), testSystem('s-tools', 'Tools and consumables')]));
   if (queue.length > 0) {
     await settle();
     http.expectOne(`/api/builds/b-1/receipts/${queue[0].id}`).flush(queue[0].id === 'r-1' ? ridgebackDetail : quaysideDetail);

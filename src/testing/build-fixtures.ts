@@ -1,0 +1,123 @@
+// Test fixtures: whole DTOs of one invented build, so a field added to a DTO is added here once, not in every spec.
+import type { BuildDto } from '../../shared/api/builds';
+import type { PartDto, SystemDto, SystemsResponse } from '../../shared/api/parts';
+import type { CoreDto, ReceiptDto, ReceiptSummaryDto } from '../../shared/api/receipts';
+import type { BuildRole } from '../../shared/enums';
+
+/** Build b-1 as its API answers it to a member with `role`. */
+export function testBuild(role: BuildRole, overrides: Partial<BuildDto> = {}): BuildDto {
+  return {
+    id: 'b-1',
+    name: 'Teal wagon swap',
+    vehicle: '1979 invented wagon',
+    currency: 'USD',
+    locale: 'en-US',
+    status: 'active',
+    startedOn: null,
+    targetDate: null,
+    returnWindowDays: 30,
+    archived: false,
+    version: 2,
+    role,
+    createdAt: '2026-01-05T09:00:00.000Z',
+    ...overrides,
+  };
+}
+
+/** A system with no budget, no parts and no caution unless the overrides say so. */
+export function testSystem(id: string, name: string, overrides: Partial<SystemDto> = {}): SystemDto {
+  return { id, name, budget: '0.00', estimate: '0.00', partCount: 0, sortOrder: 0, archived: false, safetyCaution: false, version: 1, ...overrides };
+}
+
+/** GET /systems with these systems and, unless overridden, no budgets or estimates. */
+export function testSystemsResponse(systems: SystemDto[], overrides: Partial<SystemsResponse> = {}): SystemsResponse {
+  return { currency: 'USD', systems, contingencyBudget: '0', totalBudget: '0', totalEstimate: '0', buildVersion: 2, ...overrides };
+}
+
+/** A planned part of the bill of materials: two brake pads at 64.50, 129.00 in all. */
+export function testPart(id: string, overrides: Partial<PartDto> = {}): PartDto {
+  return {
+    id,
+    systemId: 's-brakes',
+    description: 'Ceramic brake pads, front axle',
+    partNumber: 'BP-2231',
+    quantity: '2',
+    unit: 'each',
+    estimatedUnitCost: '64.50',
+    estimatedTotal: '129.00',
+    status: 'planned',
+    storageLocation: '',
+    sourceUrl: '',
+    notes: '',
+    forSale: false,
+    askingPrice: null,
+    version: 1,
+    updatedAt: '2026-03-02T10:00:00.000Z',
+    ...overrides,
+  };
+}
+
+/** A receipt as the list shows it: read, waiting to be checked. */
+export function testReceiptSummary(id: string, overrides: Partial<ReceiptSummaryDto> = {}): ReceiptSummaryDto {
+  return {
+    id,
+    vendorName: 'Ridgeback Parts',
+    purchaseDate: '2026-02-14',
+    receiptNumber: 'A-100',
+    total: '42.00',
+    state: 'to_check',
+    readingProgress: 100,
+    reviewState: 'none',
+    originalFilename: 'slip.png',
+    contentType: 'image/png',
+    lineCount: 0,
+    duplicateOf: [],
+    systemIds: [],
+    uploadedBy: 'Dario Fenn',
+    createdAt: '2026-02-14T10:00:00.000Z',
+    version: 1,
+    ...overrides,
+  };
+}
+
+/** A whole receipt whose figures reconcile: 40.00 of lines + 2.00 tax = the printed 42.00 (lines left to the spec). */
+export function testReceipt(id: string, overrides: Partial<ReceiptDto> = {}): ReceiptDto {
+  return {
+    ...testReceiptSummary(id),
+    currency: 'USD',
+    locale: 'en-US',
+    subtotal: null,
+    tax: '2.00',
+    shipping: null,
+    discount: null,
+    differenceAccepted: false,
+    differenceReason: '',
+    readingError: null,
+    reviewComment: '',
+    pages: [],
+    fieldConfidence: {},
+    readingNotes: [],
+    lines: [],
+    reconciliation: { linesTotal: '40.00', computedTotal: '42.00', printedTotal: '42.00', difference: '0.00', reconciles: true },
+    editable: false,
+    ...overrides,
+  };
+}
+
+/** A core deposit still owed on an alternator. */
+export function testCore(id: string, overrides: Partial<CoreDto> = {}): CoreDto {
+  return {
+    id,
+    state: 'owed',
+    dueDate: '2026-03-01',
+    amount: '40.00',
+    description: 'Alternator core',
+    partNumber: 'ALT-9',
+    receiptId: 'r-1',
+    vendorName: 'Ridgeback Parts',
+    purchaseDate: '2026-01-30',
+    refundLineId: null,
+    version: 1,
+    ...overrides,
+  };
+}
