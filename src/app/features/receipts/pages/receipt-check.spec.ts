@@ -1,8 +1,8 @@
-// Check screen: the reconciliation follows what is typed, a reviewer gets no inputs, filing sends the version, and reading is polled.
+// Check screen: the reconciliation follows what is typed, arrows move through the lines, a reviewer gets no inputs, filing sends the version, and reading is polled.
 import { inputBinding } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { HttpTestingController } from '@angular/common/http/testing';
-import { render, screen } from '@testing-library/angular/zoneless';
+import { render, screen, waitFor } from '@testing-library/angular/zoneless';
 import userEvent from '@testing-library/user-event';
 import type { BuildDto } from '../../../../../shared/api/builds';
 import type { SystemDto } from '../../../../../shared/api/parts';
@@ -284,6 +284,150 @@ describe('ReceiptCheck', () => {
     } finally {
       jest.useRealTimers();
     }
+  });
+});
+
+describe('ReceiptCheck lines by keyboard', () => {
+  const field = (name: string) => screen.getByRole('textbox', { name }) as HTMLInputElement;
+  const focused = () => document.activeElement;
+  // Material's select and autocomplete read the legacy keyCode, which a browser sets and user-event 14 leaves at 0; fill
+  // it in from the key before anything else sees the event, so they act as in a browser (values from the keyCode table
+  // of the W3C UI Events KeyboardEvent key and code notes).
+  const legacyKeyCodes: Record<string, number> = { Enter: 13, Shift: 16, Escape: 27, ' ': 32, ArrowLeft: 37, ArrowUp: 38, ArrowRight: 39, ArrowDown: 40 };
+  const addKeyCode = (event: KeyboardEvent) => {
+    const keyCode = legacyKeyCodes[event.key];
+    if (keyCode !== undefined && event.keyCode === 0) Object.defineProperty(event, 'keyCode', { value: keyCode });
+  };
+  beforeEach(() => window.addEventListener('keydown', addKeyCode, true));
+  afterEach(() => window.removeEventListener('keydown', addKeyCode, true));
+
+  it('moves up and down the same column with the arrows, stops at the first and last line, and saves the figure left', async () => {
+    const http = await renderAs('crew', receipt());
+    const user = userEvent.setup();
+    await user.click(field('Amount, line 1'));
+    await user.keyboard('{ArrowDown}');
+    expect(focused()).toBe(field('Amount, line 2'));
+    // The figure arrived at is selected, as Tab would, so typing replaces it.
+    expect([field('Amount, line 2').selectionStart, field('Amount, line 2').selectionEnd]).toEqual([0, 5]);
+    await user.keyboard('{ArrowDown}');
+    expect(focused()).toBe(field('Amount, line 2'));
+
+    await user.keyboard('12.50{ArrowUp}');
+    expect(focused()).toBe(field('Amount, line 1'));
+    const save = await nextRequest(http, '/api/builds/b-1/receipts/r-1/lines/l-2');
+    expect(save.request.method).toBe('PATCH');
+    expect(save.request.body).toEqual({ amount: '12.50', version: 1 });
+    save.flush({ ...line('l-2', 1, 'Shop rags', '12.50', 's-tools'), version: 2 });
+    await user.keyboard('{ArrowUp}');
+    expect(focused()).toBe(field('Amount, line 1'));
+    http.expectNone('/api/builds/b-1/receipts/r-1/lines/l-1');
+  });
+
+  it('sends a figure saved by Enter once, when leaving the field fires "change" again with the same value', async () => {
+    const http = await renderAs('crew', receipt());
+    const user = userEvent.setup();
+    await user.clear(field('Amount, line 2'));
+    await user.type(field('Amount, line 2'), '12.5{Enter}');
+    const save = await nextRequest(http, '/api/builds/b-1/receipts/r-1/lines/l-2');
+    expect(save.request.body).toEqual({ amount: '12.5', version: 1 });
+    save.flush({ ...line('l-2', 1, 'Shop rags', '12.50', 's-tools'), version: 2 });
+    // What a browser does on blur after a scripted "change": a second one, the value unchanged ("12.5" is 12.50).
+    field('Amount, line 2').dispatchEvent(new Event('change', { bubbles: true }));
+    await new Promise((resolve) => setTimeout(resolve, 50));
+    http.expectNone('/api/builds/b-1/receipts/r-1/lines/l-2');
+  });
+
+  it('moves sideways only from the edge of the text, and leaves the caret moving mid-text', async () => {
+    await renderAs('crew', receipt());
+    const user = userEvent.setup();
+    const description = field('Description, line 1');
+    // "Brake hose pair": the caret after "Brake".
+    description.focus();
+    description.setSelectionRange(5, 5);
+    await user.keyboard('{ArrowRight}');
+    expect(focused()).toBe(description);
+    expect(description.selectionStart).toBe(6);
+    // Selecting with Shift is the field's own business too.
+    description.setSelectionRange(15, 15);
+    await user.keyboard('{Shift>}{ArrowRight}{/Shift}');
+    expect(focused()).toBe(description);
+
+    await user.keyboard('{ArrowRight}');
+    expect(focused()).toBe(field('Part number, line 1'));
+    // An empty field is at both edges at once.
+    await user.keyboard('{ArrowRight}');
+    expect(focused()).toBe(field('Quantity, line 1'));
+    expect(field('Quantity, line 1').selectionStart).toBe(0);
+    await user.keyboard('{ArrowLeft}');
+    expect(focused()).toBe(field('Part number, line 1'));
+    await user.keyboard('{ArrowLeft}');
+    expect(focused()).toBe(description);
+    // Arriving from the right puts the caret at the end, so the next Left moves inside the text.
+    expect(description.selectionStart).toBe(15);
+    await user.keyboard('{ArrowLeft}');
+    expect(focused()).toBe(description);
+    expect(description.selectionStart).toBe(14);
+  });
+
+  it('takes the arrows from a closed list without changing it, and leaves an open list and the part suggestions theirs', async () => {
+    const http = await renderAs('crew', receipt());
+    const user = userEvent.setup();
+    const description = field('Description, line 1');
+    description.focus();
+    description.setSelectionRange(0, 0);
+    await user.keyboard('{ArrowLeft}');
+    const kind1 = screen.getByRole('combobox', { name: 'Kind of line 1' });
+    expect(focused()).toBe(kind1);
+    // A closed select would take Down as "next kind" and save it; in the table it goes to the line below instead.
+    await user.keyboard('{ArrowDown}');
+    const kind2 = screen.getByRole('combobox', { name: 'Kind of line 2' });
+    expect(focused()).toBe(kind2);
+    expect(kind2.textContent?.trim()).toBe('Purchase');
+    await user.keyboard('{ArrowLeft}');
+    expect(focused()).toBe(kind2);
+    expect(kind2.textContent?.trim()).toBe('Purchase');
+    await new Promise((resolve) => setTimeout(resolve, 20));
+    http.expectNone((request) => request.method === 'PATCH');
+
+    // Opened, the select walks its own options.
+    await user.keyboard('{Enter}');
+    await screen.findByRole('listbox');
+    await waitFor(() => expect(kind2.getAttribute('aria-expanded')).toBe('true'));
+    await user.keyboard('{ArrowDown}');
+    expect(focused()).toBe(kind2);
+    await waitFor(() => expect(document.getElementById(kind2.getAttribute('aria-activedescendant') ?? '')?.textContent?.trim()).toBe('Return'));
+    await user.keyboard('{Escape}');
+    await waitFor(() => expect(kind2.getAttribute('aria-expanded')).toBe('false'));
+    expect(kind2.textContent?.trim()).toBe('Purchase');
+    await user.keyboard('{ArrowRight}');
+    expect(focused()).toBe(field('Description, line 2'));
+
+    // The part box keeps Up and Down for its suggestions, and gives Left back at the start of its text.
+    const amount = field('Amount, line 2');
+    amount.focus();
+    amount.setSelectionRange(5, 5);
+    await user.keyboard('{ArrowRight}');
+    const part = screen.getByRole('combobox', { name: 'Part for line 2, type a part number or description' }) as HTMLInputElement;
+    expect(focused()).toBe(part);
+    await user.keyboard('{ArrowDown}');
+    expect(focused()).toBe(part);
+    await waitFor(() => expect(part.getAttribute('aria-expanded')).toBe('true'));
+    await user.keyboard('{ArrowLeft}');
+    expect(focused()).toBe(amount);
+    await waitFor(() => expect(part.getAttribute('aria-expanded')).toBe('false'));
+    // Right from the part box reaches the system list of the same line.
+    part.focus();
+    await user.keyboard('{ArrowRight}');
+    expect(focused()).toBe(screen.getByRole('combobox', { name: 'System for line 2' }));
+  });
+
+  it('tells the keys beside the lines, and describes the table with them', async () => {
+    await renderAs('crew', receipt());
+    const hint = document.getElementById('lines-keys')!;
+    expect(hint.textContent?.replace(/\s+/g, ' ').trim()).toBe(
+      'keyboard Arrow keys move between fields: up and down to the same field on the line above or below, left and right once the cursor is at the start or end of the text. Enter saves and moves on; Space opens a list.',
+    );
+    expect(document.querySelector('.line-table')!.getAttribute('aria-describedby')).toBe('lines-keys');
   });
 });
 

@@ -1,8 +1,8 @@
 // /builds/:buildId/receipts/:receiptId: the page image beside the read fields and lines, corrected by keyboard, reconciled live, then filed.
-import { ChangeDetectionStrategy, Component, DestroyRef, ElementRef, computed, effect, inject, input, signal, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, ElementRef, computed, effect, inject, input, signal, untracked, viewChildren } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { FormArray, FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
-import { MatAutocompleteModule, MatAutocompleteSelectedEvent } from '@angular/material/autocomplete';
+import { MatAutocompleteModule, MatAutocompleteSelectedEvent, MatAutocompleteTrigger } from '@angular/material/autocomplete';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatDialog } from '@angular/material/dialog';
@@ -13,7 +13,7 @@ import { MatMenuModule } from '@angular/material/menu';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
-import { Observable, Subscription, firstValueFrom, switchMap, takeWhile, timer } from 'rxjs';
+import { Observable, Subscription, firstValueFrom, of, switchMap, takeWhile, timer } from 'rxjs';
 import type { PartDto, SystemDto } from '../../../../../shared/api/parts';
 import type { FileReceiptRequest, ReceiptDto, ReceiptLineDto, UpdateLineRequest, UpdateReceiptRequest } from '../../../../../shared/api/receipts';
 import { RECEIPT_LINE_KINDS, RECEIPT_LINE_KIND_LABELS, RECEIPT_STATE_LABELS, ReceiptLineKind } from '../../../../../shared/enums';
@@ -51,6 +51,33 @@ type HeaderName = (typeof HEADER_FIELDS)[number]['name'];
 
 const LINE_TEXT_FIELDS = ['description', 'partNumber', 'quantity', 'unitPrice', 'amount'] as const;
 type LineTextField = (typeof LINE_TEXT_FIELDS)[number];
+
+/** A typed value against the saved one: amounts compare as decimals ("12" is "12.00"), the rest as text. */
+function sameValue(saved: unknown, typed: string | null, numeric: boolean): boolean {
+  if (saved === null || saved === undefined || typed === null) return (saved ?? null) === typed;
+  const savedText = String(saved);
+  if (savedText === typed || !numeric) return savedText === typed;
+  const a = parseMoney(savedText);
+  const b = parseMoney(typed);
+  return a.ok && b.ok && a.value.equals(b.value);
+}
+
+/** How each arrow key moves in the lines table: by lines (rows) or by editable cells along a line. */
+const ARROW_STEPS: Partial<Record<string, { rows: number; cells: number }>> = {
+  ArrowUp: { rows: -1, cells: 0 },
+  ArrowDown: { rows: 1, cells: 0 },
+  ArrowLeft: { rows: 0, cells: -1 },
+  ArrowRight: { rows: 0, cells: 1 },
+};
+
+/** True when the caret sits, with nothing selected, at the start or the end of the field's text. */
+function caretAtEdge(input: HTMLInputElement, edge: 'start' | 'end'): boolean {
+  const { selectionStart, selectionEnd } = input;
+  // An input type without a caret has nothing to move through.
+  if (selectionStart === null || selectionEnd === null) return true;
+  if (selectionStart !== selectionEnd) return false;
+  return edge === 'start' ? selectionStart === 0 : selectionStart === input.value.length;
+}
 
 function lineGroup(line: ReceiptLineDto) {
   return new FormGroup({
@@ -201,6 +228,15 @@ type LineGroup = ReturnType<typeof lineGroup>;
                 </div>
               }
             </div>
+            @if (editable() && receipt.lines.length > 0) {
+              <p id="lines-keys" class="keys-hint muted">
+                <mat-icon aria-hidden="true">keyboard</mat-icon>
+                <span>
+                  Arrow keys move between fields: up and down to the same field on the line above or below, left and right once the
+                  cursor is at the start or end of the text. Enter saves and moves on; Space opens a list.
+                </span>
+              </p>
+            }
             @if (showCaution()) {
               <p class="notice caution" role="note">
                 <mat-icon aria-hidden="true">health_and_safety</mat-icon>
@@ -208,7 +244,11 @@ type LineGroup = ReturnType<typeof lineGroup>;
               </p>
             }
             <div class="table-scroll" role="region" aria-labelledby="lines-heading" tabindex="0">
-              <table class="line-table" (keydown.enter)="nextField($event)">
+              <table
+                class="line-table"
+                [attr.aria-describedby]="editable() && receipt.lines.length > 0 ? 'lines-keys' : null"
+                (keydown.enter)="nextField($event)"
+              >
                 <thead>
                   <tr>
                     @if (editable()) {
@@ -244,7 +284,13 @@ type LineGroup = ReturnType<typeof lineGroup>;
                         </td>
                         <td [formGroup]="group">
                           <mat-form-field subscriptSizing="dynamic" class="kind-field">
-                            <mat-select formControlName="kind" [aria-label]="'Kind of line ' + (index + 1)" (selectionChange)="saveLine(line, 'kind')">
+                            <mat-select
+                              formControlName="kind"
+                              [aria-label]="'Kind of line ' + (index + 1)"
+                              [attr.data-row]="index"
+                              data-col="kind"
+                              (selectionChange)="saveLine(line, 'kind')"
+                            >
                               @for (kind of kinds; track kind) {
                                 <mat-option [value]="kind">{{ kindLabels[kind] }}</mat-option>
                               }
@@ -261,6 +307,8 @@ type LineGroup = ReturnType<typeof lineGroup>;
                                 [attr.inputmode]="field === 'description' || field === 'partNumber' ? null : 'decimal'"
                                 [class.tabular]="field !== 'description' && field !== 'partNumber'"
                                 [attr.aria-label]="lineFieldLabels[field] + ', line ' + (index + 1)"
+                                [attr.data-row]="index"
+                                [attr.data-col]="field"
                                 (change)="saveLine(line, field)"
                               />
                               @if (isLowLine(line, field)) {
@@ -285,6 +333,8 @@ type LineGroup = ReturnType<typeof lineGroup>;
                               (focus)="partQuery.set('')"
                               placeholder="Part"
                               [attr.aria-label]="'Part for line ' + (index + 1) + ', type a part number or description'"
+                              [attr.data-row]="index"
+                              data-col="part"
                               autocomplete="off"
                             />
                             <mat-autocomplete #partPicker="matAutocomplete" [displayWith]="partLabel" (optionSelected)="assignPart(line, $event)">
@@ -299,6 +349,8 @@ type LineGroup = ReturnType<typeof lineGroup>;
                               formControlName="systemId"
                               placeholder="System"
                               [aria-label]="'System for line ' + (index + 1)"
+                              [attr.data-row]="index"
+                              data-col="system"
                               (selectionChange)="saveLine(line, 'systemId')"
                             >
                               <mat-option value="">Not assigned</mat-option>
@@ -530,6 +582,24 @@ type LineGroup = ReturnType<typeof lineGroup>;
       vertical-align: top;
       border-bottom: 1px solid var(--mat-sys-outline-variant);
     }
+    /* The cell holding the keyboard focus is outlined, so arrow moves are easy to follow. */
+    .line-table td:has(:focus-visible) {
+      outline: 2px solid var(--mat-sys-primary);
+      outline-offset: -2px;
+    }
+    .keys-hint {
+      display: flex;
+      gap: 6px;
+      align-items: flex-start;
+      margin: 0 0 8px;
+      font: var(--mat-sys-body-small);
+    }
+    .keys-hint mat-icon {
+      flex: none;
+      width: 18px;
+      height: 18px;
+      font-size: 18px;
+    }
     .line-table tr.active td {
       background: color-mix(in srgb, var(--th-brass, #b8892b) 10%, transparent);
     }
@@ -663,6 +733,9 @@ export class ReceiptCheck {
     total: new FormControl('', { nonNullable: true }),
   });
   protected readonly lineForms = new FormArray<LineGroup>([]);
+  /** The part boxes' autocomplete triggers, and their inputs in the same order. */
+  private readonly partTriggers = viewChildren(MatAutocompleteTrigger);
+  private readonly partBoxes = viewChildren(MatAutocompleteTrigger, { read: ElementRef });
   /** Bumped on every keystroke, so the live reconciliation (a computed) follows the forms. */
   private readonly formTick = signal(0);
   /** Saves run one after another, so each sends the version the previous one answered with. */
@@ -746,6 +819,12 @@ export class ReceiptCheck {
     });
     this.header.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => this.bump());
     this.lineForms.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => this.bump());
+    // Capture phase: a closed mat-select turns arrow keys into a new value (saved at once) in its own handler, which
+    // runs before a bubbling listener on the table would; listening on the way down lets the grid take them first.
+    const host = this.host.nativeElement;
+    const onKeydown = (event: KeyboardEvent) => this.moveInLines(event);
+    host.addEventListener('keydown', onKeydown, true);
+    this.destroyRef.onDestroy(() => host.removeEventListener('keydown', onKeydown, true));
   }
 
   protected isLow(key: string): boolean {
@@ -793,6 +872,53 @@ export class ReceiptCheck {
     // The value was typed: save it as leaving the field would.
     target.dispatchEvent(new Event('change', { bubbles: true }));
     next?.focus();
+  }
+
+  /**
+   * Arrow keys in the lines table, after the WAI-ARIA Authoring Practices "grid" pattern: Up and Down go to the same
+   * column (data-col) of the line above or below (data-row), Left and Right to the previous or next editable cell of the
+   * line. A control that uses arrows itself keeps them: a text field while the caret is inside its text, an open
+   * mat-select, the part box's Up and Down (they open and walk its suggestions, which never use Left and Right, so those
+   * still leave the box at the edge of its text). A closed
+   * mat-select gives all four arrows to the grid (Enter, Space or a letter change it), so walking across a line never
+   * changes and saves a kind or a system by accident. The table has no wrapping: at the first or last line nothing moves.
+   */
+  private moveInLines(event: KeyboardEvent): void {
+    const step = ARROW_STEPS[event.key];
+    if (!step || event.altKey || event.ctrlKey || event.metaKey || event.shiftKey || event.isComposing) return;
+    const from = event.target as HTMLElement;
+    const table = from.closest('.line-table');
+    const row = Number(from.dataset['row']);
+    const column = from.dataset['col'];
+    if (!table || !column || !Number.isInteger(row)) return;
+    const isText = from instanceof HTMLInputElement;
+    const isPartBox = isText && from.getAttribute('aria-autocomplete') !== null;
+    // An open mat-select walks its options with every arrow.
+    if (!isText && from.getAttribute('aria-expanded') === 'true') return;
+    if (isPartBox && step.rows !== 0) return;
+    if (isText && step.cells !== 0 && !caretAtEdge(from, step.cells < 0 ? 'start' : 'end')) return;
+
+    let to: HTMLElement | null;
+    if (step.rows !== 0) {
+      to = table.querySelector<HTMLElement>(`[data-row="${row + step.rows}"][data-col="${column}"]`);
+    } else {
+      const cells = Array.from(table.querySelectorAll<HTMLElement>(`[data-row="${row}"][data-col]`));
+      to = cells[cells.indexOf(from) + step.cells] ?? null;
+    }
+    // At the edge of the table a text field keeps its default; a closed list still does not turn the key into a value.
+    if (!to && isText) return;
+    event.preventDefault();
+    event.stopPropagation();
+    if (!to) return;
+    // The suggestions only close by themselves on Tab, Escape or a click elsewhere: close them when leaving by arrow.
+    if (isPartBox) this.partTriggers()[this.partBoxes().findIndex((box) => box.nativeElement === from)]?.closePanel();
+    to.focus();
+    if (to instanceof HTMLInputElement) {
+      // Up and down select the figure to retype it, as Tab does; sideways the caret continues from the near edge.
+      if (step.rows !== 0) to.setSelectionRange(0, to.value.length);
+      else if (step.cells > 0) to.setSelectionRange(0, 0);
+      else to.setSelectionRange(to.value.length, to.value.length);
+    }
   }
 
   protected saveHeader(name: HeaderName): void {
@@ -843,6 +969,8 @@ export class ReceiptCheck {
     this.enqueue(
       () => {
         const currentLine = this.lineOf(line.id)!;
+        // Enter saves at once and leaving the field then fires "change" again: the same value is not sent twice.
+        if (sameValue(currentLine[field], value, field === 'amount' || field === 'unitPrice' || field === 'quantity')) return of(currentLine);
         const request: UpdateLineRequest = { [field]: value, version: currentLine.version };
         return this.receiptsApi.updateLine(this.buildId(), this.receiptId(), line.id, request);
       },
