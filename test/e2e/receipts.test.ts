@@ -76,6 +76,12 @@ it('reads an uploaded slip, checks and files it, and tracks its core deposit', a
   await page.getByText('The printed total is $0.18 more than the lines, tax and shipping', { exact: false }).waitFor();
   await fluid.fill('41.97');
   await page.getByText('Adds up to the printed total of $285.68.').waitFor();
+  // Arrow keys move through the lines table: down to the same column of the next line, and back up.
+  await page.keyboard.press('ArrowDown');
+  await expect(page.getByRole('textbox', { name: 'Amount, line 4' }).evaluate((input) => input === document.activeElement)).resolves.toBe(true);
+  await screenshot(page, 'receipt-check-keyboard');
+  await page.keyboard.press('ArrowUp');
+  await expect(fluid.evaluate((input) => input === document.activeElement)).resolves.toBe(true);
 
   await assignSystem(page, 1, 'Drivetrain');
   await assignSystem(page, 2, 'Drivetrain');
@@ -98,6 +104,12 @@ it('reads an uploaded slip, checks and files it, and tracks its core deposit', a
   await expect(row.textContent()).resolves.toContain('$285.68');
   await screenshot(page, 'receipts-list');
   expect(await accessibilityViolations(page)).toEqual([]);
+  // The filters live in the URL: a link to the receipts ready to check shows none now, and says why.
+  await page.goto(`${buildUrl}/receipts?state=to_check`);
+  await page.getByText('No receipt matches these filters. Clear a filter to see more.').waitFor();
+  await expect(page.getByRole('combobox', { name: 'State' }).textContent()).resolves.toContain('Ready to check');
+  await page.goBack();
+  await row.getByText('Filed').waitFor();
 
   // The core charge became a deposit owed; handing the old part in is one click.
   await page.getByRole('link', { name: 'Cores and returns' }).first().click();

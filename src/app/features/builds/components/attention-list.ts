@@ -1,4 +1,4 @@
-// "Needs attention": one line per kind of thing waiting, each a count with a link to where it is dealt with.
+// "Needs attention": one line per kind of thing waiting, each a count with a link to where it is dealt with, filtered to it where the page can.
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
@@ -27,6 +27,15 @@ const LINKS: Record<AttentionItem['kind'], string> = {
   duplicates: 'receipts',
 };
 
+/**
+ * Filters the receipts list reads from its URL, so a count opens on the receipts it counted. "Being read" counts queued
+ * and reading receipts, and duplicates have no filter, so those two open the whole list.
+ */
+const QUERIES: Partial<Record<AttentionItem['kind'], Record<string, string>>> = {
+  to_check: { state: 'to_check' },
+  failed: { state: 'failed' },
+};
+
 @Component({
   selector: 'th-attention-list',
   imports: [MatIconModule, RouterLink, MoneyPipe],
@@ -41,7 +50,7 @@ const LINKS: Record<AttentionItem['kind'], string> = {
             <div class="text">
               @switch (item.kind) {
                 @case ('to_check') {
-                  <a [routerLink]="links.to_check">{{ receipts(item.count) }} ready to check</a>
+                  <a [routerLink]="links.to_check" [queryParams]="queries.to_check">{{ receipts(item.count) }} ready to check</a>
                   <span class="detail">Read into lines; they count in the ledger once checked and filed.</span>
                 }
                 @case ('reading') {
@@ -49,7 +58,7 @@ const LINKS: Record<AttentionItem['kind'], string> = {
                   <span class="detail">Usually a few seconds each; they then wait to be checked.</span>
                 }
                 @case ('failed') {
-                  <a [routerLink]="links.failed">{{ receipts(item.count) }} could not be read</a>
+                  <a [routerLink]="links.failed" [queryParams]="queries.failed">{{ receipts(item.count) }} could not be read</a>
                   <span class="detail">Try a sharper photo in good light, or add the lines by hand.</span>
                 }
                 @case ('review') {
@@ -162,6 +171,7 @@ export class AttentionList {
 
   protected readonly icons = ICONS;
   protected readonly links = LINKS;
+  protected readonly queries = QUERIES;
 
   protected receipts(count: number): string {
     return `${count} ${count === 1 ? 'receipt' : 'receipts'}`;

@@ -203,9 +203,10 @@ describe('BuildOverview', () => {
     expect(within(money).getByRole('link', { name: 'Open the ledger' }).getAttribute('href')).toBe('/ledger');
 
     expect(attentionLines()).toEqual([
-      { link: '2 receipts ready to check', href: '/receipts', detail: 'Read into lines; they count in the ledger once checked and filed.' },
+      // The receipts list reads its state filter from the query, so the count opens on the receipts it counted.
+      { link: '2 receipts ready to check', href: '/receipts?state=to_check', detail: 'Read into lines; they count in the ledger once checked and filed.' },
       { link: '1 receipt being read', href: '/receipts', detail: 'Usually a few seconds each; they then wait to be checked.' },
-      { link: '1 receipt could not be read', href: '/receipts', detail: 'Try a sharper photo in good light, or add the lines by hand.' },
+      { link: '1 receipt could not be read', href: '/receipts?state=failed', detail: 'Try a sharper photo in good light, or add the lines by hand.' },
       { link: '3 receipts waiting for review', href: '/review', detail: 'Filed, not yet approved or questioned.' },
       {
         link: '2 core deposits owed, $70.00',

@@ -1,13 +1,17 @@
-// Receipts list: a refused upload shows the server's message beside the file, a likely duplicate is flagged in words, and the empty screen says what to do.
+// Receipts list: a refused upload shows the server's message beside the file, a likely duplicate is flagged in words, the empty screen says what to do,
+// and the filters live in the URL.
 import { inputBinding } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { HttpEventType } from '@angular/common/http';
-import { HttpTestingController } from '@angular/common/http/testing';
-import { render, screen } from '@testing-library/angular/zoneless';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { Router, provideRouter, withComponentInputBinding } from '@angular/router';
+import { RouterTestingHarness } from '@angular/router/testing';
+import { render, screen, waitFor } from '@testing-library/angular/zoneless';
 import userEvent from '@testing-library/user-event';
 import type { BuildDto } from '../../../../../shared/api/builds';
 import type { ReceiptSummaryDto } from '../../../../../shared/api/receipts';
 import type { BuildRole } from '../../../../../shared/enums';
+import { provideApiHttp } from '../../../core/http/provide-api-http';
 import { apiTestProviders } from '../../../../testing/api-test-providers';
 import { CurrentBuild } from '../../builds/services/current-build';
 import { ReceiptList } from './receipt-list';
@@ -124,12 +128,93 @@ describe('ReceiptList', () => {
     expect(screen.queryByLabelText(/Add receipts/)).toBeNull();
   });
 
-  it('asks the server again when a filter changes', async () => {
+  it('asks the server again when a filter changes, through the URL', async () => {
     const http = await renderAs('owner', [summary('r-1')]);
     const user = userEvent.setup();
     await user.click(screen.getByRole('combobox', { name: 'State' }));
     await user.click(await screen.findByRole('option', { name: 'Filed' }));
-    http.expectOne('/api/builds/b-1/receipts?state=filed').flush({ receipts: [] });
+    (await nextRequest(http, '/api/builds/b-1/receipts?state=filed')).flush({ receipts: [] });
+    expect(TestBed.inject(Router).url).toBe('/?state=filed');
     expect(await screen.findByText('No receipt matches these filters. Clear a filter to see more.')).toBeTruthy();
   });
 });
+
+describe('ReceiptList filters in the URL', () => {
+  /** Opens the list as the app routes it: under the build, its id bound from the path, the filters in the query. */
+  async function openAt(url: string) {
+    TestBed.configureTestingModule({
+      providers: [
+        provideApiHttp(),
+        provideHttpClientTesting(),
+        provideRouter([{ path: 'builds/:buildId/receipts', component: ReceiptList }], withComponentInputBinding()),
+        {
+          provide: CurrentBuild,
+          useFactory: () => {
+            const current = new CurrentBuild();
+            current.set(build('owner'));
+            return current;
+          },
+        },
+      ],
+    });
+    await RouterTestingHarness.create(url);
+    return TestBed.inject(HttpTestingController);
+  }
+  const systems = { currency: 'USD', systems: [], contingencyBudget: '0', totalBudget: '0', totalEstimate: '0', buildVersion: 2 };
+  const stateShown = () => screen.getByRole('combobox', { name: 'State' }).textContent?.trim();
+
+  it('asks the server for the filters of the URL it opens at, and shows them chosen', async () => {
+    const http = await openAt('/builds/b-1/receipts?state=filed&vendor=ridge&from=2026-01-01&to=2026-03-31');
+    http.expectOne('/api/builds/b-1/receipts?state=filed&vendor=ridge&from=2026-01-01&to=2026-03-31').flush({ receipts: [summary('r-1', { state: 'filed' })] });
+    http.expectOne('/api/builds/b-1/systems').flush(systems);
+    await waitFor(() => expect(stateShown()).toBe('Filed'));
+    expect((screen.getByRole('textbox', { name: 'Shop' }) as HTMLInputElement).value).toBe('ridge');
+    expect((screen.getByLabelText('Bought from') as HTMLInputElement).value).toBe('2026-01-01');
+    expect((screen.getByLabelText('Bought to') as HTMLInputElement).value).toBe('2026-03-31');
+    http.verify();
+  });
+
+  it('leaves out a state or a date from the URL that the server would refuse', async () => {
+    const http = await openAt('/builds/b-1/receipts?state=lost&from=last-week');
+    http.expectOne('/api/builds/b-1/receipts').flush({ receipts: [summary('r-1')] });
+    http.expectOne('/api/builds/b-1/systems').flush(systems);
+    await waitFor(() => expect(stateShown()).toBe('Any state'));
+    http.verify();
+  });
+
+  it('writes a changed filter into the URL in place of the current entry, and asks the server for it', async () => {
+    const http = await openAt('/builds/b-1/receipts?state=filed');
+    http.expectOne('/api/builds/b-1/receipts?state=filed').flush({ receipts: [summary('r-1', { state: 'filed' })] });
+    http.expectOne('/api/builds/b-1/systems').flush(systems);
+    const router = TestBed.inject(Router);
+    const user = userEvent.setup();
+
+    await user.click(await screen.findByRole('combobox', { name: 'State' }));
+    await user.click(await screen.findByRole('option', { name: 'Ready to check' }));
+    (await nextRequest(http, '/api/builds/b-1/receipts?state=to_check')).flush({ receipts: [summary('r-1')] });
+    expect(router.url).toBe('/builds/b-1/receipts?state=to_check');
+    // Back then leaves the list instead of stepping through each choice.
+    expect(router.lastSuccessfulNavigation()?.extras.replaceUrl).toBe(true);
+
+    await user.type(screen.getByRole('textbox', { name: 'Shop' }), 'ridge');
+    (await nextRequest(http, '/api/builds/b-1/receipts?state=to_check&vendor=ridge')).flush({ receipts: [summary('r-1')] });
+    expect(router.url).toBe('/builds/b-1/receipts?state=to_check&vendor=ridge');
+
+    // "Any state" takes the state out of the URL.
+    await user.click(screen.getByRole('combobox', { name: 'State' }));
+    await user.click(await screen.findByRole('option', { name: 'Any state' }));
+    (await nextRequest(http, '/api/builds/b-1/receipts?vendor=ridge')).flush({ receipts: [summary('r-1')] });
+    expect(router.url).toBe('/builds/b-1/receipts?vendor=ridge');
+    http.verify();
+  });
+});
+
+/** Waits for a request sent once a navigation or a typing pause has settled. */
+async function nextRequest(http: HttpTestingController, url: string) {
+  for (let attempt = 0; attempt < 100; attempt++) {
+    const [request] = http.match(url);
+    if (request) return request;
+    await new Promise((resolve) => setTimeout(resolve, 10));
+  }
+  return http.expectOne(url);
+}

@@ -1,13 +1,13 @@
-// /builds/:buildId/receipts: add receipts from the camera or files with a progress bar each, and the build's receipts with filters.
+// /builds/:buildId/receipts: add receipts from the camera or files with a progress bar each, and the build's receipts with filters kept in the URL.
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, input, signal, untracked } from '@angular/core';
-import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
-import { RouterLink } from '@angular/router';
+import { ActivatedRoute, ParamMap, Router, RouterLink } from '@angular/router';
 import { Subject, Subscription, debounceTime, timer } from 'rxjs';
 import type { SystemDto } from '../../../../../shared/api/parts';
 import { ACCEPTED_UPLOAD_LABEL, MAX_UPLOAD_BYTES, ReceiptSummaryDto } from '../../../../../shared/api/receipts';
@@ -19,6 +19,30 @@ import { CurrentBuild } from '../../builds/services/current-build';
 import { SystemsApi } from '../../parts/services/systems-api';
 import { ReceiptsApi, ReceiptsFilter } from '../services/receipts-api';
 import { ReceiptUploads } from '../services/receipt-uploads';
+
+const FILTER_KEYS = ['state', 'vendor', 'systemId', 'from', 'to'] as const;
+const CALENDAR_DATE = /^\d{4}-\d{2}-\d{2}$/;
+
+/**
+ * The filters a URL asks for (?state=filed&vendor=ridge&systemId=…&from=2026-01-01&to=2026-03-31). A state or date the
+ * server would refuse (an old bookmark, a hand-typed URL) is left out, so the list still shows instead of an error.
+ */
+function filterFromQuery(query: ParamMap): ReceiptsFilter {
+  const filter: ReceiptsFilter = {};
+  const state = query.get('state');
+  if (state && (RECEIPT_STATES as readonly string[]).includes(state)) filter.state = state as ReceiptState;
+  const vendor = query.get('vendor')?.trim();
+  if (vendor) filter.vendor = vendor;
+  const systemId = query.get('systemId');
+  if (systemId) filter.systemId = systemId;
+  for (const key of ['from', 'to'] as const) {
+    const date = query.get(key);
+    if (date && CALENDAR_DATE.test(date)) filter[key] = date;
+  }
+  return filter;
+}
+
+const sameFilter = (a: ReceiptsFilter, b: ReceiptsFilter) => FILTER_KEYS.every((key) => a[key] === b[key]);
 
 const STATE_ICONS: Record<ReceiptState, string> = {
   queued: 'hourglass_empty',
@@ -380,7 +404,11 @@ export class ReceiptList {
   private readonly uploader = inject(ReceiptUploads);
   /** This build's uploads of the session, including those started from the phone bar's camera button. */
   protected readonly uploads = computed(() => this.uploader.rows().filter((row) => row.buildId === this.buildId()));
-  protected readonly filter = signal<ReceiptsFilter>({});
+  private readonly route = inject(ActivatedRoute);
+  private readonly router = inject(Router);
+  private readonly query = toSignal(this.route.queryParamMap, { requireSync: true });
+  /** The URL holds the filters, so a filtered list can be bookmarked or linked to, and Back returns to it. */
+  protected readonly filter = computed(() => filterFromQuery(this.query()), { equal: sameFilter });
   protected readonly loading = signal(false);
   protected readonly loaded = signal(false);
   private readonly brokenImages = signal<ReadonlySet<string>>(new Set());
@@ -418,8 +446,12 @@ export class ReceiptList {
     this.vendorInput.next(text.trim());
   }
 
+  /** Writes the changed filters into the URL (a cleared one leaves it); the list follows the URL. */
   protected setFilter(change: Partial<ReceiptsFilter>): void {
-    this.filter.update((filter) => ({ ...filter, ...change }));
+    const next: ReceiptsFilter = { ...this.filter(), ...change };
+    const queryParams = Object.fromEntries(FILTER_KEYS.map((key) => [key, next[key] || null]));
+    // Replacing the entry: each choice in a filter is no page of its own, so Back leaves the list rather than undoing a filter.
+    void this.router.navigate([], { relativeTo: this.route, queryParams, queryParamsHandling: 'merge', replaceUrl: true });
   }
 
   protected dateText(value: string): string {
