@@ -6,7 +6,7 @@ import { startReadingWorker } from '../../backend/src/jobs/worker';
 import { readWithPageImages } from '../../backend/src/receipts/read-with-pages';
 import { closeReaders } from '../../backend/src/receipts/reading/read-document';
 import { NEW_BUILD, signedUpClient } from '../support/api-client';
-import { accessibilityViolations, launchBrowser, newPage, screenshot, signIn } from '../support/browser';
+import { accessibilityViolations, isFocused, launchBrowser, newPage, screenshot, signIn } from '../support/browser';
 import { startTestApp, type TestApp } from '../support/test-app';
 
 jest.setTimeout(240_000);
@@ -78,10 +78,10 @@ it('reads an uploaded slip, checks and files it, and tracks its core deposit', a
   await page.getByText('Adds up to the printed total of $285.68.').waitFor();
   // Arrow keys move through the lines table: down to the same column of the next line, and back up.
   await page.keyboard.press('ArrowDown');
-  await expect(page.getByRole('textbox', { name: 'Amount, line 4' }).evaluate((input) => input === document.activeElement)).resolves.toBe(true);
+  await expect(isFocused(page.getByRole('textbox', { name: 'Amount, line 4' }))).resolves.toBe(true);
   await screenshot(page, 'receipt-check-keyboard');
   await page.keyboard.press('ArrowUp');
-  await expect(fluid.evaluate((input) => input === document.activeElement)).resolves.toBe(true);
+  await expect(isFocused(fluid)).resolves.toBe(true);
 
   await assignSystem(page, 1, 'Drivetrain');
   await assignSystem(page, 2, 'Drivetrain');

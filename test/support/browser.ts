@@ -2,7 +2,7 @@
 import AxeBuilder from '@axe-core/playwright';
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
-import { chromium, type Browser, type Page } from 'playwright-core';
+import { chromium, type Browser, type Locator, type Page } from 'playwright-core';
 import { TEST_PASSWORD } from './api-client';
 
 export const SCREENSHOT_DIR = path.resolve(process.env.TEST_OUTPUT_DIR ?? 'test-results', 'screenshots');
@@ -53,4 +53,9 @@ export async function signIn(page: Page, appUrl: string, email: string, password
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.getByRole('heading', { name: 'Your builds' }).waitFor();
+}
+
+/** Whether the element has the keyboard focus (the test's tsconfig has no DOM library, hence the narrow type). */
+export async function isFocused(locator: Locator): Promise<boolean> {
+  return locator.evaluate((element) => element === (element as unknown as { ownerDocument: { activeElement: unknown } }).ownerDocument.activeElement);
 }

@@ -20,6 +20,25 @@ export interface JobQueue {
   stop(): Promise<void>;
 }
 
+/**
+ * Creates a queue unless it exists. The server and the worker start together on a fresh database, and pg-boss's
+ * create_queue from two processes at once can deadlock (seen on a first `npm start`): PostgreSQL aborts one, which
+ * then finds the queue made by the other, or tries again.
+ */
+async function ensureQueue(boss: PgBoss, name: string, options: Omit<PgBoss.Queue, 'name'>): Promise<void> {
+  for (let attempt = 1; ; attempt += 1) {
+    if (await boss.getQueue(name)) return;
+    try {
+      await boss.createQueue(name, { name, ...options });
+      return;
+    } catch (error) {
+      const deadlock = (error as { code?: string }).code === '40P01';
+      if (!deadlock || attempt >= 5) throw error;
+      await new Promise((resolve) => setTimeout(resolve, 50 + Math.random() * 200));
+    }
+  }
+}
+
 export async function startJobQueue(db: AppConfig['db'], options: { supervise?: boolean; schedule?: boolean } = {}): Promise<JobQueue> {
   const boss = new PgBoss({
     host: db.host,
@@ -36,9 +55,9 @@ export async function startJobQueue(db: AppConfig['db'], options: { supervise?: 
   boss.on('error', (error) => console.error('[jobs]', error.message));
   await boss.start();
   // A reading that crashes or is killed is retried; the handler makes a retry replace, never add, lines.
-  await boss.createQueue(READ_RECEIPT, { name: READ_RECEIPT, retryLimit: 3, retryDelay: 10, retryBackoff: true, expireInSeconds: 15 * 60 });
+  await ensureQueue(boss, READ_RECEIPT, { retryLimit: 3, retryDelay: 10, retryBackoff: true, expireInSeconds: 15 * 60 });
   // One alerts run at a time: a second one would find nothing new to send, so it is not worth queueing.
-  await boss.createQueue(SEND_ALERTS, { name: SEND_ALERTS, policy: 'singleton', retryLimit: 2, retryDelay: 60, expireInSeconds: 10 * 60 });
+  await ensureQueue(boss, SEND_ALERTS, { policy: 'singleton', retryLimit: 2, retryDelay: 60, expireInSeconds: 10 * 60 });
   return {
     boss,
     async readReceipt(receiptId) {
