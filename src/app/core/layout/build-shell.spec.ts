@@ -35,6 +35,14 @@ describe('BuildShell', () => {
   it('gives a reviewer no camera button', async () => {
     await renderAs('reviewer');
     expect(screen.queryByLabelText(/Add receipt/)).toBeNull();
-    expect(screen.getByRole('link', { name: 'Review' })).toBeTruthy();
+    // On the phone bar Review takes the place of Parts, which moves to "More".
+    const onBar = (name: string) => !screen.getByRole('link', { name }).closest('li')!.classList.contains('off-phone');
+    expect(['Overview', 'Ledger', 'Receipts', 'Parts', 'Review'].map(onBar)).toEqual([true, true, true, false, true]);
+  });
+
+  it('keeps Parts on the phone bar for crew, and Review under "More"', async () => {
+    await renderAs('crew');
+    const onBar = (name: string) => !screen.getByRole('link', { name }).closest('li')!.classList.contains('off-phone');
+    expect(['Overview', 'Ledger', 'Receipts', 'Parts', 'Review'].map(onBar)).toEqual([true, true, true, true, false]);
   });
 });

@@ -14,6 +14,8 @@ export interface BuildSection {
   icon: string;
   /** False: on phones the section sits in the bottom bar's "More" menu, so the bar keeps four or five items. */
   phoneBar?: boolean;
+  /** Put on the phone bar in place of Parts for a reviewer, whose work is reviewing, not the parts list. */
+  reviewerPhoneBar?: boolean;
 }
 
 /**
@@ -24,11 +26,11 @@ export const BUILD_SECTIONS: readonly BuildSection[] = [
   { path: '.', label: 'Overview', icon: 'directions_car' },
   { path: 'ledger', label: 'Ledger', icon: 'query_stats' },
   { path: 'receipts', label: 'Receipts', icon: 'receipt_long' },
-  { path: 'parts', label: 'Parts', icon: 'list_alt' },
+  { path: 'parts', label: 'Parts', icon: 'list_alt', reviewerPhoneBar: false },
   { path: 'budgets', label: 'Budgets', icon: 'savings', phoneBar: false },
   { path: 'inventory', label: 'Inventory', icon: 'inventory', phoneBar: false },
   { path: 'cores', label: 'Cores and returns', icon: 'autorenew', phoneBar: false },
-  { path: 'review', label: 'Review', icon: 'fact_check', phoneBar: false },
+  { path: 'review', label: 'Review', icon: 'fact_check', phoneBar: false, reviewerPhoneBar: true },
   { path: 'exports', label: 'Exports', icon: 'file_download', phoneBar: false },
   { path: 'crew', label: 'Crew', icon: 'group', phoneBar: false },
   { path: 'alerts', label: 'Mail alerts', icon: 'notifications', phoneBar: false },
@@ -54,7 +56,7 @@ export const BUILD_SECTIONS: readonly BuildSection[] = [
                 </label>
               </li>
             }
-            <li [class.off-phone]="section.phoneBar === false">
+            <li [class.off-phone]="!onPhoneBar(section)">
               <a
                 [routerLink]="section.path"
                 routerLinkActive="active"
@@ -66,14 +68,14 @@ export const BUILD_SECTIONS: readonly BuildSection[] = [
               </a>
             </li>
           }
-          @if (moreSections.length > 0) {
+          @if (moreSections().length > 0) {
             <li class="more">
               <button type="button" [matMenuTriggerFor]="moreMenu">
                 <mat-icon aria-hidden="true">more_horiz</mat-icon>
                 <span class="section-label">More</span>
               </button>
               <mat-menu #moreMenu="matMenu" yPosition="above">
-                @for (section of moreSections; track section.path) {
+                @for (section of moreSections(); track section.path) {
                   <a mat-menu-item [routerLink]="section.path">
                     <mat-icon aria-hidden="true">{{ section.icon }}</mat-icon>
                     <span>{{ section.label }}</span>
@@ -252,7 +254,13 @@ export const BUILD_SECTIONS: readonly BuildSection[] = [
 export class BuildShell {
   protected readonly current = inject(CurrentBuild);
   protected readonly sections = BUILD_SECTIONS;
-  protected readonly moreSections = BUILD_SECTIONS.filter((section) => section.phoneBar === false);
+  protected readonly moreSections = computed(() => BUILD_SECTIONS.filter((section) => !this.onPhoneBar(section)));
+
+  /** Four sections on the phone bar; a reviewer gets Review where the others have Parts. */
+  protected onPhoneBar(section: BuildSection): boolean {
+    if (this.current.build()?.role === 'reviewer' && section.reviewerPhoneBar !== undefined) return section.reviewerPhoneBar;
+    return section.phoneBar !== false;
+  }
 
   private readonly uploads = inject(ReceiptUploads);
   private readonly router = inject(Router);
