@@ -165,22 +165,6 @@ const LINKED: LedgerLineFigure[] = ['spent', 'netCost', 'coreDepositsOutstanding
       align-items: center;
       gap: 4px;
     }
-    .figure-button {
-      font: inherit;
-      color: var(--mat-sys-primary);
-      background: none;
-      border: none;
-      padding: 0;
-      min-height: 24px;
-      min-width: 24px;
-      text-decoration: underline;
-      text-underline-offset: 3px;
-      cursor: pointer;
-    }
-    .figure-button:focus-visible {
-      outline: 2px solid var(--mat-sys-primary);
-      outline-offset: 2px;
-    }
   `,
 })
 export class SystemBars {

@@ -105,22 +105,6 @@ import { absolute, overrunExplanation, varianceWords } from '../models/ledger-wo
     .under mat-icon {
       color: var(--mat-sys-primary);
     }
-    .figure-button {
-      font: inherit;
-      color: var(--mat-sys-primary);
-      background: none;
-      border: none;
-      padding: 0;
-      min-height: 24px;
-      text-decoration: underline;
-      text-decoration-thickness: 1px;
-      text-underline-offset: 4px;
-      cursor: pointer;
-    }
-    .figure-button:focus-visible {
-      outline: 2px solid var(--mat-sys-primary);
-      outline-offset: 2px;
-    }
   `,
 })
 export class TotalsStrip {

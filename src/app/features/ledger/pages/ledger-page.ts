@@ -270,21 +270,6 @@ function periodWords(period: string, short: boolean): string {
       text-align: right;
       white-space: nowrap;
     }
-    .figure-button {
-      font: inherit;
-      color: var(--mat-sys-primary);
-      background: none;
-      border: none;
-      padding: 0;
-      min-height: 24px;
-      text-decoration: underline;
-      text-underline-offset: 3px;
-      cursor: pointer;
-    }
-    .figure-button:focus-visible {
-      outline: 2px solid var(--mat-sys-primary);
-      outline-offset: 2px;
-    }
   `,
 })
 export class LedgerPage {
