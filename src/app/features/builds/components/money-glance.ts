@@ -4,7 +4,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
 import type { LedgerDto } from '../../../../../shared/api/ledger';
-import { Decimal } from '../../../../../shared/money';
+import { toDecimal } from '../../../../../shared/money';
 import { Meter } from '../../../ui/meter';
 import { MoneyPipe } from '../../../ui/money';
 import { absolute, varianceWords } from '../../ledger/models/ledger-words';
@@ -136,6 +136,6 @@ export class MoneyGlance {
   protected readonly varianceAmount = computed(() => absolute(this.ledger().total.variance));
 
   protected isZero(amount: string): boolean {
-    return new Decimal(amount).isZero();
+    return toDecimal(amount).isZero();
   }
 }

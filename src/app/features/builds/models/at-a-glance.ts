@@ -2,7 +2,7 @@
 import type { LedgerDto } from '../../../../../shared/api/ledger';
 import type { CoreDto, ReceiptSummaryDto } from '../../../../../shared/api/receipts';
 import type { BuildRole } from '../../../../../shared/enums';
-import { Decimal, roundHalfUp, sum } from '../../../../../shared/money';
+import { Decimal, roundHalfUp, sum, toWire } from '../../../../../shared/money';
 import { amountOf, budgetStanding } from '../../parts/models/budget-math';
 
 export interface BudgetUse {
@@ -62,7 +62,7 @@ export function attentionItems(sources: AttentionSources): AttentionItem[] {
     {
       kind: 'cores',
       count: owed.length,
-      amount: sum(owed.map((core) => amountOf(core.amount))).toFixed(),
+      amount: toWire(sum(owed.map((core) => amountOf(core.amount)))),
       // Due dates are calendar dates (YYYY-MM-DD), so text order is date order.
       nearestDue: owed.map((core) => core.dueDate).sort()[0] ?? '',
       overdue: owed.filter((core) => core.dueDate < sources.today).length,

@@ -8,7 +8,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import type { LedgerLinesResponse } from '../../../../../shared/api/ledger';
 import { RECEIPT_LINE_KIND_LABELS } from '../../../../../shared/enums';
-import { Decimal } from '../../../../../shared/money';
+import { toDecimal } from '../../../../../shared/money';
 import { toApiError } from '../../../core/http/api-error';
 import { formatCalendarDate } from '../../../ui/dates';
 import { MoneyPipe } from '../../../ui/money';
@@ -145,7 +145,7 @@ export class LinesDialog {
   }
 
   protected isZero(amount: string): boolean {
-    return new Decimal(amount).isZero();
+    return toDecimal(amount).isZero();
   }
 
   protected hasShares(line: { allocatedTax: string; allocatedShipping: string; allocatedDiscount: string }): boolean {

@@ -3,7 +3,7 @@
 import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import type { LedgerDto, LedgerLineFigure, LedgerSystemDto } from '../../../../../shared/api/ledger';
-import { Decimal } from '../../../../../shared/money';
+import { toDecimal } from '../../../../../shared/money';
 import { moneyText, MoneyPipe } from '../../../ui/money';
 import { FIGURE_LABELS, absolute, varianceWords, type LinesRequest } from '../models/ledger-words';
 import { BarChart, type BarClick, type ChartSeries } from './bar-chart';
@@ -12,7 +12,7 @@ import { LEDGER_COLORS } from './ledger-colors';
 const FIGURES_SHOWN = ['budget', 'spent', 'netCost', 'forecast', 'coreDepositsOutstanding', 'returnsAwaitingRefund'] as const;
 
 export function hasFigures(system: LedgerSystemDto): boolean {
-  return FIGURES_SHOWN.some((key) => !new Decimal(system[key]).isZero());
+  return FIGURES_SHOWN.some((key) => !toDecimal(system[key]).isZero());
 }
 
 const LINKED: LedgerLineFigure[] = ['spent', 'netCost', 'coreDepositsOutstanding', 'returnsAwaitingRefund'];
@@ -200,7 +200,7 @@ export class SystemBars {
   }
 
   protected isZero(amount: string): boolean {
-    return new Decimal(amount).isZero();
+    return toDecimal(amount).isZero();
   }
 
   protected openFigure(system: LedgerSystemDto, figure: LedgerLineFigure): void {

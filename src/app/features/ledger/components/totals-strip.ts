@@ -2,7 +2,7 @@
 import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import { OVERRUN_MIN_SAMPLE, type LedgerDto, type LedgerLineFigure } from '../../../../../shared/api/ledger';
-import { Decimal } from '../../../../../shared/money';
+import { toDecimal } from '../../../../../shared/money';
 import { MoneyPipe } from '../../../ui/money';
 import { absolute, overrunExplanation, varianceWords } from '../models/ledger-words';
 
@@ -117,6 +117,6 @@ export class TotalsStrip {
   protected readonly explanation = computed(() => overrunExplanation(this.ledger().overrunFactor, this.ledger().overrunSample, OVERRUN_MIN_SAMPLE));
 
   protected isZero(amount: string): boolean {
-    return new Decimal(amount).isZero();
+    return toDecimal(amount).isZero();
   }
 }

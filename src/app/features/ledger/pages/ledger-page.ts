@@ -8,7 +8,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import { forkJoin } from 'rxjs';
 import type { LedgerDto, LedgerLineFigure, SpendPeriod, SpendResponse, VendorSpendDto, VendorsResponse } from '../../../../../shared/api/ledger';
-import { Decimal } from '../../../../../shared/money';
+import { toDecimal } from '../../../../../shared/money';
 import { SAFETY_CAUTION } from '../../../../../shared/safety';
 import { EmptyState } from '../../../ui/empty-state';
 import { MoneyPipe, moneyText } from '../../../ui/money';
@@ -337,7 +337,7 @@ export class LedgerPage {
   }
 
   protected isZero(amount: string): boolean {
-    return new Decimal(amount).isZero();
+    return toDecimal(amount).isZero();
   }
 
   protected setPeriod(by: SpendPeriod): void {

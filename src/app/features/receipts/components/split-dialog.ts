@@ -8,7 +8,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import type { SystemDto } from '../../../../../shared/api/parts';
-import { Decimal, minorUnits, parseMoney, subtract, sum, toWire } from '../../../../../shared/money';
+import { Decimal, minorUnits, parseMoney, subtract, sum, toDecimal, toWire } from '../../../../../shared/money';
 import { moneyText } from '../../../ui/money';
 
 export interface SplitDialogData {
@@ -93,7 +93,7 @@ type ShareGroup = FormGroup<{ amount: FormControl<string>; systemId: FormControl
 export class SplitDialog {
   protected readonly data = inject<SplitDialogData>(MAT_DIALOG_DATA);
   private readonly dialogRef = inject<MatDialogRef<SplitDialog, SplitShare[]>>(MatDialogRef);
-  private readonly lineAmount = new Decimal(this.data.amount);
+  private readonly lineAmount = toDecimal(this.data.amount);
   protected readonly lineText = moneyText(this.data.amount, this.data.currency, this.data.locale);
   protected readonly shares = new FormArray<ShareGroup>([]);
   protected readonly form = new FormGroup({ shares: this.shares });
