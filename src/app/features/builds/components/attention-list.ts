@@ -29,11 +29,12 @@ const LINKS: Record<AttentionItem['kind'], string> = {
 
 /**
  * Filters the receipts list reads from its URL, so a count opens on the receipts it counted. "Being read" counts queued
- * and reading receipts, and duplicates have no filter, so those two open the whole list.
+ * and reading receipts, two states the list's one state filter cannot hold at once, so it opens the whole list.
  */
 const QUERIES: Partial<Record<AttentionItem['kind'], Record<string, string>>> = {
   to_check: { state: 'to_check' },
   failed: { state: 'failed' },
+  duplicates: { duplicates: 'only' },
 };
 
 @Component({
@@ -84,7 +85,7 @@ const QUERIES: Partial<Record<AttentionItem['kind'], Record<string, string>>> = 
                   <span class="detail">{{ item.systems.join(', ') }}: net cost already past the budget.</span>
                 }
                 @case ('duplicates') {
-                  <a [routerLink]="links.duplicates">{{ receipts(item.count) }} may be duplicates</a>
+                  <a [routerLink]="links.duplicates" [queryParams]="queries.duplicates">{{ receipts(item.count) }} may be duplicates</a>
                   <span class="detail">Same shop, date and total as another receipt, or the same file.</span>
                 }
               }

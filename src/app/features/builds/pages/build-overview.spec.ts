@@ -214,7 +214,7 @@ describe('BuildOverview', () => {
         detail: '1 overdue: the earliest was due Jan 15, 2020. Hand the old parts back to get the deposits refunded.',
       },
       { link: '1 system over budget', href: '/ledger', detail: 'Engine: net cost already past the budget.' },
-      { link: '2 receipts may be duplicates', href: '/receipts', detail: 'Same shop, date and total as another receipt, or the same file.' },
+      { link: '2 receipts may be duplicates', href: '/receipts?duplicates=only', detail: 'Same shop, date and total as another receipt, or the same file.' },
     ]);
     expect(screen.queryByText(/Nothing needs attention/)).toBeNull();
 

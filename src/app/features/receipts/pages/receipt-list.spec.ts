@@ -182,6 +182,25 @@ describe('ReceiptList filters in the URL', () => {
     http.verify();
   });
 
+  it('narrows the list to likely duplicates from the URL without asking the server again, and widens it again', async () => {
+    const http = await openAt('/builds/b-1/receipts?duplicates=only');
+    // The server is asked for every receipt: it flags duplicates on each, and the list keeps the flagged ones.
+    http.expectOne('/api/builds/b-1/receipts').flush({
+      receipts: [summary('r-1', { duplicateOf: ['r-2'] }), summary('r-2', { duplicateOf: ['r-1'] }), summary('r-3', { vendorName: 'Copperline Supply' })],
+    });
+    http.expectOne('/api/builds/b-1/systems').flush(systems);
+    const shops = async () => (await screen.findByRole('list', { name: 'Receipts' })).querySelectorAll('li').length;
+    await waitFor(async () => expect(await shops()).toBe(2));
+    expect(screen.queryByText('Copperline Supply')).toBeNull();
+    const only = screen.getByRole('checkbox', { name: 'Possible duplicates only' }) as HTMLInputElement;
+    expect(only.checked).toBe(true);
+
+    await userEvent.setup().click(only);
+    await waitFor(async () => expect(await shops()).toBe(3));
+    expect(TestBed.inject(Router).url).toBe('/builds/b-1/receipts');
+    http.verify();
+  });
+
   it('writes a changed filter into the URL in place of the current entry, and asks the server for it', async () => {
     const http = await openAt('/builds/b-1/receipts?state=filed');
     http.expectOne('/api/builds/b-1/receipts?state=filed').flush({ receipts: [summary('r-1', { state: 'filed' })] });

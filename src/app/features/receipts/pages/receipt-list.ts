@@ -2,6 +2,7 @@
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, effect, inject, input, signal, untracked } from '@angular/core';
 import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
@@ -54,7 +55,7 @@ const STATE_ICONS: Record<ReceiptState, string> = {
 
 @Component({
   selector: 'th-receipt-list',
-  imports: [MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule, RouterLink, EmptyState, MoneyPipe],
+  imports: [MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule, RouterLink, EmptyState, MoneyPipe],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     @if (loading()) {
@@ -160,13 +161,16 @@ const STATE_ICONS: Record<ReceiptState, string> = {
             <mat-label>Bought to</mat-label>
             <input matInput type="date" [value]="filter().to ?? ''" (change)="setFilter({ to: $any($event.target).value || undefined })" />
           </mat-form-field>
+          <mat-checkbox class="filter-duplicates" [checked]="duplicatesOnly()" (change)="showDuplicatesOnly($event.checked)">
+            Possible duplicates only
+          </mat-checkbox>
         </div>
 
-        @if (receipts().length === 0) {
+        @if (shown().length === 0) {
           <p class="no-match">No receipt matches these filters. Clear a filter to see more.</p>
         }
         <ul class="receipts" aria-label="Receipts">
-          @for (receipt of receipts(); track receipt.id) {
+          @for (receipt of shown(); track receipt.id) {
             <li>
               <a class="receipt" [routerLink]="receipt.id">
                 <span class="thumb" aria-hidden="true">
@@ -293,6 +297,9 @@ const STATE_ICONS: Record<ReceiptState, string> = {
     }
     .filters mat-form-field {
       flex: 0 1 170px;
+    }
+    .filter-duplicates {
+      align-self: center;
     }
     .filters .filter-vendor {
       flex: 1 1 160px;
@@ -421,7 +428,10 @@ export class ReceiptList {
     const role = this.current.build()?.role;
     return role === 'owner' || role === 'crew';
   });
-  protected readonly filtering = computed(() => Object.values(this.filter()).some((value) => !!value));
+  /** Likely duplicates are flagged by the server on each receipt; this narrows the list to them (?duplicates=only). */
+  protected readonly duplicatesOnly = computed(() => this.query().get('duplicates') === 'only');
+  protected readonly shown = computed(() => (this.duplicatesOnly() ? this.receipts().filter((receipt) => receipt.duplicateOf.length > 0) : this.receipts()));
+  protected readonly filtering = computed(() => this.duplicatesOnly() || Object.values(this.filter()).some((value) => !!value));
 
   constructor() {
     effect(() => {
@@ -452,6 +462,10 @@ export class ReceiptList {
     const queryParams = Object.fromEntries(FILTER_KEYS.map((key) => [key, next[key] || null]));
     // Replacing the entry: each choice in a filter is no page of its own, so Back leaves the list rather than undoing a filter.
     void this.router.navigate([], { relativeTo: this.route, queryParams, queryParamsHandling: 'merge', replaceUrl: true });
+  }
+
+  protected showDuplicatesOnly(only: boolean): void {
+    void this.router.navigate([], { relativeTo: this.route, queryParams: { duplicates: only ? 'only' : null }, queryParamsHandling: 'merge', replaceUrl: true });
   }
 
   protected dateText(value: string): string {
