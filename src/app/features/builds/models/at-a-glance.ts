@@ -22,9 +22,8 @@ export function budgetUse(ledger: LedgerDto): BudgetUse {
   const budget = amountOf(ledger.total.budget);
   const netCost = amountOf(ledger.total.netCost);
   const standing = budgetStanding(netCost, budget);
-  const over = netCost.greaterThan(budget);
-  const usedPercent = budget.isZero() ? '0' : roundHalfUp(netCost.dividedBy(budget).times(100), 0).toFixed(0);
-  return { noBudget: budget.isZero(), over, usedPercent, fillPercent: standing.fillPercent, difference: standing.difference };
+  const usedPercent = budget.isZero() ? '0' : toWire(roundHalfUp(netCost.dividedBy(budget).times(100), 0), 0);
+  return { noBudget: budget.isZero(), over: standing.over, usedPercent, fillPercent: standing.fillPercent, difference: standing.difference };
 }
 
 export type AttentionItem =
