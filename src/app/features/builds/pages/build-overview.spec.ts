@@ -12,22 +12,10 @@ import type { BuildRole, ReceiptState, ReviewState } from '../../../../../shared
 import { apiTestProviders } from '../../../../testing/api-test-providers';
 import { CurrentBuild } from '../services/current-build';
 import { BuildOverview } from './build-overview';
+import { testBuild } from '../../../../testing/build-fixtures';
 
-const build = (role: BuildRole): BuildDto => ({
-  id: 'b-1',
-  name: 'Teal wagon swap',
-  vehicle: '1968 invented wagon, 2.3 L four',
-  currency: 'USD',
-  locale: 'en-US',
-  status: 'active',
-  startedOn: '2026-03-01',
-  targetDate: null,
-  returnWindowDays: 30,
-  archived: false,
-  version: 4,
-  role,
-  createdAt: '2026-01-05T09:00:00.000Z',
-});
+const build = (role: BuildRole): BuildDto =>
+  testBuild(role, { vehicle: '1968 invented wagon, 2.3 L four', startedOn: '2026-03-01', version: 4 });
 
 const zeroFigures: LedgerFigures = {
   budget: '0.00',

@@ -4,45 +4,19 @@ import { TestBed } from '@angular/core/testing';
 import { HttpTestingController } from '@angular/common/http/testing';
 import { render, screen, waitFor } from '@testing-library/angular/zoneless';
 import userEvent from '@testing-library/user-event';
-import type { BuildDto } from '../../../../../shared/api/builds';
 import type { SystemDto } from '../../../../../shared/api/parts';
 import type { ReceiptDto, ReceiptLineDto } from '../../../../../shared/api/receipts';
 import type { BuildRole } from '../../../../../shared/enums';
 import { apiTestProviders } from '../../../../testing/api-test-providers';
 import { CurrentBuild } from '../../builds/services/current-build';
 import { ReceiptCheck } from './receipt-check';
+import { testBuild, testSystem } from '../../../../testing/build-fixtures';
 
 // The first test pays the compilation of the check screen with its image and review panels, and the typing tests
 // type many keys: on a busy 2-core machine they came near jest's 5 s default.
 jest.setTimeout(15_000);
 
-const build = (role: BuildRole): BuildDto => ({
-  id: 'b-1',
-  name: 'Teal wagon swap',
-  vehicle: '1979 invented wagon',
-  currency: 'USD',
-  locale: 'en-US',
-  status: 'active',
-  startedOn: null,
-  targetDate: null,
-  returnWindowDays: 30,
-  archived: false,
-  version: 2,
-  role,
-  createdAt: '2026-01-05T09:00:00.000Z',
-});
-
-const system = (id: string, name: string, safetyCaution = false): SystemDto => ({
-  id,
-  name,
-  budget: '0.00',
-  estimate: '0.00',
-  partCount: 0,
-  sortOrder: 0,
-  archived: false,
-  safetyCaution,
-  version: 1,
-});
+const system = (id: string, name: string, safetyCaution = false): SystemDto => testSystem(id, name, { safetyCaution });
 
 const line = (id: string, position: number, description: string, amount: string, systemId: string | null): ReceiptLineDto => ({
   id,
@@ -111,7 +85,7 @@ async function renderAs(role: BuildRole, shown: ReceiptDto) {
         provide: CurrentBuild,
         useFactory: () => {
           const current = new CurrentBuild();
-          current.set(build(role));
+          current.set(testBuild(role));
           return current;
         },
       },
@@ -261,7 +235,7 @@ describe('ReceiptCheck', () => {
             provide: CurrentBuild,
             useFactory: () => {
               const current = new CurrentBuild();
-              current.set(build('crew'));
+              current.set(testBuild('crew'));
               return current;
             },
           },

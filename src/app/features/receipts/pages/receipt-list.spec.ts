@@ -8,49 +8,17 @@ import { Router, provideRouter, withComponentInputBinding } from '@angular/route
 import { RouterTestingHarness } from '@angular/router/testing';
 import { render, screen, waitFor } from '@testing-library/angular/zoneless';
 import userEvent from '@testing-library/user-event';
-import type { BuildDto } from '../../../../../shared/api/builds';
 import type { ReceiptSummaryDto } from '../../../../../shared/api/receipts';
 import type { BuildRole } from '../../../../../shared/enums';
 import { provideApiHttp } from '../../../core/http/provide-api-http';
 import { apiTestProviders } from '../../../../testing/api-test-providers';
 import { CurrentBuild } from '../../builds/services/current-build';
 import { ReceiptList } from './receipt-list';
+import { testBuild, testReceiptSummary } from '../../../../testing/build-fixtures';
 
-const build = (role: BuildRole): BuildDto => ({
-  id: 'b-1',
-  name: 'Teal wagon swap',
-  vehicle: '1979 invented wagon',
-  currency: 'USD',
-  locale: 'en-US',
-  status: 'active',
-  startedOn: null,
-  targetDate: null,
-  returnWindowDays: 30,
-  archived: false,
-  version: 2,
-  role,
-  createdAt: '2026-01-05T09:00:00.000Z',
-});
-
-const summary = (id: string, extra: Partial<ReceiptSummaryDto> = {}): ReceiptSummaryDto => ({
-  id,
-  vendorName: 'Ridgeback Parts',
-  purchaseDate: '2026-02-14',
-  receiptNumber: 'A-100',
-  total: '41.50',
-  state: 'to_check',
-  readingProgress: 100,
-  reviewState: 'none',
-  originalFilename: 'slip.png',
-  contentType: 'image/png',
-  lineCount: 3,
-  duplicateOf: [],
-  systemIds: [],
-  uploadedBy: 'u-1',
-  createdAt: '2026-02-14T10:00:00.000Z',
-  version: 1,
-  ...extra,
-});
+/** Ready to check, 41.50, three lines: the list's usual row. */
+const summary = (id: string, extra: Partial<ReceiptSummaryDto> = {}): ReceiptSummaryDto =>
+  testReceiptSummary(id, { total: '41.50', lineCount: 3, uploadedBy: 'u-1', ...extra });
 
 async function renderAs(role: BuildRole, receipts: ReceiptSummaryDto[]) {
   await render(ReceiptList, {
@@ -60,7 +28,7 @@ async function renderAs(role: BuildRole, receipts: ReceiptSummaryDto[]) {
         provide: CurrentBuild,
         useFactory: () => {
           const current = new CurrentBuild();
-          current.set(build(role));
+          current.set(testBuild(role));
           return current;
         },
       },
@@ -151,7 +119,7 @@ describe('ReceiptList filters in the URL', () => {
           provide: CurrentBuild,
           useFactory: () => {
             const current = new CurrentBuild();
-            current.set(build('owner'));
+            current.set(testBuild('owner'));
             return current;
           },
         },
