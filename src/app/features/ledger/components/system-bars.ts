@@ -97,6 +97,7 @@ const LINKED: LedgerLineFigure[] = ['spent', 'netCost', 'coreDepositsOutstanding
       <p class="hint">Nothing budgeted, planned or spent yet, so left out: {{ idle().join(', ') }}.</p>
     }
   `,
+  styleUrl: '../figure-table.css',
   styles: `
     :host {
       display: block;
@@ -106,39 +107,9 @@ const LINKED: LedgerLineFigure[] = ['spent', 'netCost', 'coreDepositsOutstanding
       color: var(--mat-sys-on-surface-variant);
       margin: 8px 0;
     }
-    .table-box {
-      /* Positioned, so the hidden words of its buttons (absolutely placed) scroll with it instead of widening the page. */
-      position: relative;
-      overflow-x: auto;
-      border: 1px solid var(--mat-sys-outline-variant);
-      border-radius: 12px;
-    }
-    .table-box:focus-visible {
-      outline: 2px solid var(--mat-sys-primary);
-      outline-offset: 2px;
-    }
-    table {
-      border-collapse: collapse;
-      width: 100%;
-      font: var(--mat-sys-body-medium);
-    }
     th,
     td {
-      padding: 8px 10px;
-      border-bottom: 1px solid var(--mat-sys-outline-variant);
       white-space: nowrap;
-      text-align: left;
-    }
-    thead th {
-      font: var(--mat-sys-label-medium);
-      color: var(--mat-sys-on-surface-variant);
-      background: var(--mat-sys-surface-container-low);
-    }
-    tbody tr:last-child > * {
-      border-bottom: none;
-    }
-    .number {
-      text-align: right;
     }
     .name {
       font-weight: 500;

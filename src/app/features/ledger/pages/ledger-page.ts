@@ -181,6 +181,7 @@ function periodWords(period: string, short: boolean): string {
       }
     </div>
   `,
+  styleUrl: '../figure-table.css',
   styles: `
     section {
       margin-bottom: 24px;
@@ -233,42 +234,10 @@ function periodWords(period: string, short: boolean): string {
       margin-bottom: 8px;
     }
     .table-box {
-      /* Positioned, so the hidden words of its buttons (absolutely placed) scroll with it instead of widening the page. */
-      position: relative;
-      overflow-x: auto;
-      border: 1px solid var(--mat-sys-outline-variant);
-      border-radius: 12px;
       margin-top: 8px;
-    }
-    .table-box:focus-visible {
-      outline: 2px solid var(--mat-sys-primary);
-      outline-offset: 2px;
-    }
-    table {
-      border-collapse: collapse;
-      width: 100%;
-      font: var(--mat-sys-body-medium);
-    }
-    th,
-    td {
-      padding: 8px 10px;
-      border-bottom: 1px solid var(--mat-sys-outline-variant);
-      text-align: left;
-    }
-    thead th {
-      font: var(--mat-sys-label-medium);
-      color: var(--mat-sys-on-surface-variant);
-      background: var(--mat-sys-surface-container-low);
     }
     tbody th {
       font-weight: 500;
-    }
-    tbody tr:last-child > * {
-      border-bottom: none;
-    }
-    .number {
-      text-align: right;
-      white-space: nowrap;
     }
   `,
 })
