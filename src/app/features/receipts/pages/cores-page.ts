@@ -80,7 +80,7 @@ export function todayIso(now = new Date()): string {
           @for (core of cores(); track core.id) {
             <li class="core">
               <div class="core-main">
-                <span class="core-description">{{ core.description }}{{ core.partNumber ? ' · ' + core.partNumber : '' }}</span>
+                <span class="core-description">{{ titleOf(core) }}</span>
                 <span class="core-shop">
                   <a [routerLink]="['../receipts', core.receiptId]">{{ core.vendorName || 'Receipt' }}</a>
                   {{ core.purchaseDate ? ' · bought ' + dateText(core.purchaseDate) : '' }}
@@ -123,7 +123,7 @@ export function todayIso(now = new Date()): string {
               @for (item of returns.returnable; track item.lineId) {
                 <li class="core">
                   <div class="core-main">
-                    <span class="core-description">{{ item.description }}{{ item.partNumber ? ' · ' + item.partNumber : '' }}</span>
+                    <span class="core-description">{{ titleOf(item) }}</span>
                     <span class="core-shop">
                       <a [routerLink]="['../receipts', item.receiptId]">{{ item.vendorName || 'Receipt' }}</a>
                       · bought {{ dateText(item.purchaseDate) }}
@@ -165,7 +165,7 @@ export function todayIso(now = new Date()): string {
               @for (item of returns.awaitingRefund; track item.lineId) {
                 <li class="core">
                   <div class="core-main">
-                    <span class="core-description">{{ item.description }}{{ item.partNumber ? ' · ' + item.partNumber : '' }}</span>
+                    <span class="core-description">{{ titleOf(item) }}</span>
                     <span class="core-shop">
                       <a [routerLink]="['../receipts', item.receiptId]">{{ item.vendorName || 'Receipt' }}</a>
                       · bought {{ dateText(item.purchaseDate) }}
@@ -202,7 +202,7 @@ export function todayIso(now = new Date()): string {
                 @for (item of returns.refunded; track item.lineId) {
                   <li class="core">
                     <div class="core-main">
-                      <span class="core-description">{{ item.description }}{{ item.partNumber ? ' · ' + item.partNumber : '' }}</span>
+                      <span class="core-description">{{ titleOf(item) }}</span>
                       <span class="core-shop">
                         <a [routerLink]="['../receipts', item.receiptId]">{{ item.vendorName || 'Receipt' }}</a>
                         · bought {{ dateText(item.purchaseDate) }} for {{ item.amountPaid | money: currency() : locale() }}
@@ -382,6 +382,11 @@ export class CoresPage {
         this.loadReturns(this.buildId());
       },
     });
+  }
+
+  /** A core's or a returned line's heading: what it is, and its part number when it has one. */
+  protected titleOf(item: { description: string; partNumber: string }): string {
+    return item.partNumber ? `${item.description} · ${item.partNumber}` : item.description;
   }
 
   protected dateText(value: string): string {
