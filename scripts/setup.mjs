@@ -1,6 +1,7 @@
 // Shared set-up helpers for the start, test and database scripts: Debian's PostgreSQL in a cluster of the
 // project's own, npm packages, Chromium and the client build. Node's own modules only: this runs before npm ci.
 import { spawn, spawnSync } from 'node:child_process';
+import { createRequire } from 'node:module';
 import { createHash } from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
@@ -116,6 +117,27 @@ export function ensureNodeModules() {
   log('Installing npm packages (npm ci) ...');
   run('npm', fs.existsSync(lock) ? ['ci'] : ['install']);
   return true;
+}
+
+/**
+ * Fails loudly when a runtime (non-dev) package declares a Node.js engine range this Node does not satisfy:
+ * npm only warns (EBADENGINE), and such a package may break at run time. Reads the engines npm recorded in
+ * node_modules/.package-lock.json, so it costs nothing when the install was skipped.
+ */
+export function checkRuntimeEngines() {
+  const installedLock = path.join(ROOT, 'node_modules', '.package-lock.json');
+  const semverPath = path.join(ROOT, 'node_modules', 'semver', 'index.js');
+  if (!fs.existsSync(installedLock) || !fs.existsSync(semverPath)) return;
+  const require = createRequire(import.meta.url);
+  const semver = require(semverPath);
+  const { packages } = JSON.parse(fs.readFileSync(installedLock, 'utf8'));
+  const mismatches = Object.entries(packages)
+    .filter(([, entry]) => !entry.dev && typeof entry.engines?.node === 'string')
+    .filter(([, entry]) => !semver.satisfies(process.versions.node, entry.engines.node, { includePrerelease: true }))
+    .map(([where, entry]) => `  ${where.replace(/^.*node_modules\//, '')}@${entry.version} needs Node ${entry.engines.node}`);
+  if (mismatches.length > 0) {
+    fail(`These runtime packages do not support Node ${process.versions.node} (npm's EBADENGINE):\n${mismatches.join('\n')}\nPin versions whose "engines" allow this Node (see shared STACK-NOTES) and run npm install.`);
+  }
 }
 
 /** Makes sure Debian's Chromium is there for the browser tests. */

@@ -2,7 +2,7 @@
 // serves Tallyhood with a fake mail catcher on 127.0.0.1 until Ctrl-C (PostgreSQL keeps running: npm run db:stop).
 import { spawn } from 'node:child_process';
 import path from 'node:path';
-import { ROOT, ensureClientBuild, ensureNodeModules, fail, log, migrate, npmBin, pgEnv, runAsync, startCluster, timed } from './setup.mjs';
+import { ROOT, checkRuntimeEngines, ensureClientBuild, ensureNodeModules, fail, log, migrate, npmBin, pgEnv, runAsync, startCluster, timed } from './setup.mjs';
 
 const DATABASE = 'tallyhood';
 const port = process.env.PORT || '3000';
@@ -15,7 +15,10 @@ const s3Url = `http://127.0.0.1:${s3Port}`;
 
 const setupStarted = performance.now();
 const timings = [];
-await timed('packages', timings, ensureNodeModules);
+await timed('packages', timings, () => {
+  ensureNodeModules();
+  checkRuntimeEngines();
+});
 await timed('postgres', timings, startCluster);
 
 const env = {

@@ -5,6 +5,7 @@ import path from 'node:path';
 import {
   CHROMIUM_PATH,
   ROOT,
+  checkRuntimeEngines,
   ensureChromium,
   ensureClientBuild,
   ensureNodeModules,
@@ -27,6 +28,7 @@ const timings = [];
 const failures = [];
 let passed = 0;
 let failed = 0;
+let skipped = 0;
 
 function recordFailure(what) {
   failed += 1;
@@ -71,6 +73,7 @@ await waitForTestLock();
 const setupStarted = performance.now();
 await timed('packages', timings, async () => {
   ensureNodeModules();
+  checkRuntimeEngines();
   ensureChromium();
 });
 const { bin } = await timed('postgres', timings, startCluster);
@@ -133,6 +136,7 @@ for (const [name, args] of runs) {
     recordFailure(`jest ${name} crashed (exit code ${jest.code}, no ${reportFile})`);
   } else {
     passed += report.numPassedTests;
+    skipped += report.numPendingTests + report.numTodoTests;
     failed += report.numFailedTests + report.numRuntimeErrorTestSuites;
     if (report.numFailedTests > 0) failures.push(`${report.numFailedTests} jest ${name} test(s)`);
     if (report.numRuntimeErrorTestSuites > 0) failures.push(`${report.numRuntimeErrorTestSuites} jest ${name} suite(s) that failed to run`);
@@ -145,5 +149,6 @@ for (const [name, args] of runs) {
 
 log(`Timings: ${timings.join(', ')}; total ${((performance.now() - started) / 1000).toFixed(1)} s.`);
 if (failures.length > 0) log(`Failed: ${failures.join('; ')}.`);
-console.log(`${passed} passed, ${failed} failed`);
+// Skipped tests are never counted as passed; they are named when there are any.
+console.log(`${passed} passed, ${failed} failed${skipped > 0 ? `, ${skipped} skipped` : ''}`);
 process.exitCode = failed === 0 ? 0 : 1;

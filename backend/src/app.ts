@@ -1,5 +1,6 @@
 // Builds the Express app: security headers, sessions in PostgreSQL, CSRF, the API routes and the built client.
-import { RequestContext, type MikroORM } from '@mikro-orm/postgresql';
+import type { MikroORM } from '@mikro-orm/postgresql';
+import { requestTransaction } from './http/request-transaction';
 import connectPgSimple from 'connect-pg-simple';
 import cookieParser from 'cookie-parser';
 import express, { type Express } from 'express';
@@ -61,8 +62,8 @@ export function createApp({ orm, config, mailer, store, queue }: AppDeps): Runni
   );
   app.use(express.json({ limit: '1mb' }));
   app.use(cookieParser());
-  // Every request gets its own identity map: never the global EntityManager.
-  app.use((_req, _res, next) => RequestContext.create(orm.em, next));
+  // Every request gets its own identity map (never the global EntityManager); a writing request, one transaction.
+  app.use(requestTransaction(orm));
 
   const sessionPool = new pg.Pool({ ...config.db, database: config.db.dbName, max: 4 });
   const PgStore = connectPgSimple(session);
@@ -121,7 +122,9 @@ export function createApp({ orm, config, mailer, store, queue }: AppDeps): Runni
   const index = path.join(config.clientDist, 'index.html');
   if (existsSync(index)) {
     app.use(express.static(config.clientDist, { index: false, maxAge: '1h' }));
-    app.get('/{*splat}', (_req, res) => res.sendFile(index));
+    // `root` keeps the client's own folder out of send's dotfile check, so a checkout under a dot folder
+    // (~/.local/src/...) still serves its pages.
+    app.get('/{*splat}', (_req, res) => res.sendFile('index.html', { root: config.clientDist }));
   }
   app.use(errorMiddleware);
 

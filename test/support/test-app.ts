@@ -23,7 +23,7 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
-export async function startTestApp(options: { serveClient?: boolean } = {}): Promise<TestApp> {
+export async function startTestApp(options: { serveClient?: boolean; clientDist?: string } = {}): Promise<TestApp> {
   const mail = await startFakeMailServer({ quiet: true });
   const base = loadConfig({ ...process.env, PGDATABASE: process.env.PGDATABASE ?? 'tallyhood_test', PORT: '0' });
   const orm = await MikroORM.init(ormConfig(base.db));
@@ -36,7 +36,7 @@ export async function startTestApp(options: { serveClient?: boolean } = {}): Pro
   await store.ensureBucket();
   const queue = await startJobQueue(base.db);
   // The URL (and so the links in mail) is only known once the server listens.
-  const config = { ...base, smtp: { ...base.smtp, port: mail.smtpPort }, clientDist: options.serveClient ? base.clientDist : '/nonexistent' };
+  const config = { ...base, smtp: { ...base.smtp, port: mail.smtpPort }, clientDist: options.clientDist ?? (options.serveClient ? base.clientDist : '/nonexistent') };
   const holder: { server?: Server } = {};
   const running = createApp({ orm, config, mailer, store, queue });
   await new Promise<void>((resolve) => {
