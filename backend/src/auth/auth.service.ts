@@ -50,7 +50,7 @@ export async function confirmPasswordReset(em: EntityManager, input: ResetConfir
     reset.user.passwordHash = await hashPassword(input.password);
     await tx.flush();
     // Sign the account out everywhere: sessions opened with the old password end.
-    await tx.getConnection().execute(`delete from "session" where sess -> 'passport' ->> 'user' = ?`, [reset.user.id]);
+    await tx.execute(`delete from "session" where sess -> 'passport' ->> 'user' = ?`, [reset.user.id]);
     return reset.user;
   });
 }

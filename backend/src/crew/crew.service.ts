@@ -1,4 +1,5 @@
 // Crew: members of a build, invites by e-mail with a role, role changes and removal; a build keeps an owner.
+import { afterCommit } from '../http/request-transaction';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import type { InviteDto, InvitePreviewDto, MemberDto, MembersResponse } from '../../../shared/api/builds';
 import type { BuildRole, InvitableRole } from '../../../shared/enums';
@@ -51,14 +52,16 @@ export async function inviteMember(
     expiresAt: new Date(Date.now() + INVITE_LIFETIME_MS),
   });
   await em.flush();
-  await mailer.send(
-    inviteMail({
-      to: email,
-      inviterName: input.inviter.displayName,
-      buildName: input.build.name,
-      role: ROLE_LABELS[input.role].toLowerCase(),
-      link: `${config.appUrl}/invites/${token}`,
-    }),
+  await afterCommit(em, () =>
+    mailer.send(
+      inviteMail({
+        to: email,
+        inviterName: input.inviter.displayName,
+        buildName: input.build.name,
+        role: ROLE_LABELS[input.role].toLowerCase(),
+        link: `${config.appUrl}/invites/${token}`,
+      }),
+    ),
   );
   return inviteDto(invite);
 }

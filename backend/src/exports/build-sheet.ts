@@ -33,7 +33,7 @@ export interface BuildSheetData {
 
 /** The fitted parts and the ledger's system figures: what both the CSV and the JSON build sheet show. */
 export async function buildSheetData(em: EntityManager, build: Build, filter: { systemId?: string }): Promise<BuildSheetData> {
-  const rows = await em.getConnection().execute<SheetRow[]>(
+  const rows = await em.execute<SheetRow[]>(
     `select s.id as system_id, s.name as system, p.description, p.part_number, p.quantity, p.unit,
             sum(l.amount + l.allocated_tax + l.allocated_shipping - l.allocated_discount) as cost,
             to_char(max(r.purchase_date), 'YYYY-MM-DD') as bought_on

@@ -33,7 +33,7 @@ function money(value: string | number | null, places: number): string {
 export async function spendOverTime(em: EntityManager, build: Build, by: SpendPeriod): Promise<SpendResponse> {
   const places = minorUnits(build.currency);
   // date_trunc's 'week' starts on Monday, as ISO 8601 weeks do; the series fills the periods nothing was bought in.
-  const rows = await em.getConnection().execute<{ period: string; spent: string; net_cost: string }[]>(
+  const rows = await em.execute<{ period: string; spent: string; net_cost: string }[]>(
     `with per as (
        select date_trunc('${by}', r.purchase_date::timestamp) as period_start,
               sum(${LINE_TOTAL}) filter (where ${FIGURE_FILTER.spent}) as spent,
@@ -57,7 +57,7 @@ export async function spendOverTime(em: EntityManager, build: Build, by: SpendPe
 
 export async function spendByVendor(em: EntityManager, build: Build): Promise<VendorsResponse> {
   const places = minorUnits(build.currency);
-  const rows = await em.getConnection().execute<{ vendor_id: string | null; vendor: string | null; receipts: string; spent: string; net_cost: string }[]>(
+  const rows = await em.execute<{ vendor_id: string | null; vendor: string | null; receipts: string; spent: string; net_cost: string }[]>(
     `select r.vendor_id, v.name as vendor, count(distinct r.id) as receipts,
             coalesce(sum(${LINE_TOTAL}) filter (where ${FIGURE_FILTER.spent}), 0) as spent,
             coalesce(sum(${LINE_TOTAL}) filter (where ${FIGURE_FILTER.netCost}), 0) as net_cost
@@ -98,11 +98,10 @@ interface LineRow {
 /** The lines a figure counts, narrowed to a system, a vendor and a period when asked; unknown ones answer 404. */
 export async function linesBehind(em: EntityManager, build: Build, query: LedgerLinesQuery): Promise<LedgerLinesResponse> {
   const places = minorUnits(build.currency);
-  const connection = em.getConnection();
   const where: string[] = [FIGURE_FILTER[query.figure]];
   const params: unknown[] = [build.id];
   if (query.systemId) {
-    const [found] = await connection.execute(`select 1 from vehicle_system where id = ? and build_id = ?`, [query.systemId, build.id]);
+    const [found] = await em.execute(`select 1 from vehicle_system where id = ? and build_id = ?`, [query.systemId, build.id]);
     if (!found) throw new NotFound('That system');
     where.push('l.system_id = ?');
     params.push(query.systemId);
@@ -110,7 +109,7 @@ export async function linesBehind(em: EntityManager, build: Build, query: Ledger
   if (query.vendorId === 'none') {
     where.push('r.vendor_id is null');
   } else if (query.vendorId) {
-    const [found] = await connection.execute(`select 1 from vendor where id = ? and build_id = ?`, [query.vendorId, build.id]);
+    const [found] = await em.execute(`select 1 from vendor where id = ? and build_id = ?`, [query.vendorId, build.id]);
     if (!found) throw new NotFound('That shop');
     where.push('r.vendor_id = ?');
     params.push(query.vendorId);
@@ -119,7 +118,7 @@ export async function linesBehind(em: EntityManager, build: Build, query: Ledger
     where.push(`${WEEK_PATTERN.test(query.period) ? PERIOD_LABEL.week : PERIOD_LABEL.month} = ?`);
     params.push(query.period);
   }
-  const rows = await connection.execute<LineRow[]>(
+  const rows = await em.execute<LineRow[]>(
     `select l.id as line_id, r.id as receipt_id, to_char(r.purchase_date, 'YYYY-MM-DD') as purchase_date,
             r.vendor_id, v.name as vendor, l.description, l.kind, l.system_id, s.name as system,
             l.amount, l.allocated_tax, l.allocated_shipping, l.allocated_discount, ${LINE_TOTAL} as line_total

@@ -95,7 +95,7 @@ export interface OverrunFactor {
 
 export async function overrunFactor(em: EntityManager, build: Build): Promise<OverrunFactor> {
   const places = minorUnits(build.currency);
-  const [row] = await em.getConnection().execute<{ sample: string; actual: string; estimate: string }[]>(OVERRUN, [places, build.id]);
+  const [row] = await em.execute<{ sample: string; actual: string; estimate: string }[]>(OVERRUN, [places, build.id]);
   const sample = Number(row.sample);
   const estimate = toDecimal(String(row.estimate));
   if (sample < OVERRUN_MIN_SAMPLE || estimate.isZero()) return { factor: new Decimal(1), sample };
@@ -121,7 +121,7 @@ export function addFigures(rows: LedgerFigures[], places: number): LedgerFigures
 
 export async function buildLedger(em: EntityManager, build: Build): Promise<LedgerDto> {
   const places = minorUnits(build.currency);
-  const rows = await em.getConnection().execute<SystemRow[]>(SYSTEM_FIGURES, [places, places, build.id, build.id, build.id]);
+  const rows = await em.execute<SystemRow[]>(SYSTEM_FIGURES, [places, places, build.id, build.id, build.id]);
   const { factor, sample } = await overrunFactor(em, build);
   const money = (value: string | Decimal) => roundHalfUp(typeof value === 'string' ? toDecimal(String(value)) : value, places);
   const systems = rows.map((row) => {

@@ -39,7 +39,7 @@ export async function findDuplicates(em: EntityManager, receipts: Receipt[]): Pr
   const result = new Map<string, string[]>(receipts.map((r) => [r.id, []]));
   if (receipts.length === 0) return result;
   const buildId = receipts[0].build.id;
-  const rows: { id: string; other: string }[] = await em.getConnection().execute(
+  const rows: { id: string; other: string }[] = await em.execute(
     `select r.id, o.id as other
        from receipt r
        join receipt o on o.build_id = r.build_id and o.id <> r.id

@@ -1,4 +1,5 @@
 // Receipts of a build: upload (stored in object storage, queued for reading), list with filters, view, edit header.
+import { afterCommit } from '../http/request-transaction';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { createHash, randomUUID } from 'node:crypto';
 import type { ReceiptSummaryDto, UpdateReceiptRequest } from '../../../shared/api/receipts';
@@ -51,7 +52,10 @@ export async function createReceipts(
   const receipts: Receipt[] = [];
   for (const document of documents) receipts.push(await storeReceiptDocument(em, deps.store, build, user, document));
   await em.flush();
-  for (const receipt of receipts) await deps.queue.readReceipt(receipt.id);
+  // Reading starts once the receipts are committed: a worker must find them.
+  await afterCommit(em, async () => {
+    for (const receipt of receipts) await deps.queue.readReceipt(receipt.id);
+  });
   return receipts;
 }
 
@@ -72,7 +76,7 @@ export async function listReceipts(em: EntityManager, build: Build, filter: Rece
   const receipts = await em.find(Receipt, where, { populate: ['vendor', 'uploadedBy'], orderBy: { purchaseDate: 'desc nulls first', createdAt: 'desc' } });
   const duplicates = await findDuplicates(em, receipts);
   const stats: { receipt_id: string; lines: string; systems: string[] | null }[] = receipts.length
-    ? await em.getConnection().execute(
+    ? await em.execute(
         `select receipt_id, count(*) as lines, array_remove(array_agg(distinct system_id), null) as systems
            from receipt_line where receipt_id = any(?::uuid[]) group by receipt_id`,
         [`{${receipts.map((r) => r.id).join(',')}}`],
@@ -109,7 +113,7 @@ export async function vendorNamed(em: EntityManager, build: Build, name: string)
   if (known) return known;
   // Two readings of a new shop's receipts at once: ON CONFLICT DO NOTHING waits for the other to commit, then the
   // lookup finds its row, instead of one reading failing on the unique name.
-  await em.getConnection().execute(
+  await em.execute(
     'insert into vendor (id, build_id, name, normalized_name) values (?, ?, ?, ?) on conflict (build_id, normalized_name) do nothing',
     [randomUUID(), build.id, trimmed, normalizedName],
     'run',

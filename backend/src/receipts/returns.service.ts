@@ -85,7 +85,6 @@ export function utcToday(now = new Date()): string {
 export async function listReturns(em: EntityManager, build: Build, today = utcToday()): Promise<ReturnsDto> {
   const places = minorUnits(build.currency);
   const money = (value: string) => toWire(roundHalfUp(toDecimal(String(value)), places), places);
-  const connection = em.getConnection();
   const line = (row: LineRow) => ({
     lineId: row.line_id,
     receiptId: row.receipt_id,
@@ -97,9 +96,9 @@ export async function listReturns(em: EntityManager, build: Build, today = utcTo
   });
   const part = (row: LineRow) => ({ partId: row.part_id!, partVersion: row.part_version!, partStatus: row.part_status! });
 
-  const returnableRows = await connection.execute<(LineRow & { returnable_until: string; window_closed: boolean })[]>(RETURNABLE, [today, build.id, today]);
-  const awaitingRows = await connection.execute<LineRow[]>(AWAITING, [build.id]);
-  const refundedRows = await connection.execute<(LineRow & { refund_receipt_id: string; refund_date: string | null; refunded: string })[]>(REFUNDED, [build.id]);
+  const returnableRows = await em.execute<(LineRow & { returnable_until: string; window_closed: boolean })[]>(RETURNABLE, [today, build.id, today]);
+  const awaitingRows = await em.execute<LineRow[]>(AWAITING, [build.id]);
+  const refundedRows = await em.execute<(LineRow & { refund_receipt_id: string; refund_date: string | null; refunded: string })[]>(REFUNDED, [build.id]);
 
   const returnable: ReturnableItemDto[] = returnableRows.map((row) => ({
     ...line(row),

@@ -1,5 +1,6 @@
 // The partner's review: approve or question a filed receipt, comment on it (its uploader is told by mail), and read
 // its audit trail.
+import { afterCommit } from '../http/request-transaction';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import type { AuditEventDto, CommentDto } from '../../../shared/api/review';
 import { AuditEvent } from '../audit/audit-event.entity';
@@ -21,14 +22,16 @@ async function addComment(em: EntityManager, mailer: Mailer, config: AppConfig, 
   await em.flush();
   await em.populate(receipt, ['uploadedBy', 'vendor']);
   if (receipt.uploadedBy.id !== author.id) {
-    await mailer.send(
-      commentMail({
-        to: receipt.uploadedBy.email,
-        author: author.displayName,
-        receiptLabel: `${receipt.vendor?.name ?? 'a receipt'}${receipt.purchaseDate ? ` of ${receipt.purchaseDate}` : ''}`,
-        body,
-        link: `${config.appUrl}/builds/${receipt.build.id}/receipts/${receipt.id}`,
-      }),
+    await afterCommit(em, () =>
+      mailer.send(
+        commentMail({
+          to: receipt.uploadedBy.email,
+          author: author.displayName,
+          receiptLabel: `${receipt.vendor?.name ?? 'a receipt'}${receipt.purchaseDate ? ` of ${receipt.purchaseDate}` : ''}`,
+          body,
+          link: `${config.appUrl}/builds/${receipt.build.id}/receipts/${receipt.id}`,
+        }),
+      ),
     );
   }
   return comment;
