@@ -23,6 +23,17 @@ export class MoneyError extends Error {
 export const UNIT_PRICE_DECIMALS = 4;
 /** numeric(19,4) leaves 15 digits before the point. */
 export const MAX_INTEGER_DIGITS = 15;
+/**
+ * Digits before the point `toDecimal` reads in a stored figure: a product of two numeric(19,4) values has up to 30,
+ * and a sum of such products a few more; 60 stays well within PRECISION.
+ */
+const STORED_SUM_INTEGER_DIGITS = 60;
+const STORED_LIMIT = new Exact(10).pow(MAX_INTEGER_DIGITS);
+
+/** Whether an amount (a product or a sum worked out by the server) fits a numeric(19,4) column. */
+export function fitsStoredAmount(value: Decimal): boolean {
+  return new Exact(value).abs().toDecimalPlaces(UNIT_PRICE_DECIMALS, Decimal.ROUND_HALF_UP).lessThan(STORED_LIMIT);
+}
 
 export const MONEY_MESSAGES = {
   empty: 'Enter an amount.',
@@ -67,7 +78,7 @@ const STRICT_AMOUNT = /^-?(\d+)(?:\.(\d+))?$/;
 /** Reads "12.50" or "-3" into an exact Decimal; every refusal says what is wrong with the text. */
 export function parseMoney(text: string, options: ParseMoneyOptions = {}): ParseMoneyResult {
   const maxDecimals = checkedCount(options.maxDecimals ?? UNIT_PRICE_DECIMALS, 'maxDecimals');
-  const maxIntegerDigits = checkedCount(options.maxIntegerDigits ?? MAX_INTEGER_DIGITS, 'maxIntegerDigits');
+  const maxIntegerDigits = checkedCount(options.maxIntegerDigits ?? MAX_INTEGER_DIGITS, 'maxIntegerDigits', STORED_SUM_INTEGER_DIGITS);
   if (typeof text !== 'string') return refuse(MONEY_MESSAGES.notText);
   const trimmed = text.trim();
   if (trimmed === '') return refuse(MONEY_MESSAGES.empty);
@@ -90,7 +101,8 @@ export function parseMoney(text: string, options: ParseMoneyOptions = {}): Parse
  */
 export function toDecimal(value: string | Decimal, options: ParseMoneyOptions = {}): Decimal {
   if (typeof value !== 'string') return positiveZero(new Exact(finite(value)));
-  const parsed = parseMoney(value, options);
+  // A stored sum of numeric(19,4) values has as many digits as the rows make it: read any of them exactly.
+  const parsed = parseMoney(value, { maxIntegerDigits: STORED_SUM_INTEGER_DIGITS, ...options });
   if (!parsed.ok) throw new MoneyError(parsed.message);
   return parsed.value;
 }
@@ -115,8 +127,8 @@ function refuse(message: string): ParseMoneyResult {
   return { ok: false, message };
 }
 
-function checkedCount(count: number, name: string): number {
-  if (!Number.isInteger(count) || count < 0 || count > 20) throw new MoneyError(`${name} must be a whole number from 0 to 20.`);
+function checkedCount(count: number, name: string, max = 20): number {
+  if (!Number.isInteger(count) || count < 0 || count > max) throw new MoneyError(`${name} must be a whole number from 0 to ${max}.`);
   return count;
 }
 

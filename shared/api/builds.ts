@@ -28,12 +28,14 @@ export const localeSchema = z
     }
   }, 'Use a language tag such as en-US or en-GB.');
 
+const buildStatusSchema = z.enum(BUILD_STATUSES, { error: `Choose one of: ${BUILD_STATUSES.join(', ')}.` });
+
 const buildFields = {
   name: z.string({ error: 'Give the build a name.' }).trim().min(1, 'Give the build a name.').max(120, 'A name is at most 120 characters.'),
   vehicle: z.string().trim().max(200, 'The vehicle is at most 200 characters.').default(''),
   currency: currencyCodeSchema,
   locale: localeSchema.default('en-US'),
-  status: z.enum(BUILD_STATUSES, { error: `Choose one of: ${BUILD_STATUSES.join(', ')}.` }).default('planning'),
+  status: buildStatusSchema.default('planning'),
   startedOn: optionalIsoDate,
   targetDate: optionalIsoDate,
 };
@@ -60,7 +62,8 @@ export const updateBuildRequest = z
     name: buildFields.name.optional(),
     vehicle: z.string().trim().max(200, 'The vehicle is at most 200 characters.').optional(),
     locale: localeSchema.optional(),
-    status: buildFields.status.optional().transform((value) => value),
+    // No default here: a PATCH changes only the fields it carries.
+    status: buildStatusSchema.optional(),
     startedOn: optionalIsoDate,
     targetDate: optionalIsoDate,
     returnWindowDays: returnWindowDaysSchema.optional(),

@@ -24,7 +24,7 @@ const truth = (name: string) => JSON.parse(readFileSync(path.join(FIXTURES, name
 let t: TestApp;
 let stopWorker: () => Promise<void>;
 beforeAll(async () => {
-  t = await startTestApp();
+  t = await startTestApp({ reading: true });
   stopWorker = await startReadingWorker(t.queue, { orm: t.orm, store: t.store, read: readWithPageImages });
 });
 afterAll(async () => {

@@ -17,7 +17,7 @@ let t: TestApp;
 let browser: Browser;
 let stopWorker: (() => Promise<void>) | undefined;
 beforeAll(async () => {
-  t = await startTestApp({ serveClient: true });
+  t = await startTestApp({ serveClient: true, reading: true });
   stopWorker = await startReadingWorker(t.queue, { orm: t.orm, store: t.store, read: readWithPageImages });
   browser = await launchBrowser();
 });

@@ -23,7 +23,12 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
-export async function startTestApp(options: { serveClient?: boolean; clientDist?: string } = {}): Promise<TestApp> {
+/**
+ * `reading: true` queues uploaded receipts for reading as the app does; otherwise the test app's queue takes no
+ * reading jobs, so a test file's own workers never pick up (and move on) the receipts another file forces into a
+ * state. Files that do not read start their receipts through `filedReceipt`.
+ */
+export async function startTestApp(options: { serveClient?: boolean; clientDist?: string; reading?: boolean } = {}): Promise<TestApp> {
   const mail = await startFakeMailServer({ quiet: true });
   const base = loadConfig({ ...process.env, PGDATABASE: process.env.PGDATABASE ?? 'tallyhood_test', PORT: '0' });
   const orm = await MikroORM.init(ormConfig(base.db));
@@ -34,7 +39,8 @@ export async function startTestApp(options: { serveClient?: boolean; clientDist?
   const s3: FakeS3 = await startFakeS3({ directory: s3Folder });
   const store = createObjectStore({ ...base.storage, endpoint: s3.endpoint });
   await store.ensureBucket();
-  const queue = await startJobQueue(base.db);
+  const realQueue = await startJobQueue(base.db);
+  const queue: JobQueue = options.reading ? realQueue : { ...realQueue, readReceipt: async () => undefined };
   // The URL (and so the links in mail) is only known once the server listens.
   const config = { ...base, smtp: { ...base.smtp, port: mail.smtpPort }, clientDist: options.clientDist ?? (options.serveClient ? base.clientDist : '/nonexistent') };
   const holder: { server?: Server } = {};

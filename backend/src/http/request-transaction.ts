@@ -39,13 +39,14 @@ export function requestTransaction(orm: MikroORM): RequestHandler {
       RequestContext.create(orm.em, next);
       return;
     }
-    const em = orm.em.fork();
-    const waiting: AfterCommit[] = [];
-    pendingAfterCommit.set(em, waiting);
-    holdAnswerUntilSettled(res, em, waiting);
-    em.begin()
-      .then(() => RequestContext.create(em, next))
-      .catch(next);
+    // The transaction is begun on the request context's own fork: the one every service reaches through em().
+    RequestContext.create(orm.em, () => {
+      const em = RequestContext.getEntityManager() as EntityManager;
+      const waiting: AfterCommit[] = [];
+      pendingAfterCommit.set(em, waiting);
+      holdAnswerUntilSettled(res, em, waiting);
+      em.begin().then(() => next(), next);
+    });
   };
 }
 

@@ -1,4 +1,5 @@
 // Reads a parts list from CSV: every row is checked and previewed before anything is saved.
+import { estimateProblem } from './parts.service';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { parse } from 'csv-parse/sync';
 import { createPartRequest, IMPORT_COLUMNS, type ImportPreviewDto, type ImportRowDto } from '../../../shared/api/parts';
@@ -74,6 +75,8 @@ export async function previewImport(em: EntityManager, build: Build, text: strin
     const { system: _system, ...fields } = raw;
     const parsed = rowSchema.safeParse({ ...fields, status: fields.status?.toLowerCase().replace(/\s+/g, '_') });
     if (!parsed.success) Object.assign(errors, fieldsFromZod(parsed.error));
+    const tooLarge = parsed.success ? estimateProblem(parsed.data.quantity, parsed.data.estimatedUnitCost) : undefined;
+    if (tooLarge) errors.estimatedUnitCost = tooLarge;
     const ok = Object.keys(errors).length === 0;
     const dto: ImportRowDto = {
       line: index + 2,

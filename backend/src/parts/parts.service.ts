@@ -2,10 +2,10 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import type { PartDto, UpdatePartRequest } from '../../../shared/api/parts';
 import type { PartStatus } from '../../../shared/enums';
-import { type Decimal, minorUnits, toWire } from '../../../shared/money';
+import { type Decimal, fitsStoredAmount, minorUnits, multiply, toWire } from '../../../shared/money';
 import type { Unit } from '../../../shared/units';
 import type { Build } from '../builds/build.entity';
-import { NotFound, StaleVersion } from '../http/errors';
+import { NotFound, StaleVersion, ValidationFailed } from '../http/errors';
 import { checkBudget, findSystem, partEstimate } from '../systems/systems.service';
 import { Part } from './part.entity';
 
@@ -55,7 +55,19 @@ export async function listParts(em: EntityManager, build: Build, filter: { syste
   );
 }
 
+/** The part's estimate (quantity × unit cost) is summed on every ledger: it must fit a stored amount. */
+export function estimateProblem(quantity: Decimal, estimatedUnitCost: Decimal): string | undefined {
+  if (fitsStoredAmount(multiply(quantity, estimatedUnitCost))) return undefined;
+  return 'Quantity × unit cost is too large to be a part of a build: check both figures.';
+}
+
+function checkEstimate(quantity: Decimal, estimatedUnitCost: Decimal): void {
+  const problem = estimateProblem(quantity, estimatedUnitCost);
+  if (problem) throw new ValidationFailed({ estimatedUnitCost: problem });
+}
+
 export async function createPart(em: EntityManager, build: Build, input: PartInput): Promise<Part> {
+  checkEstimate(input.quantity, input.estimatedUnitCost);
   const system = await findSystem(em, build, input.systemId, 'systemId');
   if (input.askingPrice) checkBudget(build, 'askingPrice', input.askingPrice);
   const { systemId: _systemId, ...fields } = input;
@@ -75,6 +87,7 @@ export async function updatePart(em: EntityManager, build: Build, partId: string
   const { version, systemId, ...fields } = changes as PartChanges;
   if (part.version !== version) throw new StaleVersion('This part', partDto(part, build.currency));
   if (fields.askingPrice) checkBudget(build, 'askingPrice', fields.askingPrice);
+  checkEstimate(fields.quantity ?? part.quantity, fields.estimatedUnitCost ?? part.estimatedUnitCost);
   if (systemId !== undefined) part.system = await findSystem(em, build, systemId, 'systemId');
   for (const [key, value] of Object.entries(fields)) if (value !== undefined) (part as unknown as Record<string, unknown>)[key] = value;
   await em.flush();

@@ -83,7 +83,8 @@ export async function receiptDto(em: EntityManager, receipt: Receipt, role: Buil
   const duplicates = await findDuplicates(em, [receipt]);
   const reading = (receipt.reading ?? {}) as { fieldConfidence?: Record<string, number>; notes?: string[] };
   const rec = reconcile(lines, receipt);
-  const editable = role === 'owner' || (role === 'crew' && receipt.state !== 'filed');
+  // A filed receipt is read-only for everyone until the owner reopens it: its allocations and cores follow its lines.
+  const editable = (role === 'owner' || role === 'crew') && receipt.state !== 'filed';
   return {
     ...summaryDto(receipt, {
       lineCount: lines.length,

@@ -80,6 +80,8 @@ export async function fileReceipt(
     line.allocatedDiscount = shares[index].discount;
   });
 
+  // A core whose charge line was changed to another kind while the receipt was open is no longer owed.
+  for (const core of await em.find(Core, { chargeLine: { receipt, kind: { $ne: 'core_charge' } } })) em.remove(core);
   for (const line of lines) {
     if (line.kind === 'core_charge' && !(await em.count(Core, { chargeLine: line }))) {
       em.create(Core, { build: receipt.build, chargeLine: line, dueDate: addDays(receipt.purchaseDate!, input.coreDueDays) });
@@ -111,9 +113,24 @@ export async function fileReceipt(
   await em.flush();
 }
 
-/** The owner reopens a filed receipt to correct it; it must be filed again. */
+/**
+ * The owner reopens a filed receipt to correct it; it must be filed again. What filing derived is undone: the receipt
+ * leaves the ledger (it counts filed receipts only), its lines lose their shares of the charges, and cores its refund
+ * lines refunded are back to dropped off until it is filed again. Cores charged on it stay, with whatever the people
+ * did with them since; deleting the charge line removes its core.
+ */
 export async function reopenReceipt(em: EntityManager, receipt: Receipt, user: User): Promise<void> {
   if (receipt.state !== 'filed') throw new ValidationFailed({ state: 'Only a filed receipt can be reopened.' });
+  const lines = await em.find(ReceiptLine, { receipt });
+  for (const line of lines) {
+    line.allocatedTax = new Decimal(0);
+    line.allocatedShipping = new Decimal(0);
+    line.allocatedDiscount = new Decimal(0);
+  }
+  for (const core of await em.find(Core, { refundLine: { receipt } })) {
+    core.state = 'dropped_off';
+    core.refundLine = null;
+  }
   receipt.state = 'to_check';
   recordAudit(em, { build: receipt.build, user, entity: 'receipt', entityId: receipt.id, receiptId: receipt.id, action: 'reopen' });
   await em.flush();

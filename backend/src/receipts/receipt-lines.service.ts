@@ -2,7 +2,7 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import type { UpdateLineRequest } from '../../../shared/api/receipts';
 import type { ReceiptLineKind } from '../../../shared/enums';
-import { Decimal, multiply, roundToMinor, sum, fitsMinorUnits, minorUnits } from '../../../shared/money';
+import { Decimal, fitsMinorUnits, fitsStoredAmount, minorUnits, multiply, roundToMinor, sum } from '../../../shared/money';
 import type { User } from '../auth/user.entity';
 import { recordAudit } from '../audit/audit';
 import { NotFound, StaleVersion, ValidationFailed } from '../http/errors';
@@ -31,6 +31,13 @@ export interface LineInput {
 
 function lineSnapshot(line: ReceiptLine) {
   return { kind: line.kind, description: line.description, quantity: line.quantity.toString(), unitPrice: line.unitPrice?.toString() ?? null, amount: line.amount.toString(), partId: line.part?.id ?? null, systemId: line.system?.id ?? null };
+}
+
+/** Quantity × unit price must be an amount a line can hold (numeric(19,4)); `field` is the one the person changed. */
+function checkLineProduct(quantity: Decimal, unitPrice: Decimal | null, field: 'quantity' | 'unitPrice'): void {
+  if (unitPrice && !fitsStoredAmount(multiply(quantity, unitPrice))) {
+    throw new ValidationFailed({ [field]: 'Quantity × unit price is too large for one line: check both figures.' });
+  }
 }
 
 function checkAmount(receipt: Receipt, kind: ReceiptLineKind, amount: Decimal): void {
@@ -82,6 +89,7 @@ export async function findLine(em: EntityManager, receipt: Receipt, lineId: stri
 export async function addLine(em: EntityManager, receipt: Receipt, user: User, role: string, input: LineInput): Promise<ReceiptLine> {
   assertEditable(receipt, role);
   checkAmount(receipt, input.kind, input.amount);
+  checkLineProduct(input.quantity, input.unitPrice, 'unitPrice');
   const last = await em.findOne(ReceiptLine, { receipt }, { orderBy: { position: 'desc' } });
   const line = em.create(ReceiptLine, {
     build: receipt.build,
@@ -109,6 +117,7 @@ export async function updateLine(em: EntityManager, receipt: Receipt, lineId: st
   if (line.version !== changes.version) throw new StaleVersion('This line');
   const before = lineSnapshot(line);
   const { version: _version, newPart, partId, systemId, returnOfLineId, ...fields } = changes;
+  checkLineProduct(fields.quantity ?? line.quantity, fields.unitPrice === undefined ? line.unitPrice : fields.unitPrice, fields.quantity !== undefined ? 'quantity' : 'unitPrice');
   for (const [key, value] of Object.entries(fields)) if (value !== undefined) (line as unknown as Record<string, unknown>)[key] = value;
   // Quantity times unit price gives the amount when a person changes either and not the amount itself.
   if (fields.amount === undefined && (fields.quantity !== undefined || fields.unitPrice !== undefined) && line.unitPrice) {
@@ -205,8 +214,10 @@ export async function mergeLines(em: EntityManager, receipt: Receipt, lineIds: s
   if (lines.length !== new Set(lineIds).size) throw new NotFound('Some of those lines');
   if (new Set(lines.map((l) => l.kind)).size > 1) throw new ValidationFailed({ lineIds: 'Only lines of the same kind can be merged.' });
   const [first, ...rest] = lines;
+  const merged = sum(lines.map((l) => l.amount));
+  if (!fitsStoredAmount(merged)) throw new ValidationFailed({ lineIds: 'Those lines together are too large for one line.' });
   const before = lines.map(lineSnapshot);
-  first.amount = sum(lines.map((l) => l.amount));
+  first.amount = merged;
   first.description = lines.map((l) => l.description).join(' ');
   first.quantity = new Decimal(1);
   first.unitPrice = first.amount.abs();

@@ -8,7 +8,7 @@ import { type Decimal, fitsMinorUnits, minorUnits } from '../../../shared/money'
 import type { User } from '../auth/user.entity';
 import type { Build } from '../builds/build.entity';
 import { recordAudit } from '../audit/audit';
-import { Forbidden, NotFound, StaleVersion, ValidationFailed } from '../http/errors';
+import { Conflict, Forbidden, NotFound, StaleVersion, ValidationFailed } from '../http/errors';
 import type { JobQueue } from '../jobs/queue';
 import type { ObjectStore } from '../storage/object-store';
 import { findDuplicates, summaryDto } from './receipt-dto';
@@ -101,7 +101,10 @@ export async function findReceipt(em: EntityManager, build: Build, receiptId: st
 /** Crew edit until the receipt is filed; the owner edits always (each change to money is audited). */
 export function assertEditable(receipt: Receipt, role: string): void {
   if (role === 'reviewer') throw new Forbidden();
-  if (receipt.state === 'filed' && role !== 'owner') throw new Forbidden('This receipt is filed: only the owner can change it now.');
+  // Filing derived the lines' shares of tax and shipping, the cores and the refunds from what the receipt said then;
+  // a change afterwards would leave them stale, so a filed receipt changes only after it is reopened and filed again.
+  if (receipt.state === 'filed' && role !== 'owner') throw new Forbidden('This receipt is filed: only the owner can reopen it to change it.');
+  if (receipt.state === 'filed') throw new Conflict('This receipt is filed. Reopen it to change it, then file it again.');
   if (receipt.state === 'queued' || receipt.state === 'reading') throw new ValidationFailed({ state: 'Wait until the receipt has been read.' }, 'The receipt is still being read.');
 }
 

@@ -165,7 +165,7 @@ type LineGroup = ReturnType<typeof lineGroup>;
           @if (!receipt.editable) {
             <p class="notice" role="note">
               <mat-icon aria-hidden="true">lock</mat-icon>
-              {{ receipt.state === 'filed' ? 'This receipt is filed; only the owner can reopen it to change it.' : 'You can read this receipt; the owner and crew change it.' }}
+              {{ receipt.state !== 'filed' ? 'You can read this receipt; the owner and crew change it.' : isOwner() ? 'This receipt is filed. To change it, reopen it below, then file it again.' : 'This receipt is filed; only the owner can reopen it to change it.' }}
             </p>
           }
 
