@@ -37,11 +37,11 @@ export async function createAccount(em: EntityManager, input: Omit<SignUpRequest
   return user;
 }
 
-/** Sends a reset link when the account exists; says nothing either way so addresses cannot be probed. */
+/** Sends a reset link when the account exists; runs after the answer, which says nothing either way. */
 export async function requestPasswordReset(em: EntityManager, mailer: Mailer, config: AppConfig, email: string): Promise<void> {
+  const { token, tokenHash } = newToken();
   const user = await em.findOne(User, { email: email.toLowerCase() });
   if (!user) return;
-  const { token, tokenHash } = newToken();
   em.create(PasswordReset, { user, tokenHash, expiresAt: new Date(Date.now() + RESET_LIFETIME_MS) });
   await em.flush();
   await mailer.send(passwordResetMail({ to: user.email, link: `${config.appUrl}/reset-password/${token}` }));
