@@ -2,11 +2,11 @@
 import { z } from 'zod';
 import { CORE_STATES, CoreState, PartStatus, RECEIPT_LINE_KINDS, ReceiptLineKind, ReceiptState, ReviewState } from '../enums';
 import { moneyString } from '../money';
+import { calendarDate } from './dates';
 import { createPartRequest } from './parts';
 
 const uuid = z.uuid({ error: 'Choose an existing item.' });
 const version = z.number({ error: 'Send the version you last saw.' }).int().min(1);
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-11-14.');
 const signedMoney = moneyString({ maxDecimals: 4, allowNegative: true });
 const nullableMoney = z.union([signedMoney, z.null()]);
 
@@ -19,7 +19,7 @@ export const MAX_PDF_PAGES = 20;
 export const updateReceiptRequest = z
   .object({
     vendorName: z.string().trim().max(120, 'A shop name is at most 120 characters.').optional(),
-    purchaseDate: z.union([isoDate, z.null()]).optional(),
+    purchaseDate: z.union([calendarDate, z.null()]).optional(),
     receiptNumber: z.string().trim().max(80, 'A receipt number is at most 80 characters.').optional(),
     subtotal: nullableMoney.optional(),
     tax: nullableMoney.optional(),
@@ -100,7 +100,7 @@ export const fileReceiptRequest = z
   .strict();
 export type FileReceiptRequest = z.input<typeof fileReceiptRequest>;
 
-export const updateCoreRequest = z.object({ state: z.enum(CORE_STATES, { error: `Choose: ${CORE_STATES.join(', ')}.` }).optional(), dueDate: isoDate.optional(), version }).strict();
+export const updateCoreRequest = z.object({ state: z.enum(CORE_STATES, { error: `Choose: ${CORE_STATES.join(', ')}.` }).optional(), dueDate: calendarDate.optional(), version }).strict();
 export type UpdateCoreRequest = z.input<typeof updateCoreRequest>;
 
 export interface BoxDto {

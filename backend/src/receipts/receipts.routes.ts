@@ -16,7 +16,8 @@ import {
 import { RECEIPT_STATES, type ReceiptState } from '../../../shared/enums';
 import { ANY_MEMBER, buildRole, em, isUuid, membershipOf } from '../http/build-access';
 import { NotFound, ValidationFailed } from '../http/errors';
-import { validBody } from '../http/validate';
+import { parseInput, validBody } from '../http/validate';
+import { dateRangeQuery } from '../../../shared/api/dates';
 import type { JobQueue } from '../jobs/queue';
 import type { ObjectStore } from '../storage/object-store';
 import { listCores, updateCore } from './cores.service';
@@ -37,12 +38,6 @@ function id(value: unknown, what: string): string {
   return value;
 }
 
-function dateQuery(value: unknown, field: string): string | undefined {
-  if (value === undefined || value === '') return undefined;
-  if (typeof value !== 'string' || !/^\d{4}-\d{2}-\d{2}$/.test(value)) throw new ValidationFailed({ [field]: 'Use a date like 2026-11-14.' });
-  return value;
-}
-
 /** Mounted under /api/builds/:buildId. */
 export function receiptsRoutes(deps: { store: ObjectStore; queue: JobQueue }): Router {
   const router = Router({ mergeParams: true });
@@ -58,11 +53,12 @@ export function receiptsRoutes(deps: { store: ObjectStore; queue: JobQueue }): R
     const state = req.query.state;
     if (state !== undefined && !RECEIPT_STATES.includes(state as ReceiptState)) throw new ValidationFailed({ state: `Choose one of: ${RECEIPT_STATES.join(', ')}.` });
     const systemId = req.query.systemId === undefined ? undefined : id(req.query.systemId, 'That system');
+    const { from, to } = parseInput(dateRangeQuery, { from: req.query.from, to: req.query.to });
     const receipts = await listReceipts(em(), membershipOf(res).build, {
       state: state as ReceiptState | undefined,
       vendor: typeof req.query.vendor === 'string' ? req.query.vendor : undefined,
-      from: dateQuery(req.query.from, 'from'),
-      to: dateQuery(req.query.to, 'to'),
+      from,
+      to,
       systemId,
     });
     res.json({ receipts });
