@@ -15,6 +15,8 @@ export const ACCEPTED_UPLOAD_LABEL = 'JPEG, PNG, WebP or HEIC photos, or PDF inv
 export const MAX_UPLOAD_BYTES = 20 * 1024 * 1024;
 export const MAX_UPLOAD_FILES = 10;
 export const MAX_PDF_PAGES = 20;
+/** A photo's pixel count (width × height) at most: 40 megapixels is past any phone camera, and bounds the memory a decode takes. */
+export const MAX_UPLOAD_MEGAPIXELS = 40;
 
 export const updateReceiptRequest = z
   .object({

@@ -1,7 +1,6 @@
 // Receipts of a build: upload, list, view (with the document and page images), correct, assign lines, file.
 // Every member reads; owner and crew upload and edit (crew until filed); cores change state in one click; returns are listed.
 import { Router, type Response } from 'express';
-import multer from 'multer';
 import {
   createLineRequest,
   fileReceiptRequest,
@@ -16,6 +15,7 @@ import {
 import { RECEIPT_STATES, type ReceiptState } from '../../../shared/enums';
 import { ANY_MEMBER, buildRole, em, isUuid, membershipOf } from '../http/build-access';
 import { NotFound, ValidationFailed } from '../http/errors';
+import { multipartUpload } from '../http/uploads';
 import { parseInput, validBody } from '../http/validate';
 import { dateRangeQuery } from '../../../shared/api/dates';
 import type { JobQueue } from '../jobs/queue';
@@ -31,7 +31,6 @@ import { UnreadableDocumentError } from './reading/sniff';
 import { checkUpload } from './upload-check';
 
 const EDITORS = ['owner', 'crew'] as const;
-const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_UPLOAD_BYTES, files: MAX_UPLOAD_FILES } });
 
 function id(value: unknown, what: string): string {
   if (!isUuid(value)) throw new NotFound(what);
@@ -67,20 +66,13 @@ export function receiptsRoutes(deps: { store: ObjectStore; queue: JobQueue }): R
   router.post(
     '/receipts',
     buildRole(...EDITORS),
-    (req, res, next) =>
-      upload.array('files', MAX_UPLOAD_FILES)(req, res, (error: unknown) => {
-        if (error instanceof multer.MulterError) {
-          const message =
-            error.code === 'LIMIT_FILE_SIZE'
-              ? `A file is larger than ${MAX_UPLOAD_BYTES / 1024 / 1024} MB. Send a smaller photo or PDF.`
-              : error.code === 'LIMIT_FILE_COUNT' || error.code === 'LIMIT_UNEXPECTED_FILE'
-                ? `Send at most ${MAX_UPLOAD_FILES} files at once, in the field "files".`
-                : error.message;
-          next(new ValidationFailed({ files: message }, message));
-          return;
-        }
-        next(error);
-      }),
+    multipartUpload({
+      field: 'files',
+      maxFiles: MAX_UPLOAD_FILES,
+      maxBytes: MAX_UPLOAD_BYTES,
+      tooLarge: `A file is larger than ${MAX_UPLOAD_BYTES / 1024 / 1024} MB. Send a smaller photo or PDF.`,
+      wrongField: `Send at most ${MAX_UPLOAD_FILES} files at once, in the field "files".`,
+    }),
     async (req, res) => {
       const files = (req.files as Express.Multer.File[] | undefined) ?? [];
       if (files.length === 0) throw new ValidationFailed({ files: 'Attach at least one photo or PDF of a receipt.' });
