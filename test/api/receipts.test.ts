@@ -109,6 +109,11 @@ describe('upload and reading', () => {
     }
     const document = await client.get(`/api/builds/${build.id}/receipts/${res.body.receipts[0].id}/document`);
     expect(document.headers['content-type']).toBe('application/pdf');
+    // A PDF is downloaded, never shown as a page of the app, and sandboxed if a browser shows it anyway.
+    expect(document.headers['content-disposition']).toBe('attachment; filename="invoice.pdf"');
+    expect(document.headers['content-security-policy']).toBe('sandbox');
+    const photo = await client.get(`/api/builds/${build.id}/receipts/${res.body.receipts[1].id}/document`);
+    expect(photo.headers['content-disposition']).toBe('inline; filename="slip.png"');
   });
 
   it('refuses a file that is not a photo or a PDF, naming it, and saves nothing', async () => {

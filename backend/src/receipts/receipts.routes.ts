@@ -104,7 +104,11 @@ export function receiptsRoutes(deps: { store: ObjectStore; queue: JobQueue }): R
     const receipt = await receiptOf(res, req.params.receiptId);
     const object = await deps.store.stream(receipt.documentKey);
     res.setHeader('Content-Type', receipt.contentType);
-    res.setHeader('Content-Disposition', `inline; filename="${receipt.originalFilename.replace(/[^\w.-]+/g, '_')}"`);
+    // A PDF can carry script and forms: it is downloaded, never opened as a page of ours, and sandboxed if a browser
+    // shows it anyway. Photos stay inline for the check screen.
+    const pdf = receipt.contentType === 'application/pdf';
+    res.setHeader('Content-Disposition', `${pdf ? 'attachment' : 'inline'}; filename="${receipt.originalFilename.replace(/[^\w.-]+/g, '_')}"`);
+    if (pdf) res.setHeader('Content-Security-Policy', 'sandbox');
     res.setHeader('Cache-Control', 'private, max-age=3600');
     object.body.pipe(res);
   });
