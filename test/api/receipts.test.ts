@@ -138,6 +138,18 @@ describe('upload and reading', () => {
     expect(list.find((r: { id: string }) => r.id === first.id).duplicateOf).toEqual([second.id]);
   });
 
+  it('marks a photo that cannot be decoded unreadable at once, with a note, instead of retrying it', async () => {
+    const { client, build } = await newBuild();
+    // A real PNG cut off after its first 2,000 bytes: the header reads, the picture does not.
+    const uploaded = (await upload(client, build.id, [{ name: 'cut.png', bytes: fixture('counter-1.png').subarray(0, 2000) }])).body.receipts[0];
+    const note = 'This photo could not be opened: it may be damaged, cut off or too large. Upload it again, or enter the lines by hand.';
+    expect(await waitForState(client, build.id, uploaded.id, ['failed'])).toMatchObject({ state: 'failed', readingError: note });
+    // Read again on a first attempt (not the last one pg-boss allows), it fails for good rather than throwing for a retry.
+    await t.orm.em.fork().nativeUpdate(Receipt, { id: uploaded.id }, { state: 'reading', readingError: null });
+    expect(await readQueuedReceipt({ orm: t.orm, store: t.store, read: readWithPageImages }, uploaded.id, false)).toBe('failed');
+    expect((await t.orm.em.fork().findOneOrFail(Receipt, { id: uploaded.id })).readingError).toBe(note);
+  });
+
   it('never doubles lines when a reading is retried after a crash', async () => {
     const { client, build } = await newBuild();
     const uploaded = (await upload(client, build.id, [{ name: 'slip.png', bytes: fixture('counter-2.png') }])).body.receipts[0];
