@@ -69,6 +69,13 @@ export function errorBody(code: string, message: string, fields?: Record<string,
 }
 
 export const errorMiddleware: ErrorRequestHandler = (err, _req, res, _next) => {
+  // A stream that failed after its headers went out (a download cut short): the body cannot be an error any more,
+  // so the connection is ended abruptly and the client sees an incomplete download, never a complete-looking one.
+  if (res.headersSent) {
+    if ((err as { code?: string }).code !== 'ERR_STREAM_PREMATURE_CLOSE') console.error('response failed mid-stream:', err);
+    res.destroy();
+    return;
+  }
   if (err instanceof AppError) {
     res.status(err.status).json(errorBody(err.code, err.message, err.fields, err.extra));
     return;

@@ -1,6 +1,7 @@
 // Receipts of a build: upload, list, view (with the document and page images), correct, assign lines, file.
 // Every member reads; owner and crew upload and edit (crew until filed); cores change state in one click; returns are listed.
 import { Router, type Response } from 'express';
+import { pipeline } from 'node:stream/promises';
 import {
   createLineRequest,
   fileReceiptRequest,
@@ -110,7 +111,8 @@ export function receiptsRoutes(deps: { store: ObjectStore; queue: JobQueue }): R
     res.setHeader('Content-Disposition', `${pdf ? 'attachment' : 'inline'}; filename="${receipt.originalFilename.replace(/[^\w.-]+/g, '_')}"`);
     if (pdf) res.setHeader('Content-Security-Policy', 'sandbox');
     res.setHeader('Cache-Control', 'private, max-age=3600');
-    object.body.pipe(res);
+    // pipeline, not pipe: a store failure or a client gone mid-way destroys both ends instead of leaving one open.
+    await pipeline(object.body, res);
   });
 
   router.get('/receipts/:receiptId/pages/:page', buildRole(...ANY_MEMBER), async (req, res) => {
@@ -120,7 +122,7 @@ export function receiptsRoutes(deps: { store: ObjectStore; queue: JobQueue }): R
     const object = await deps.store.stream(page.key);
     res.setHeader('Content-Type', 'image/png');
     res.setHeader('Cache-Control', 'private, max-age=3600');
-    object.body.pipe(res);
+    await pipeline(object.body, res);
   });
 
   router.patch('/receipts/:receiptId', buildRole(...EDITORS), validBody(updateReceiptRequest), async (req, res) => {
