@@ -49,11 +49,26 @@ log(`Set-up done in ${((performance.now() - setupStarted) / 1000).toFixed(1)} s 
 const children = [];
 let stopping = false;
 
-function startChild(name, script) {
+/**
+ * Starts a child. A child that stops on its own stops everything, unless it is `restartable` (the reading worker:
+ * the site keeps serving without it), which is started again after 1, 2, 4 ... at most 30 s; a run of over a
+ * minute counts as healthy and resets the wait.
+ */
+function startChild(name, script, { restartable = false, failuresInARow = 0 } = {}) {
+  const startedAt = Date.now();
   const child = spawn(npmBin('tsx'), [path.join(ROOT, script)], { cwd: ROOT, env, stdio: 'inherit', detached: true });
   child.on('exit', (code, signal) => {
     child.exited = true;
-    if (!stopping) {
+    if (!stopping && restartable) {
+      const failures = Date.now() - startedAt > 60_000 ? 1 : failuresInARow + 1;
+      const waitMs = Math.min(30_000, 1000 * 2 ** (failures - 1));
+      log(`The ${name} stopped (${signal ?? `exit code ${code}`}); starting it again in ${waitMs / 1000} s.`);
+      setTimeout(() => {
+        if (stopping) return;
+        children.splice(children.indexOf(child), 1);
+        startChild(name, script, { restartable, failuresInARow: failures });
+      }, waitMs);
+    } else if (!stopping) {
       log(`The ${name} stopped (${signal ?? `exit code ${code}`}); stopping the rest.`);
       stopAll(code || 1);
     } else if (children.every((other) => other.exited)) {
@@ -107,7 +122,7 @@ startChild('fake S3 server', 'backend/src/storage/fake-s3-server.ts');
 // The server and the worker make the bucket on start, so the store must answer first.
 const storeUp = await waitUntilAnswering(s3Url);
 startChild('server', 'backend/src/server.ts');
-startChild('receipt reading worker', 'backend/src/jobs/worker.ts');
+startChild('receipt reading worker', 'backend/src/jobs/worker.ts', { restartable: true });
 if (!storeUp || !(await waitUntilAnswering(mailUrl)) || !(await waitUntilAnswering(appUrl))) {
   if (!stopping) {
     log('The servers did not answer within a minute; stopping.');

@@ -19,10 +19,27 @@ function integer(value: string | undefined, fallback: number, name: string): num
   return Number(value);
 }
 
+const DEVELOPMENT_SESSION_SECRET = 'tallyhood-development-session-secret';
+const MIN_SESSION_SECRET_LENGTH = 32;
+
+/** A deployment (NODE_ENV=production) must not start with the development defaults that make sessions forgeable or sniffable. */
+function checkDeploymentDefaults(env: NodeJS.ProcessEnv): void {
+  const secret = env.SESSION_SECRET ?? '';
+  if (!secret || secret === DEVELOPMENT_SESSION_SECRET) {
+    throw new Error('SESSION_SECRET must be set to a secret of your own when NODE_ENV=production: the built-in one is public, and anyone could forge a session with it.');
+  }
+  if (secret.length < MIN_SESSION_SECRET_LENGTH) {
+    throw new Error(`SESSION_SECRET must be at least ${MIN_SESSION_SECRET_LENGTH} characters when NODE_ENV=production (for example \`openssl rand -base64 48\`).`);
+  }
+  if (env.COOKIE_SECURE !== 'true') {
+    throw new Error('COOKIE_SECURE must be "true" when NODE_ENV=production, so the session cookie is sent over HTTPS only. Serve the app behind HTTPS.');
+  }
+}
+
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
   const production = env.NODE_ENV === 'production';
   const port = integer(env.PORT, 3000, 'PORT');
-  if (production && !env.SESSION_SECRET) throw new Error('SESSION_SECRET must be set in production.');
+  if (production) checkDeploymentDefaults(env);
   return {
     port,
     appUrl: (env.APP_URL ?? `http://127.0.0.1:${port}`).replace(/\/$/, ''),
@@ -34,7 +51,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
       password: env.PGPASSWORD ?? 'tallyhood',
       dbName: env.PGDATABASE ?? 'tallyhood',
     },
-    sessionSecret: env.SESSION_SECRET ?? 'tallyhood-development-session-secret',
+    sessionSecret: env.SESSION_SECRET ?? DEVELOPMENT_SESSION_SECRET,
     secureCookies: env.COOKIE_SECURE === 'true',
     smtp: {
       host: env.SMTP_HOST ?? '127.0.0.1',

@@ -11,7 +11,8 @@ export const emailSchema = z
 export const newPasswordSchema = z
   .string({ error: 'Enter a password.' })
   .min(10, 'Use at least 10 characters for the password.')
-  .max(200, 'A password is at most 200 characters.');
+  .max(200, 'A password is at most 200 characters.')
+  .refine((password) => password.trim().length > 0, 'A password of spaces only is too easy to guess: use letters, digits or words too.');
 
 export const signUpRequest = z.object({
   email: emailSchema,

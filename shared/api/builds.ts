@@ -3,13 +3,9 @@ import { z } from 'zod';
 import { code as currencyByCode } from 'currency-codes';
 import { BUILD_STATUSES, BuildRole, BuildStatus, INVITABLE_ROLES, InvitableRole } from '../enums';
 import { emailSchema } from './auth';
+import { calendarDate } from './dates';
 
-const isoDate = z
-  .string()
-  .regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-11-14.')
-  .refine((value) => !Number.isNaN(Date.parse(`${value}T00:00:00Z`)) && new Date(`${value}T00:00:00Z`).toISOString().startsWith(value), 'That date does not exist.');
-
-const optionalIsoDate = z.union([isoDate, z.null()]).optional();
+const optionalIsoDate = z.union([calendarDate, z.null()]).optional();
 
 export const currencyCodeSchema = z
   .string({ error: 'Choose a currency.' })
@@ -20,6 +16,8 @@ export const currencyCodeSchema = z
 export const localeSchema = z
   .string()
   .trim()
+  // The column is 35 wide, the length RFC 5646 §4.4.1 asks every implementation to store.
+  .max(35, 'A language tag is at most 35 characters, such as en-US or en-GB.')
   .refine((value) => {
     try {
       return Intl.getCanonicalLocales(value).length === 1;

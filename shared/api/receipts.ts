@@ -2,11 +2,11 @@
 import { z } from 'zod';
 import { CORE_STATES, CoreState, PartStatus, RECEIPT_LINE_KINDS, ReceiptLineKind, ReceiptState, ReviewState } from '../enums';
 import { moneyString } from '../money';
+import { calendarDate } from './dates';
 import { createPartRequest } from './parts';
 
 const uuid = z.uuid({ error: 'Choose an existing item.' });
 const version = z.number({ error: 'Send the version you last saw.' }).int().min(1);
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-11-14.');
 const signedMoney = moneyString({ maxDecimals: 4, allowNegative: true });
 const nullableMoney = z.union([signedMoney, z.null()]);
 
@@ -15,11 +15,13 @@ export const ACCEPTED_UPLOAD_LABEL = 'JPEG, PNG, WebP or HEIC photos, or PDF inv
 export const MAX_UPLOAD_BYTES = 20 * 1024 * 1024;
 export const MAX_UPLOAD_FILES = 10;
 export const MAX_PDF_PAGES = 20;
+/** A photo's pixel count (width × height) at most: 40 megapixels is past any phone camera, and bounds the memory a decode takes. */
+export const MAX_UPLOAD_MEGAPIXELS = 40;
 
 export const updateReceiptRequest = z
   .object({
     vendorName: z.string().trim().max(120, 'A shop name is at most 120 characters.').optional(),
-    purchaseDate: z.union([isoDate, z.null()]).optional(),
+    purchaseDate: z.union([calendarDate, z.null()]).optional(),
     receiptNumber: z.string().trim().max(80, 'A receipt number is at most 80 characters.').optional(),
     subtotal: nullableMoney.optional(),
     tax: nullableMoney.optional(),
@@ -100,7 +102,7 @@ export const fileReceiptRequest = z
   .strict();
 export type FileReceiptRequest = z.input<typeof fileReceiptRequest>;
 
-export const updateCoreRequest = z.object({ state: z.enum(CORE_STATES, { error: `Choose: ${CORE_STATES.join(', ')}.` }).optional(), dueDate: isoDate.optional(), version }).strict();
+export const updateCoreRequest = z.object({ state: z.enum(CORE_STATES, { error: `Choose: ${CORE_STATES.join(', ')}.` }).optional(), dueDate: calendarDate.optional(), version }).strict();
 export type UpdateCoreRequest = z.input<typeof updateCoreRequest>;
 
 export interface BoxDto {

@@ -86,6 +86,42 @@ describe('sign-up and sign-in', () => {
     expect(statuses.slice(0, 10)).toEqual(Array(10).fill(401));
     expect(statuses[10]).toBe(429);
   });
+
+  it('limits one password sprayed over many accounts from one address: 30 failures, then 429', async () => {
+    const sprayer = await new ApiClient(t.app, { clientAddress: '203.0.113.7' }).init();
+    const statuses: number[] = [];
+    for (let i = 0; i < 31; i += 1) statuses.push((await sprayer.post('/api/auth/sign-in', { email: uniqueEmail(`spray-${i}`), password: 'Summer2026!!' })).status);
+    expect(statuses.slice(0, 30)).toEqual(Array(30).fill(401));
+    expect(statuses[30]).toBe(429);
+    // Another address is not affected.
+    const { email } = await signedUpClient(t.app, 'after-spray');
+    expect((await (await new ApiClient(t.app, { clientAddress: '203.0.113.8' }).init()).post('/api/auth/sign-in', { email, password: TEST_PASSWORD })).status).toBe(200);
+  });
+
+  it('limits failures on one account from many addresses: 10, then 429', async () => {
+    const { email } = await signedUpClient(t.app, 'many-addresses');
+    const statuses: number[] = [];
+    for (let i = 0; i < 11; i += 1) {
+      statuses.push((await (await new ApiClient(t.app, { clientAddress: `198.51.100.${i + 1}` }).init()).post('/api/auth/sign-in', { email, password: 'wrong-password-y' })).status);
+    }
+    expect(statuses.slice(0, 10)).toEqual(Array(10).fill(401));
+    expect(statuses[10]).toBe(429);
+  });
+
+  it('never counts successful sign-ins: a dozen devices signing in to one account all get in', async () => {
+    const { email } = await signedUpClient(t.app, 'devices');
+    const statuses: number[] = [];
+    for (let i = 0; i < 12; i += 1) statuses.push((await (await new ApiClient(t.app, { clientAddress: '192.0.2.44' }).init()).post('/api/auth/sign-in', { email, password: TEST_PASSWORD })).status);
+    expect(statuses).toEqual(Array(12).fill(200));
+  });
+
+  it('refuses a password of spaces only, naming the field', async () => {
+    const email = uniqueEmail('spaces');
+    const res = await (await new ApiClient(t.app).init()).post('/api/auth/sign-up', { email, displayName: 'Space Bar', password: ' '.repeat(12) });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields).toEqual({ password: 'A password of spaces only is too easy to guess: use letters, digits or words too.' });
+    expect(await userCount(email)).toBe(0);
+  });
 });
 
 describe('CSRF (double-submit cookie, OWASP CSRF Prevention Cheat Sheet)', () => {
@@ -150,6 +186,39 @@ describe('password reset', () => {
     const res = await client.post('/api/auth/password-reset/confirm', { token, password: 'another-new-password' });
     expect(res.status).toBe(400);
     expect(res.body.error.fields).toHaveProperty('token');
+  });
+
+  it('answers before the mail is sent, so a known address does not answer slower than an unknown one', async () => {
+    const { email } = await signedUpClient(t.app, 'reset-fast');
+    const send = t.mailer.send;
+    let release!: () => void;
+    const held = new Promise<void>((resolve) => (release = resolve));
+    t.mailer.send = async (message) => {
+      await held;
+      return send.call(t.mailer, message);
+    };
+    try {
+      const answer = await Promise.race([
+        (await new ApiClient(t.app).init()).post('/api/auth/password-reset', { email }),
+        new Promise<'waited for the mail'>((resolve) => setTimeout(() => resolve('waited for the mail'), 2000)),
+      ]);
+      expect(answer === 'waited for the mail' ? answer : answer.status).toBe(202);
+    } finally {
+      t.mailer.send = send;
+      release();
+    }
+    expect((await t.mail.waitFor((m) => m.to.includes(email))).subject).toBe('Reset your Tallyhood password');
+  });
+
+  it('lets a good link through after five bad ones from the same address', async () => {
+    const { email } = await signedUpClient(t.app, 'reset-after-bogus');
+    const client = await new ApiClient(t.app, { clientAddress: '192.0.2.99' }).init();
+    for (let i = 0; i < 5; i += 1) {
+      expect((await client.post('/api/auth/password-reset/confirm', { token: `bogus-token-${i}-`.padEnd(43, 'x'), password: 'another-new-password' })).status).toBe(400);
+    }
+    await client.post('/api/auth/password-reset', { email });
+    const token = tokenFrom((await t.mail.waitFor((m) => m.to.includes(email))).text);
+    expect((await client.post('/api/auth/password-reset/confirm', { token, password: 'another-new-password' })).status).toBe(204);
   });
 
   it('answers the same for an unknown address and sends nothing', async () => {

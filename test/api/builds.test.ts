@@ -88,6 +88,25 @@ it('archives and restores a build; archived builds leave the default list', asyn
   expect(restored.body.archived).toBe(false);
 });
 
+it('keeps an archived build read-only until it is restored: writes answer 409 and change nothing', async () => {
+  const build = await create({ ...NEW_BUILD, name: 'Read-only' });
+  expect((await owner.delete(`/api/builds/${build.id}`)).status).toBe(204);
+  const message = 'This build is archived, so it is read-only. Its owner can restore it from the archived builds to change it again.';
+  const renamed = await owner.patch(`/api/builds/${build.id}`, { name: 'Renamed', version: build.version });
+  expect(renamed.status).toBe(409);
+  expect(renamed.body.error.message).toBe(message);
+  const systems = (await owner.get(`/api/builds/${build.id}/systems`)).body.systems;
+  const part = await owner.post(`/api/builds/${build.id}/parts`, { systemId: systems[0].id, description: 'Thermostat', quantity: '1', estimatedUnitCost: '12.00' });
+  expect(part.status).toBe(409);
+  expect((await owner.post(`/api/builds/${build.id}/invites`, { email: 'someone@example.test', role: 'crew' })).status).toBe(409);
+  // Reading still works, and nothing changed.
+  expect((await owner.get(`/api/builds/${build.id}`)).body).toMatchObject({ name: 'Read-only', archived: true });
+  expect((await owner.get(`/api/builds/${build.id}/parts`)).body.parts).toEqual([]);
+  // Restored, it takes writes again.
+  expect((await owner.post(`/api/builds/${build.id}/restore`)).status).toBe(200);
+  expect((await owner.patch(`/api/builds/${build.id}`, { name: 'Renamed', version: (await owner.get(`/api/builds/${build.id}`)).body.version })).body.name).toBe('Renamed');
+});
+
 it('answers 404 for a build id that is not a uuid or does not exist', async () => {
   expect((await owner.get('/api/builds/not-a-uuid')).status).toBe(404);
   expect((await owner.get('/api/builds/00000000-0000-4000-8000-000000000000')).status).toBe(404);

@@ -42,9 +42,11 @@ it('invites by e-mail; a signed-in person accepts and gets the role', async () =
   expect(accepted.body).toEqual({ buildId: build.id });
   expect((await guest.client.get(`/api/builds/${build.id}`)).body.role).toBe('reviewer');
 
-  // Single use.
-  expect((await guest.client.post(`/api/invites/${token}/accept`)).status).toBe(404);
-  expect((await new ApiClient(t.app).get(`/api/invites/${token}`)).status).toBe(404);
+  // Single use: a used link says so.
+  const reused = await guest.client.post(`/api/invites/${token}/accept`);
+  expect(reused.status).toBe(409);
+  expect(reused.body.error.message).toBe('This invite link was already used. Ask the owner of the build for a new one.');
+  expect((await new ApiClient(t.app).get(`/api/invites/${token}`)).status).toBe(409);
 });
 
 it('lets a new person create an account from the invite link', async () => {

@@ -109,6 +109,11 @@ describe('upload and reading', () => {
     }
     const document = await client.get(`/api/builds/${build.id}/receipts/${res.body.receipts[0].id}/document`);
     expect(document.headers['content-type']).toBe('application/pdf');
+    // A PDF is downloaded, never shown as a page of the app, and sandboxed if a browser shows it anyway.
+    expect(document.headers['content-disposition']).toBe('attachment; filename="invoice.pdf"');
+    expect(document.headers['content-security-policy']).toBe('sandbox');
+    const photo = await client.get(`/api/builds/${build.id}/receipts/${res.body.receipts[1].id}/document`);
+    expect(photo.headers['content-disposition']).toBe('inline; filename="slip.png"');
   });
 
   it('refuses a file that is not a photo or a PDF, naming it, and saves nothing', async () => {
@@ -131,6 +136,18 @@ describe('upload and reading', () => {
     expect(second.duplicateOf).toEqual([first.id]);
     const list = (await client.get(`/api/builds/${build.id}/receipts`)).body.receipts;
     expect(list.find((r: { id: string }) => r.id === first.id).duplicateOf).toEqual([second.id]);
+  });
+
+  it('marks a photo that cannot be decoded unreadable at once, with a note, instead of retrying it', async () => {
+    const { client, build } = await newBuild();
+    // A real PNG cut off after its first 2,000 bytes: the header reads, the picture does not.
+    const uploaded = (await upload(client, build.id, [{ name: 'cut.png', bytes: fixture('counter-1.png').subarray(0, 2000) }])).body.receipts[0];
+    const note = 'This photo could not be opened: it may be damaged, cut off or too large. Upload it again, or enter the lines by hand.';
+    expect(await waitForState(client, build.id, uploaded.id, ['failed'])).toMatchObject({ state: 'failed', readingError: note });
+    // Read again on a first attempt (not the last one pg-boss allows), it fails for good rather than throwing for a retry.
+    await t.orm.em.fork().nativeUpdate(Receipt, { id: uploaded.id }, { state: 'reading', readingError: null });
+    expect(await readQueuedReceipt({ orm: t.orm, store: t.store, read: readWithPageImages }, uploaded.id, false)).toBe('failed');
+    expect((await t.orm.em.fork().findOneOrFail(Receipt, { id: uploaded.id })).readingError).toBe(note);
   });
 
   it('never doubles lines when a reading is retried after a crash', async () => {

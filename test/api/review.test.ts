@@ -60,3 +60,16 @@ it('lets the reviewer approve one receipt and question another; the uploader is 
   expect(trail[0].after).toMatchObject({ total: '80' });
   expect((await partner.client.get(`/api/builds/${build.id}/review-queue`)).body.receipts).toEqual([]);
 });
+
+it('never mails a comment to an uploader who has left the build', async () => {
+  const owner = await signedUpClient(t.app, 'review-owner');
+  const build = (await owner.client.post('/api/builds', NEW_BUILD)).body;
+  const engine = (await owner.client.get(`/api/builds/${build.id}/systems`)).body.systems[0].id;
+  const crew = await join(owner.client, build.id, 'crew');
+  const receipt = await filedReceipt(t, crew.client, build.id, { vendorName: 'Harbour Fasteners', purchaseDate: '2026-11-03', total: '9.00' }, [{ kind: 'part', description: 'Bolts', amount: '9.00', systemId: engine }]);
+  expect((await crew.client.delete(`/api/builds/${build.id}/members/${crew.userId}`)).status).toBe(204);
+
+  expect((await owner.client.post(`/api/builds/${build.id}/receipts/${receipt.id}/comments`, { body: 'Which bolts were these?' })).status).toBe(201);
+  // The comment is mailed before the answer, so a mail would be here by now.
+  expect(t.mail.messages.filter((m) => m.to.includes(crew.email) && m.subject.includes('commented'))).toEqual([]);
+});

@@ -9,8 +9,10 @@ export class ApiClient {
   private readonly agent: ReturnType<typeof request.agent>;
   private csrf = '';
 
-  constructor(app: Express) {
+  /** `clientAddress` stands in for the caller's IP address (the app trusts X-Forwarded-For from loopback). */
+  constructor(app: Express, options: { clientAddress?: string } = {}) {
     this.agent = request.agent(app);
+    if (options.clientAddress) this.agent.set('X-Forwarded-For', options.clientAddress);
   }
 
   /** Fetches the XSRF-TOKEN cookie the way the client does at start. */

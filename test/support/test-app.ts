@@ -5,7 +5,7 @@ import type { Express } from 'express';
 import { createApp } from '../../backend/src/app';
 import { loadConfig } from '../../backend/src/config';
 import { ormConfig } from '../../backend/src/db/mikro-orm.config';
-import { createMailer } from '../../backend/src/mail/mailer';
+import { createMailer, type Mailer } from '../../backend/src/mail/mailer';
 import { startFakeMailServer, type FakeMailServer } from '../../backend/src/mail/fake-mail-server';
 import { startJobQueue, type JobQueue } from '../../backend/src/jobs/queue';
 import { startFakeS3, type FakeS3 } from '../../backend/src/storage/fake-s3-server';
@@ -18,6 +18,8 @@ export interface TestApp {
   url: string;
   orm: MikroORM;
   mail: FakeMailServer;
+  /** The app's own mailer: a test may hold its sends back to see what waits for them. */
+  mailer: Mailer;
   store: ObjectStore;
   queue: JobQueue;
   close(): Promise<void>;
@@ -55,6 +57,7 @@ export async function startTestApp(options: { serveClient?: boolean; clientDist?
     url: config.appUrl,
     orm,
     mail,
+    mailer,
     store,
     queue,
     async close() {

@@ -13,15 +13,29 @@ import type { AppPassport } from './passport';
 import { confirmPasswordReset, createAccount, requestPasswordReset, userDto } from './auth.service';
 import type { User } from './user.entity';
 
-function limiter(windowMs: number, limit: number, what: string) {
+interface LimitRule {
+  windowMs: number;
+  limit: number;
+  what: string;
+  /** What is counted against: the client's address, the account's e-mail, or both together. */
+  key: (req: Request) => string;
+  /** Count only refused attempts, so a person signing in on several devices is never locked out. */
+  failuresOnly?: boolean;
+}
+
+const byAddress = (req: Request) => ipKeyGenerator(req.ip ?? '');
+const byAccount = (req: Request) => String(req.body?.email ?? '').trim().toLowerCase();
+const byAddressAndAccount = (req: Request) => `${byAddress(req)}|${byAccount(req)}`;
+
+function limiter(rule: LimitRule) {
   return rateLimit({
-    windowMs,
-    limit,
+    windowMs: rule.windowMs,
+    limit: rule.limit,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
-    // Per address and account, so one noisy client does not lock everyone out.
-    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').trim().toLowerCase()}`,
-    handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', `Too many ${what} attempts. Wait a few minutes, then try again.`)),
+    keyGenerator: rule.key,
+    skipSuccessfulRequests: rule.failuresOnly ?? false,
+    handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', `Too many ${rule.what} attempts. Wait a few minutes, then try again.`)),
   });
 }
 
@@ -31,9 +45,20 @@ function logIn(req: Request, user: User): Promise<void> {
 
 export function authRoutes(passport: AppPassport, mailer: Mailer, config: AppConfig): Router {
   const router = Router();
-  const signInLimit = limiter(15 * 60 * 1000, 10, 'sign-in');
-  const signUpLimit = limiter(15 * 60 * 1000, 10, 'sign-up');
-  const resetLimit = limiter(60 * 60 * 1000, 5, 'reset');
+  const fifteenMinutes = 15 * 60 * 1000;
+  const hour = 60 * 60 * 1000;
+  // Sign-in counts failures only, per address (one password sprayed over many accounts) and per account (many
+  // addresses trying one account) separately. The numbers are DEVELOPERS.md's "Sign-in and reset limits".
+  const signInLimits = [
+    limiter({ windowMs: fifteenMinutes, limit: 30, what: 'sign-in', key: byAddress, failuresOnly: true }),
+    limiter({ windowMs: fifteenMinutes, limit: 10, what: 'sign-in', key: byAccount, failuresOnly: true }),
+  ];
+  const signUpLimit = limiter({ windowMs: fifteenMinutes, limit: 10, what: 'sign-up', key: byAddressAndAccount });
+  // Asking for links: per address and account, so one address cannot be flooded with mail.
+  const resetRequestLimit = limiter({ windowMs: hour, limit: 5, what: 'reset', key: byAddressAndAccount });
+  // Confirming: failures only, per address; a link is 256 random bits, so this only curbs load, and a few bad
+  // links from one address never block a good one.
+  const resetConfirmLimit = limiter({ windowMs: hour, limit: 50, what: 'reset', key: byAddress, failuresOnly: true });
 
   router.get('/me', (req, res) => {
     const body: MeResponse = { user: req.user ? userDto(req.user) : null };
@@ -52,7 +77,7 @@ export function authRoutes(passport: AppPassport, mailer: Mailer, config: AppCon
     res.status(201).json(buildId ? { user: userDto(user), buildId } : { user: userDto(user) });
   });
 
-  router.post('/sign-in', signInLimit, validBody(signInRequest), (req, res, next) => {
+  router.post('/sign-in', ...signInLimits, validBody(signInRequest), (req, res, next) => {
     passport.authenticate('local', async (error: unknown, user: User | false) => {
       try {
         if (error) throw error;
@@ -77,12 +102,14 @@ export function authRoutes(passport: AppPassport, mailer: Mailer, config: AppCon
     });
   });
 
-  router.post('/password-reset', resetLimit, validBody(resetRequest), async (req, res) => {
-    await requestPasswordReset(em(), mailer, config, req.body.email);
+  router.post('/password-reset', resetRequestLimit, validBody(resetRequest), (req, res) => {
+    // The same answer at once for every address; the link is made and mailed after it, so neither the answer
+    // nor its timing says whether the address has an account.
     res.status(202).json({ message: 'If an account exists for that address, a link is on its way.' });
+    requestPasswordReset(em().fork(), mailer, config, req.body.email).catch((error: unknown) => console.error('password reset mail failed:', error));
   });
 
-  router.post('/password-reset/confirm', resetLimit, validBody(resetConfirmRequest), async (req, res) => {
+  router.post('/password-reset/confirm', resetConfirmLimit, validBody(resetConfirmRequest), async (req, res) => {
     await confirmPasswordReset(em(), req.body);
     res.status(204).end();
   });

@@ -1,5 +1,5 @@
 // Accounts: sign-up and password reset by an e-mailed one-time link.
-import { LockMode } from '@mikro-orm/core';
+import { LockMode, UniqueConstraintViolationException } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import type { ResetConfirmRequest, SignUpRequest, UserDto } from '../../../shared/api/auth';
 import type { AppConfig } from '../config';
@@ -16,23 +16,32 @@ export function userDto(user: User): UserDto {
   return { id: user.id, email: user.email, displayName: user.displayName };
 }
 
+const accountExists = () =>
+  new Conflict('An account with this e-mail already exists. Sign in instead, or reset the password.', {
+    email: 'An account with this e-mail already exists.',
+  });
+
 export async function createAccount(em: EntityManager, input: Omit<SignUpRequest, 'inviteToken'>): Promise<User> {
   const email = input.email.toLowerCase();
-  if (await em.count(User, { email })) {
-    throw new Conflict('An account with this e-mail already exists. Sign in instead, or reset the password.', {
-      email: 'An account with this e-mail already exists.',
-    });
+  // Hashed first, so a known address costs as long as a new one.
+  const passwordHash = await hashPassword(input.password);
+  if (await em.count(User, { email })) throw accountExists();
+  const user = em.create(User, { email, displayName: input.displayName, passwordHash });
+  try {
+    await em.flush();
+  } catch (error) {
+    // Two sign-ups for one address at the same moment: the unique index decides, the loser hears the same answer.
+    if (error instanceof UniqueConstraintViolationException) throw accountExists();
+    throw error;
   }
-  const user = em.create(User, { email, displayName: input.displayName, passwordHash: await hashPassword(input.password) });
-  await em.flush();
   return user;
 }
 
-/** Sends a reset link when the account exists; says nothing either way so addresses cannot be probed. */
+/** Sends a reset link when the account exists; runs after the answer, which says nothing either way. */
 export async function requestPasswordReset(em: EntityManager, mailer: Mailer, config: AppConfig, email: string): Promise<void> {
+  const { token, tokenHash } = newToken();
   const user = await em.findOne(User, { email: email.toLowerCase() });
   if (!user) return;
-  const { token, tokenHash } = newToken();
   em.create(PasswordReset, { user, tokenHash, expiresAt: new Date(Date.now() + RESET_LIFETIME_MS) });
   await em.flush();
   await mailer.send(passwordResetMail({ to: user.email, link: `${config.appUrl}/reset-password/${token}` }));

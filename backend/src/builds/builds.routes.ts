@@ -1,7 +1,7 @@
 // Builds: list and create for a signed-in person; view for members; edit, archive and restore for the owner.
 import { Router } from 'express';
 import { createBuildRequest, updateBuildRequest } from '../../../shared/api/builds';
-import { ANY_MEMBER, buildRole, em, membershipOf, signedIn } from '../http/build-access';
+import { ANY_MEMBER, buildRole, buildRoleEvenArchived, em, membershipOf, signedIn } from '../http/build-access';
 import { validBody } from '../http/validate';
 import { buildDto, createBuild, listBuilds, setArchived, updateBuild } from './builds.service';
 
@@ -27,12 +27,12 @@ export function buildsRoutes(): Router {
     res.json(buildDto(build, 'owner'));
   });
 
-  router.delete('/:buildId', buildRole('owner'), async (_req, res) => {
+  router.delete('/:buildId', buildRoleEvenArchived('owner'), async (_req, res) => {
     await setArchived(em(), membershipOf(res).build, true);
     res.status(204).end();
   });
 
-  router.post('/:buildId/restore', buildRole('owner'), async (_req, res) => {
+  router.post('/:buildId/restore', buildRoleEvenArchived('owner'), async (_req, res) => {
     const build = await setArchived(em(), membershipOf(res).build, false);
     res.json(buildDto(build, 'owner'));
   });

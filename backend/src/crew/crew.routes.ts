@@ -31,7 +31,7 @@ export function crewRoutes(mailer: Mailer, config: AppConfig): Router {
 
   router.patch('/members/:userId', buildRole('owner'), validBody(changeRoleRequest), async (req, res) => {
     if (!isUuid(req.params.userId)) throw new NotFound('That member');
-    res.json(await changeRole(em(), membershipOf(res).build, req.params.userId, req.body.role));
+    res.json(await changeRole(em(), membershipOf(res).build, req.user!.id, req.params.userId, req.body.role));
   });
 
   // The owner removes anyone; any member may remove themself (leave the build).
@@ -39,7 +39,7 @@ export function crewRoutes(mailer: Mailer, config: AppConfig): Router {
     const membership = membershipOf(res);
     if (!isUuid(req.params.userId)) throw new NotFound('That member');
     if (membership.role !== 'owner' && req.params.userId !== req.user!.id) throw new Forbidden();
-    await removeMember(em(), membership.build, req.params.userId);
+    await removeMember(em(), membership.build, req.user!.id, req.params.userId);
     res.status(204).end();
   });
 

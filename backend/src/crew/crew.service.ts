@@ -1,4 +1,5 @@
 // Crew: members of a build, invites by e-mail with a role, role changes and removal; a build keeps an owner.
+import { LockMode } from '@mikro-orm/core';
 import { afterCommit } from '../http/request-transaction';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import type { InviteDto, InvitePreviewDto, MemberDto, MembersResponse } from '../../../shared/api/builds';
@@ -9,7 +10,7 @@ import type { User } from '../auth/user.entity';
 import type { Build } from '../builds/build.entity';
 import { Membership } from '../builds/membership.entity';
 import type { AppConfig } from '../config';
-import { Conflict, NotFound } from '../http/errors';
+import { Conflict, Forbidden, NotFound } from '../http/errors';
 import type { Mailer } from '../mail/mailer';
 import { inviteMail } from '../mail/templates';
 import { Invite } from './invite.entity';
@@ -66,13 +67,15 @@ export async function inviteMember(
   return inviteDto(invite);
 }
 
-async function openInvite(em: EntityManager, token: string): Promise<Invite> {
+/** With `lock`, the invite's row is held until the transaction ends, so two people cannot both use it. */
+async function openInvite(em: EntityManager, token: string, lock = false): Promise<Invite> {
   const invite = await em.findOne(
     Invite,
-    { tokenHash: hashToken(token), acceptedAt: null, withdrawnAt: null, expiresAt: { $gt: new Date() } },
-    { populate: ['build', 'invitedBy'] },
+    { tokenHash: hashToken(token), withdrawnAt: null, expiresAt: { $gt: new Date() } },
+    { populate: ['build', 'invitedBy'], ...(lock ? { lockMode: LockMode.PESSIMISTIC_WRITE, lockTableAliases: ['i0'], refresh: true } : {}) },
   );
   if (!invite || invite.build.archivedAt) throw new NotFound('That invite');
+  if (invite.acceptedAt) throw new Conflict('This invite link was already used. Ask the owner of the build for a new one.');
   return invite;
 }
 
@@ -87,15 +90,17 @@ export async function previewInvite(em: EntityManager, token: string): Promise<I
   };
 }
 
-/** The invite is the capability: whoever holds the link joins with its role, once. */
+/** The invite is the capability: whoever holds the link joins with its role, once (the row lock makes it once). */
 export async function acceptInvite(em: EntityManager, user: User, token: string): Promise<Build> {
-  const invite = await openInvite(em, token);
-  const already = await em.findOne(Membership, { build: invite.build, user });
-  if (!already) em.create(Membership, { build: invite.build, user, role: invite.role });
-  invite.acceptedAt = new Date();
-  invite.acceptedBy = user;
-  await em.flush();
-  return invite.build;
+  return em.transactional(async (tx) => {
+    const invite = await openInvite(tx, token, true);
+    const already = await tx.findOne(Membership, { build: invite.build, user });
+    if (!already) tx.create(Membership, { build: invite.build, user, role: invite.role });
+    invite.acceptedAt = new Date();
+    invite.acceptedBy = user;
+    await tx.flush();
+    return invite.build;
+  });
 }
 
 export async function withdrawInvite(em: EntityManager, build: Build, inviteId: string): Promise<void> {
@@ -106,9 +111,22 @@ export async function withdrawInvite(em: EntityManager, build: Build, inviteId: 
 }
 
 async function memberOf(em: EntityManager, build: Build, userId: string): Promise<Membership> {
-  const member = await em.findOne(Membership, { build, user: userId }, { populate: ['user'] });
+  const member = await em.findOne(Membership, { build, user: userId }, { populate: ['user'], refresh: true });
   if (!member) throw new NotFound('That member');
   return member;
+}
+
+/**
+ * Role changes and removals of one build run one at a time: the build's row is locked, then the caller's role is
+ * read again, so two owners demoting each other at once cannot leave the build without one.
+ */
+async function lockedForCrewChange<T>(em: EntityManager, build: Build, callerId: string, change: (tx: EntityManager, callerRole: BuildRole) => Promise<T>): Promise<T> {
+  return em.transactional(async (tx) => {
+    await tx.execute('select id from build where id = ? for update', [build.id]);
+    const [caller] = await tx.execute<{ role: BuildRole }[]>('select role from membership where build_id = ? and user_id = ?', [build.id, callerId]);
+    if (!caller) throw new NotFound('That build');
+    return change(tx, caller.role);
+  });
 }
 
 async function ensureAnotherOwner(em: EntityManager, build: Build, member: Membership, message: string) {
@@ -117,16 +135,23 @@ async function ensureAnotherOwner(em: EntityManager, build: Build, member: Membe
   if (owners <= 1) throw new Conflict(message);
 }
 
-export async function changeRole(em: EntityManager, build: Build, userId: string, role: BuildRole): Promise<MemberDto> {
-  const member = await memberOf(em, build, userId);
-  if (role !== 'owner') await ensureAnotherOwner(em, build, member, 'A build needs an owner: make someone else owner first.');
-  member.role = role;
-  await em.flush();
-  return memberDto(member);
+export async function changeRole(em: EntityManager, build: Build, callerId: string, userId: string, role: BuildRole): Promise<MemberDto> {
+  return lockedForCrewChange(em, build, callerId, async (tx, callerRole) => {
+    if (callerRole !== 'owner') throw new Forbidden();
+    const member = await memberOf(tx, build, userId);
+    if (role !== 'owner') await ensureAnotherOwner(tx, build, member, 'A build needs an owner: make someone else owner first.');
+    member.role = role;
+    await tx.flush();
+    return memberDto(member);
+  });
 }
 
-export async function removeMember(em: EntityManager, build: Build, userId: string): Promise<void> {
-  const member = await memberOf(em, build, userId);
-  await ensureAnotherOwner(em, build, member, 'The last owner cannot leave or be removed: make someone else owner first.');
-  await em.removeAndFlush(member);
+/** The owner removes anyone; any member may remove themself (leave the build). */
+export async function removeMember(em: EntityManager, build: Build, callerId: string, userId: string): Promise<void> {
+  await lockedForCrewChange(em, build, callerId, async (tx, callerRole) => {
+    if (userId !== callerId && callerRole !== 'owner') throw new Forbidden();
+    const member = await memberOf(tx, build, userId);
+    await ensureAnotherOwner(tx, build, member, 'The last owner cannot leave or be removed: make someone else owner first.');
+    await tx.removeAndFlush(member);
+  });
 }

@@ -3,7 +3,9 @@ import { Router, type Request } from 'express';
 import { pipeline } from 'node:stream/promises';
 import type { Build } from '../builds/build.entity';
 import { ANY_MEMBER, buildRole, em, isUuid, membershipOf } from '../http/build-access';
-import { NotFound, ValidationFailed } from '../http/errors';
+import { NotFound } from '../http/errors';
+import { parseInput } from '../http/validate';
+import { dateRangeQuery } from '../../../shared/api/dates';
 import { buildLedger } from '../ledger/ledger.service';
 import type { ObjectStore } from '../storage/object-store';
 import { writeArchive } from './archive';
@@ -13,19 +15,8 @@ import { taxLedgerCsv, type ExportFilter } from './tax-ledger';
 
 /** A system of another build is as unknown as one that does not exist: 404, never an empty file. */
 async function exportFilter(req: Request, build: Build): Promise<ExportFilter> {
-  const fields: Record<string, string> = {};
-  const date = (name: 'from' | 'to') => {
-    const value = req.query[name];
-    if (value === undefined || value === '') return undefined;
-    if (typeof value !== 'string' || !/^\d{4}-\d{2}-\d{2}$/.test(value)) fields[name] = 'Use a date like 2026-11-14.';
-    return value as string;
-  };
-  const filter = { from: date('from'), to: date('to'), systemId: undefined as string | undefined };
-  if (req.query.systemId !== undefined) {
-    if (!isUuid(req.query.systemId)) throw new NotFound('That system');
-    filter.systemId = req.query.systemId;
-  }
-  if (Object.keys(fields).length) throw new ValidationFailed(fields);
+  if (req.query.systemId !== undefined && !isUuid(req.query.systemId)) throw new NotFound('That system');
+  const filter: ExportFilter = { ...parseInput(dateRangeQuery, { from: req.query.from, to: req.query.to }), systemId: req.query.systemId as string | undefined };
   if (filter.systemId && !(await em().count(VehicleSystem, { id: filter.systemId, build }))) throw new NotFound('That system');
   return filter;
 }

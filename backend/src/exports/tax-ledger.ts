@@ -97,5 +97,7 @@ export function taxLedgerCsv(em: EntityManager, build: Build, filter: ExportFilt
   });
   rows.on('end', () => csv.end());
   rows.on('error', (error) => csv.destroy(error));
+  // A download abandoned half-way destroys the CSV: the cursor must go too, or it holds its connection for good.
+  csv.on('close', () => rows.destroy());
   return csv;
 }

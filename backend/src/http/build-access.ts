@@ -5,7 +5,7 @@ import type { EntityManager } from '@mikro-orm/postgresql';
 import type { RequestHandler, Response } from 'express';
 import type { BuildRole } from '../../../shared/enums';
 import { Membership } from '../builds/membership.entity';
-import { Forbidden, NotFound, Unauthenticated } from './errors';
+import { Conflict, Forbidden, NotFound, Unauthenticated } from './errors';
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
@@ -22,8 +22,19 @@ export const signedIn: RequestHandler = (req, _res, next) => {
   next(req.user ? undefined : new Unauthenticated());
 };
 
-/** Requires a membership of :buildId with one of the roles; puts it in res.locals.membership. */
+const READS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+/** Requires a membership of :buildId with one of the roles; puts it in res.locals.membership. An archived build is read-only. */
 export function buildRole(...roles: BuildRole[]): RequestHandler {
+  return buildAccess(roles, { archivedWritable: false });
+}
+
+/** For the few writes that an archived build takes: restoring it (and archiving it again, which changes nothing). */
+export function buildRoleEvenArchived(...roles: BuildRole[]): RequestHandler {
+  return buildAccess(roles, { archivedWritable: true });
+}
+
+function buildAccess(roles: BuildRole[], options: { archivedWritable: boolean }): RequestHandler {
   return async (req, res, next) => {
     if (!req.user) throw new Unauthenticated();
     const buildId = req.params.buildId;
@@ -31,6 +42,9 @@ export function buildRole(...roles: BuildRole[]): RequestHandler {
     const membership = await em().findOne(Membership, { build: buildId, user: req.user.id }, { populate: ['build'] });
     if (!membership) throw new NotFound('That build');
     if (!roles.includes(membership.role)) throw new Forbidden();
+    if (membership.build.archivedAt && !options.archivedWritable && !READS.has(req.method)) {
+      throw new Conflict('This build is archived, so it is read-only. Its owner can restore it from the archived builds to change it again.');
+    }
     res.locals.membership = membership;
     next();
   };

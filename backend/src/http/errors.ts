@@ -1,6 +1,6 @@
 // Domain errors thrown by services and routes, and the one middleware that maps them to the API's error shape.
 import type { ErrorRequestHandler } from 'express';
-import { OptimisticLockError } from '@mikro-orm/core';
+import { OptimisticLockError, UniqueConstraintViolationException } from '@mikro-orm/core';
 import { z } from 'zod';
 import type { ApiErrorBody } from '../../../shared/api/errors';
 
@@ -69,6 +69,13 @@ export function errorBody(code: string, message: string, fields?: Record<string,
 }
 
 export const errorMiddleware: ErrorRequestHandler = (err, _req, res, _next) => {
+  // A stream that failed after its headers went out (a download cut short): the body cannot be an error any more,
+  // so the connection is ended abruptly and the client sees an incomplete download, never a complete-looking one.
+  if (res.headersSent) {
+    if ((err as { code?: string }).code !== 'ERR_STREAM_PREMATURE_CLOSE') console.error('response failed mid-stream:', err);
+    res.destroy();
+    return;
+  }
   if (err instanceof AppError) {
     res.status(err.status).json(errorBody(err.code, err.message, err.fields, err.extra));
     return;
@@ -76,6 +83,12 @@ export const errorMiddleware: ErrorRequestHandler = (err, _req, res, _next) => {
   if (err instanceof OptimisticLockError) {
     const stale = new StaleVersion();
     res.status(stale.status).json(errorBody(stale.code, stale.message));
+    return;
+  }
+  // Two requests creating the same thing at once: the database's unique index refused the second.
+  if (err instanceof UniqueConstraintViolationException) {
+    const conflict = new Conflict('That was just saved by another request. Reload to see it, then try again if needed.');
+    res.status(conflict.status).json(errorBody(conflict.code, conflict.message));
     return;
   }
   if (err instanceof z.ZodError) {

@@ -1,15 +1,14 @@
 // Parts of a build: every member reads; owner and crew add, edit, remove, bulk-change and import.
 import express, { Router, type Request } from 'express';
-import multer from 'multer';
 import { bulkPartsRequest, createPartRequest, updatePartRequest } from '../../../shared/api/parts';
 import { ANY_MEMBER, buildRole, em, isUuid, membershipOf } from '../http/build-access';
 import { NotFound, ValidationFailed } from '../http/errors';
+import { multipartUpload } from '../http/uploads';
 import { validBody } from '../http/validate';
 import { commitImport, previewDto, previewImport } from './parts-import';
 import { bulkUpdateParts, createPart, deletePart, listParts, partDto, updatePart } from './parts.service';
 
 const MAX_CSV_BYTES = 2 * 1024 * 1024;
-const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_CSV_BYTES, files: 1 } });
 const EDITORS = ['owner', 'crew'] as const;
 
 /** The CSV arrives as a text body or as the multipart field "file". */
@@ -45,7 +44,13 @@ export function partsRoutes(): Router {
   router.post(
     '/parts/import',
     buildRole(...EDITORS),
-    upload.single('file'),
+    multipartUpload({
+      field: 'file',
+      maxFiles: 1,
+      maxBytes: MAX_CSV_BYTES,
+      tooLarge: `The CSV file is larger than ${MAX_CSV_BYTES / 1024 / 1024} MB. Split it, or import fewer rows at a time.`,
+      wrongField: 'Send one CSV file, in the field "file".',
+    }),
     express.text({ type: ['text/csv', 'text/plain'], limit: MAX_CSV_BYTES }),
     async (req, res) => {
       const build = membershipOf(res).build;

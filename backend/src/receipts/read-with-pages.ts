@@ -3,9 +3,9 @@ import path from 'node:path';
 import type { DocumentReading, PageImage } from '../jobs/read-receipt.job';
 import { importEsm } from './reading/esm-import';
 import { normaliseImage } from './reading/normalise';
-import { readPdfPages, TEXT_SCALE } from './reading/pdf-text';
+import { MAX_RENDER_PIXELS, readPdfPages, TEXT_SCALE } from './reading/pdf-text';
 import { readDocument } from './reading/read-document';
-import { sniffReceiptType } from './reading/sniff';
+import { sniffReceiptType, UnreadableDocumentError } from './reading/sniff';
 
 type PdfJs = typeof import('pdfjs-dist/legacy/build/pdf.mjs');
 
@@ -29,6 +29,8 @@ async function pdfPageImages(bytes: Buffer): Promise<PageImage[]> {
       }
       const pdfPage = await document.getPage(index + 1);
       const viewport = pdfPage.getViewport({ scale: TEXT_SCALE });
+      // The word boxes are at TEXT_SCALE, so a page too large to render at it cannot be shown: refused, not rendered.
+      if (viewport.width * viewport.height > MAX_RENDER_PIXELS) throw new UnreadableDocumentError('A page of this PDF is too large to show. Send the invoice at a usual paper size.');
       const factory = (document as unknown as { canvasFactory: { create(w: number, h: number): { canvas: { toBuffer(mime: string): Buffer }; context: unknown } } }).canvasFactory;
       const { canvas, context } = factory.create(Math.round(viewport.width), Math.round(viewport.height));
       await pdfPage.render({ canvasContext: context as never, canvas: canvas as never, viewport }).promise;

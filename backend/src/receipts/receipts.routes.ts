@@ -1,7 +1,7 @@
 // Receipts of a build: upload, list, view (with the document and page images), correct, assign lines, file.
 // Every member reads; owner and crew upload and edit (crew until filed); cores change state in one click; returns are listed.
 import { Router, type Response } from 'express';
-import multer from 'multer';
+import { pipeline } from 'node:stream/promises';
 import {
   createLineRequest,
   fileReceiptRequest,
@@ -16,7 +16,9 @@ import {
 import { RECEIPT_STATES, type ReceiptState } from '../../../shared/enums';
 import { ANY_MEMBER, buildRole, em, isUuid, membershipOf } from '../http/build-access';
 import { NotFound, ValidationFailed } from '../http/errors';
-import { validBody } from '../http/validate';
+import { multipartUpload } from '../http/uploads';
+import { parseInput, validBody } from '../http/validate';
+import { dateRangeQuery } from '../../../shared/api/dates';
 import type { JobQueue } from '../jobs/queue';
 import type { ObjectStore } from '../storage/object-store';
 import { listCores, updateCore } from './cores.service';
@@ -30,16 +32,9 @@ import { UnreadableDocumentError } from './reading/sniff';
 import { checkUpload } from './upload-check';
 
 const EDITORS = ['owner', 'crew'] as const;
-const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_UPLOAD_BYTES, files: MAX_UPLOAD_FILES } });
 
 function id(value: unknown, what: string): string {
   if (!isUuid(value)) throw new NotFound(what);
-  return value;
-}
-
-function dateQuery(value: unknown, field: string): string | undefined {
-  if (value === undefined || value === '') return undefined;
-  if (typeof value !== 'string' || !/^\d{4}-\d{2}-\d{2}$/.test(value)) throw new ValidationFailed({ [field]: 'Use a date like 2026-11-14.' });
   return value;
 }
 
@@ -58,11 +53,12 @@ export function receiptsRoutes(deps: { store: ObjectStore; queue: JobQueue }): R
     const state = req.query.state;
     if (state !== undefined && !RECEIPT_STATES.includes(state as ReceiptState)) throw new ValidationFailed({ state: `Choose one of: ${RECEIPT_STATES.join(', ')}.` });
     const systemId = req.query.systemId === undefined ? undefined : id(req.query.systemId, 'That system');
+    const { from, to } = parseInput(dateRangeQuery, { from: req.query.from, to: req.query.to });
     const receipts = await listReceipts(em(), membershipOf(res).build, {
       state: state as ReceiptState | undefined,
       vendor: typeof req.query.vendor === 'string' ? req.query.vendor : undefined,
-      from: dateQuery(req.query.from, 'from'),
-      to: dateQuery(req.query.to, 'to'),
+      from,
+      to,
       systemId,
     });
     res.json({ receipts });
@@ -71,20 +67,13 @@ export function receiptsRoutes(deps: { store: ObjectStore; queue: JobQueue }): R
   router.post(
     '/receipts',
     buildRole(...EDITORS),
-    (req, res, next) =>
-      upload.array('files', MAX_UPLOAD_FILES)(req, res, (error: unknown) => {
-        if (error instanceof multer.MulterError) {
-          const message =
-            error.code === 'LIMIT_FILE_SIZE'
-              ? `A file is larger than ${MAX_UPLOAD_BYTES / 1024 / 1024} MB. Send a smaller photo or PDF.`
-              : error.code === 'LIMIT_FILE_COUNT' || error.code === 'LIMIT_UNEXPECTED_FILE'
-                ? `Send at most ${MAX_UPLOAD_FILES} files at once, in the field "files".`
-                : error.message;
-          next(new ValidationFailed({ files: message }, message));
-          return;
-        }
-        next(error);
-      }),
+    multipartUpload({
+      field: 'files',
+      maxFiles: MAX_UPLOAD_FILES,
+      maxBytes: MAX_UPLOAD_BYTES,
+      tooLarge: `A file is larger than ${MAX_UPLOAD_BYTES / 1024 / 1024} MB. Send a smaller photo or PDF.`,
+      wrongField: `Send at most ${MAX_UPLOAD_FILES} files at once, in the field "files".`,
+    }),
     async (req, res) => {
       const files = (req.files as Express.Multer.File[] | undefined) ?? [];
       if (files.length === 0) throw new ValidationFailed({ files: 'Attach at least one photo or PDF of a receipt.' });
@@ -116,9 +105,14 @@ export function receiptsRoutes(deps: { store: ObjectStore; queue: JobQueue }): R
     const receipt = await receiptOf(res, req.params.receiptId);
     const object = await deps.store.stream(receipt.documentKey);
     res.setHeader('Content-Type', receipt.contentType);
-    res.setHeader('Content-Disposition', `inline; filename="${receipt.originalFilename.replace(/[^\w.-]+/g, '_')}"`);
+    // A PDF can carry script and forms: it is downloaded, never opened as a page of ours, and sandboxed if a browser
+    // shows it anyway. Photos stay inline for the check screen.
+    const pdf = receipt.contentType === 'application/pdf';
+    res.setHeader('Content-Disposition', `${pdf ? 'attachment' : 'inline'}; filename="${receipt.originalFilename.replace(/[^\w.-]+/g, '_')}"`);
+    if (pdf) res.setHeader('Content-Security-Policy', 'sandbox');
     res.setHeader('Cache-Control', 'private, max-age=3600');
-    object.body.pipe(res);
+    // pipeline, not pipe: a store failure or a client gone mid-way destroys both ends instead of leaving one open.
+    await pipeline(object.body, res);
   });
 
   router.get('/receipts/:receiptId/pages/:page', buildRole(...ANY_MEMBER), async (req, res) => {
@@ -128,7 +122,7 @@ export function receiptsRoutes(deps: { store: ObjectStore; queue: JobQueue }): R
     const object = await deps.store.stream(page.key);
     res.setHeader('Content-Type', 'image/png');
     res.setHeader('Cache-Control', 'private, max-age=3600');
-    object.body.pipe(res);
+    await pipeline(object.body, res);
   });
 
   router.patch('/receipts/:receiptId', buildRole(...EDITORS), validBody(updateReceiptRequest), async (req, res) => {

@@ -8,6 +8,7 @@ import { recordAudit } from '../audit/audit';
 import type { User } from '../auth/user.entity';
 import type { AppConfig } from '../config';
 import { StaleVersion, ValidationFailed } from '../http/errors';
+import { Membership } from '../builds/membership.entity';
 import type { Mailer } from '../mail/mailer';
 import { commentMail } from '../mail/templates';
 import type { Receipt } from '../receipts/receipt.entity';
@@ -21,7 +22,9 @@ async function addComment(em: EntityManager, mailer: Mailer, config: AppConfig, 
   const comment = em.create(Comment, { build: receipt.build, receipt, author, body });
   await em.flush();
   await em.populate(receipt, ['uploadedBy', 'vendor']);
-  if (receipt.uploadedBy.id !== author.id) {
+  // A person who has left the build (or was removed) hears nothing more of it.
+  const uploaderStillMember = (await em.count(Membership, { build: receipt.build, user: receipt.uploadedBy })) > 0;
+  if (receipt.uploadedBy.id !== author.id && uploaderStillMember) {
     await afterCommit(em, () =>
       mailer.send(
         commentMail({

@@ -1,6 +1,6 @@
 // Prepares a receipt photo for OCR: HEIC to JPEG, orientation from EXIF, greyscale, contrast, a sensible size.
 import sharp from 'sharp';
-import type { ReceiptFileType } from './sniff';
+import { UnreadableDocumentError, type ReceiptFileType } from './sniff';
 
 export interface NormalisedImage {
   /** Greyscale PNG, upright. */
@@ -19,7 +19,20 @@ interface HeicConvert {
   (options: { buffer: Buffer; format: 'JPEG' | 'PNG'; quality?: number }): Promise<ArrayBuffer>;
 }
 
+/**
+ * A photo that cannot be decoded (damaged, cut off, over sharp's pixel limit) fails the same way every time, so it is
+ * an UnreadableDocumentError: the reading job marks the receipt unreadable at once instead of retrying.
+ */
 export async function normaliseImage(bytes: Buffer, type: ReceiptFileType): Promise<NormalisedImage> {
+  try {
+    return await decodeAndPrepare(bytes, type);
+  } catch (error) {
+    console.error('[reading] the photo could not be decoded:', (error as Error).message);
+    throw new UnreadableDocumentError('This photo could not be opened: it may be damaged, cut off or too large. Upload it again, or enter the lines by hand.');
+  }
+}
+
+async function decodeAndPrepare(bytes: Buffer, type: ReceiptFileType): Promise<NormalisedImage> {
   let input = bytes;
   if (type === 'heic') {
     // sharp's prebuilt libvips has no HEVC decoder, so HEIC goes through a pure JS converter first.

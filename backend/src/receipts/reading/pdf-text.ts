@@ -1,5 +1,6 @@
 // Reads a PDF: the text layer with positions where a page has one; pages without text are rendered for OCR.
 import path from 'node:path';
+import { MAX_UPLOAD_MEGAPIXELS } from '../../../../shared/api/receipts';
 import { importEsm } from './esm-import';
 import { TextLine, TextPage, TextWord, makeLine } from './text-lines';
 
@@ -7,6 +8,13 @@ import { TextLine, TextPage, TextWord, makeLine } from './text-lines';
 export const TEXT_SCALE = 2;
 /** Scanned pages are rendered about this wide, enough for receipt text, capped at 4 px per point. */
 const RENDER_WIDTH = 1700;
+/** A rendered page holds at most this many pixels (the photo limit): a page box of any size cannot exhaust memory. */
+export const MAX_RENDER_PIXELS = MAX_UPLOAD_MEGAPIXELS * 1_000_000;
+
+/** The largest scale at most `wanted` at which a page of this size in points stays within MAX_RENDER_PIXELS. */
+export function cappedRenderScale(widthPoints: number, heightPoints: number, wanted: number): number {
+  return Math.min(wanted, Math.sqrt(MAX_RENDER_PIXELS / Math.max(1, widthPoints * heightPoints)));
+}
 
 type PdfJs = typeof import('pdfjs-dist/legacy/build/pdf.mjs');
 
@@ -47,7 +55,7 @@ export async function readPdfPages(bytes: Buffer): Promise<PdfPage[]> {
         pages.push({ text: { width: Math.round(viewport.width), height: Math.round(viewport.height), source: 'text', lines: linesFromItems(items, viewport, pageNumber - 1) }, image: null });
       } else {
         const base = page.getViewport({ scale: 1 });
-        const viewport = page.getViewport({ scale: Math.min(4, Math.max(TEXT_SCALE, RENDER_WIDTH / base.width)) });
+        const viewport = page.getViewport({ scale: cappedRenderScale(base.width, base.height, Math.min(4, Math.max(TEXT_SCALE, RENDER_WIDTH / base.width))) });
         const factory = (document as unknown as { canvasFactory: { create(w: number, h: number): { canvas: { toBuffer(mime: string): Buffer }; context: unknown } } }).canvasFactory;
         const { canvas, context } = factory.create(Math.ceil(viewport.width), Math.ceil(viewport.height));
         await page.render({ canvasContext: context as never, canvas: canvas as never, viewport }).promise;

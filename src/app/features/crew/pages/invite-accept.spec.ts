@@ -32,6 +32,8 @@ describe('InviteAccept', () => {
     expect(screen.getByRole('link', { name: 'Create an account' }).getAttribute('href')).toBe('/sign-up?invite=tok-3');
     expect(screen.getByRole('link', { name: 'Sign in' }).getAttribute('href')).toBe('/sign-in?returnTo=%2Finvites%2Ftok-3');
     expect(screen.queryByRole('button', { name: 'Join build' })).toBeNull();
+    // The link is a one-use bearer link: the page says so.
+    expect(screen.getByText('The link works once: whoever joins with it first takes the place, so do not pass it on.')).toBeTruthy();
   });
 
   it('lets a signed-in person join and opens the build', async () => {

@@ -25,6 +25,7 @@ import { CrewApi } from '../services/crew-api';
           {{ invite.invitedBy }} invited {{ invite.email }}. The invite is good until
           <span class="tabular">{{ formatDay(invite.expiresAt) }}</span>.
         </p>
+        <p>The link works once: whoever joins with it first takes the place, so do not pass it on.</p>
         <div class="form-actions">
           @if (session.signedIn()) {
             <button mat-flat-button class="cta" type="button" (click)="join()" [disabled]="joining()">Join build</button>
