@@ -9,6 +9,8 @@ import { TextLine, TextPage, TextWord, lineText, unionBox } from './text-lines';
 export interface ParseOptions {
   /** BCP 47 tag of the build: day/month order and the currency a bare "$" means. */
   locale: string;
+  /** ISO 4217 minor units of the build's currency (2 for EUR, 0 for JPY, 3 for BHD); 2 when not given. */
+  minorUnits?: number;
 }
 
 type SummaryField = 'subtotal' | 'tax' | 'shipping' | 'discount' | 'total' | 'payment';

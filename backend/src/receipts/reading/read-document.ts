@@ -10,6 +10,8 @@ import type { TextPage } from './text-lines';
 export interface ReadOptions {
   /** BCP 47 tag of the build, e.g. "en-US" (month first) or "en-GB" (day first). */
   locale?: string;
+  /** ISO 4217 code of the build's currency: how many decimals its amounts carry. */
+  currency?: string;
 }
 
 export const DEFAULT_LOCALE = 'en-US';
