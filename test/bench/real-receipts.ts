@@ -9,6 +9,7 @@ import path from 'node:path';
 import { Decimal } from '../../shared/money';
 import type { ReadReceipt } from '../../shared/api/receipt-reading';
 import { closeReaders, ocrPool, readDocument } from '../../backend/src/receipts/reading/read-document';
+import { editDistance } from '../../backend/src/receipts/reading/label-words';
 import { parseReceipt } from '../../backend/src/receipts/reading/parse-receipt';
 import type { TextLine, TextPage, TextWord } from '../../backend/src/receipts/reading/text-lines';
 import { makeLine } from '../../backend/src/receipts/reading/text-lines';
@@ -131,18 +132,7 @@ export interface RealResult {
 const squeeze = (text: string) => text.toUpperCase().replace(/[^A-Z0-9]/g, '');
 
 function similarity(left: string, right: string): number {
-  if (left === right) return 1;
-  const previous = Array.from({ length: right.length + 1 }, (_, index) => index);
-  for (let i = 1; i <= left.length; i += 1) {
-    let diagonal = previous[0];
-    previous[0] = i;
-    for (let j = 1; j <= right.length; j += 1) {
-      const above = previous[j];
-      previous[j] = Math.min(previous[j] + 1, previous[j - 1] + 1, diagonal + (left[i - 1] === right[j - 1] ? 0 : 1));
-      diagonal = above;
-    }
-  }
-  return 1 - previous[right.length] / Math.max(left.length, right.length, 1);
+  return 1 - editDistance(left, right) / Math.max(left.length, right.length, 1);
 }
 
 export const totalRight = ({ truth, read }: RealResult) => truth.total !== null && read.total.value !== null && new Decimal(read.total.value).equals(truth.total);

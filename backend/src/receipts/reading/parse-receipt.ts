@@ -2,8 +2,11 @@
 // confidence. Pure: no OCR, no I/O, so every layout rule is unit-tested on plain text.
 import { Decimal, multiply, roundHalfUp, sum, toWire } from '../../../../shared/money';
 import type { LineKind, ReadBox, ReadField, ReadLine, ReadReceipt } from '../../../../shared/api/receipt-reading';
-import { ReadAmount, currencyMark, readAmount, readQuantity } from './amounts';
+import { AmountOptions, ReadAmount, currencyMark, readAmount, readQuantity, usesDecimalComma } from './amounts';
 import { findDate } from './dates';
+import { editDistance, hasWord, keywordOf, readLabel, sameWord } from './label-words';
+import { chooseFigures, SummaryEntry } from './summary-figures';
+import type { SummaryRole } from './summary-words';
 import { TextLine, TextPage, TextWord, lineText, unionBox } from './text-lines';
 
 export interface ParseOptions {
@@ -12,8 +15,6 @@ export interface ParseOptions {
   /** ISO 4217 minor units of the build's currency (2 for EUR, 0 for JPY, 3 for BHD); 2 when not given. */
   minorUnits?: number;
 }
-
-type SummaryField = 'subtotal' | 'tax' | 'shipping' | 'discount' | 'total' | 'payment';
 
 interface Token {
   text: string;
@@ -30,17 +31,24 @@ interface AnalysedLine {
   /** Upper-case letters-only words for keyword matching, with digits OCR put in words turned back to letters. */
   keywords: string[];
   confidence: number;
-  summary: SummaryField | null;
+  summary: SummaryRole | null;
+  /** The summary role of a line that prints a summary word but no amount. */
+  labelOnly: SummaryRole | null;
+  /** A total word beside a count or points ("TOTAL QTY: 9"): ends the item lines but is no figure. */
+  notASum: boolean;
 }
 
 // ------------------------------------------------------------------------------------------------------
 // Tokens and keywords
 
-function tokenize(line: TextLine): Token[] {
+function tokenize(line: TextLine, options: AmountOptions): Token[] {
   // "@" glued to numbers ("2@4.99") becomes its own token.
   const words: TextWord[] = [];
   for (const word of line.words) {
-    const pieces = word.text.split(/(@)/).filter((piece) => piece !== '');
+    // "AMOUNT:$6.90" printed without a space: the label and the amount are two tokens.
+    const pieces = word.text
+      .split(/(@)|(?<=[A-Za-z)]:)(?=[-$€£¥(]?[0-9])|(?<=[A-Za-z)]:)(?=RM)/)
+      .filter((piece): piece is string => piece !== undefined && piece !== '');
     for (const piece of pieces) words.push({ ...word, text: piece });
   }
   const tokens: Token[] = [];
@@ -48,58 +56,23 @@ function tokenize(line: TextLine): Token[] {
     const word = words[index];
     const next = words[index + 1];
     // A currency mark printed apart from its number ("RM 12.40", "$ 5.00", "- 5.00").
-    if (next && (currencyMark(word.text) || word.text === '-') && readAmount(next.text)) {
+    if (next && (currencyMark(word.text.replace(/^[-−]/, '')) || word.text === '-') && readAmount(next.text, options)) {
       const joined = `${word.text}${next.text}`;
-      tokens.push(makeToken(joined, [word, next]));
+      tokens.push(makeToken(joined, [word, next], options));
       index += 1;
       continue;
     }
-    tokens.push(makeToken(word.text, [word]));
+    tokens.push(makeToken(word.text, [word], options));
   }
   return tokens;
 }
 
-function makeToken(text: string, words: TextWord[]): Token {
+function makeToken(text: string, words: TextWord[], options: AmountOptions): Token {
   const at = /^[@©®]$/.test(text) || /^(at|x)$/i.test(text);
-  return { text, words, amount: at ? null : readAmount(text), quantity: readQuantity(text), at };
-}
-
-const LETTER_FOR_DIGIT: Record<string, string> = { '0': 'O', '1': 'I', '5': 'S', '8': 'B', '6': 'G', '2': 'Z' };
-
-function keywordOf(word: string): string {
-  const letters = (word.match(/[A-Za-z]/g) ?? []).length;
-  const digits = (word.match(/[0-9]/g) ?? []).length;
-  // Only words that are mostly letters get their stray digits turned back into letters ("T0TAL").
-  const fixed = letters > digits ? word.replace(/[015862]/g, (digit) => LETTER_FOR_DIGIT[digit]) : word;
-  return fixed.toUpperCase().replace(/[^A-Z&]/g, '');
-}
-
-function editDistance(left: string, right: string): number {
-  const previous = Array.from({ length: right.length + 1 }, (_, index) => index);
-  for (let i = 1; i <= left.length; i += 1) {
-    let diagonal = previous[0];
-    previous[0] = i;
-    for (let j = 1; j <= right.length; j += 1) {
-      const above = previous[j];
-      previous[j] = Math.min(previous[j] + 1, previous[j - 1] + 1, diagonal + (left[i - 1] === right[j - 1] ? 0 : 1));
-      diagonal = above;
-    }
-  }
-  return previous[right.length];
-}
-
-// Real words that sit one letter away from a keyword and must never be taken for it.
-const NEAR_MISSES = new Set(['CHARGE', 'CHARGES', 'CHANGE', 'TOTALS', 'RETURN', 'REFUND']);
-
-/** A word matches a keyword exactly, or within one OCR slip for words of five letters or more. */
-function sameWord(word: string, keyword: string): boolean {
-  if (word === keyword) return true;
-  if (NEAR_MISSES.has(word)) return false;
-  return keyword.length >= 5 && Math.abs(word.length - keyword.length) <= 1 && editDistance(word, keyword) <= 1;
-}
-
-function hasWord(keywords: string[], ...candidates: string[]): boolean {
-  return keywords.some((word) => candidates.some((candidate) => sameWord(word, candidate)));
+  let amount = at ? null : readAmount(text, options);
+  // Where amounts carry no decimals (JPY), a bare one- or two-digit number is a count, not money.
+  if (amount && options.minorUnits === 0 && amount.mark === null && /^[0-9]{1,2}$/.test(text)) amount = null;
+  return { text, words, amount, quantity: readQuantity(text), at };
 }
 
 /** Words before the first amount: the label of a summary line. */
@@ -107,32 +80,41 @@ function labelKeywords(tokens: Token[]): string[] {
   const labels: string[] = [];
   for (const token of tokens) {
     if (token.amount) break;
-    const keyword = keywordOf(token.text);
-    if (keyword !== '') labels.push(keyword);
+    // "GST/TAX", "SUB-TOTAL": words joined by a slash or a dash are read one by one.
+    for (const piece of token.text.split(/[/\-]/)) {
+      const keyword = keywordOf(piece);
+      if (keyword !== '') labels.push(keyword);
+    }
   }
   return labels;
 }
 
-function classifySummary(tokens: Token[]): SummaryField | null {
-  if (!tokens.some((token) => token.amount)) return null;
-  const label = labelKeywords(tokens);
-  const joined = label.join(' ');
-  if (hasWord(label, 'SUBTOTAL') || /\bSUB ?TOTAL\b/.test(joined) || /\bMERCHANDISE\b/.test(joined)) return 'subtotal';
-  if (hasWord(label, 'CHANGE', 'CASH', 'TENDER', 'TENDERED', 'VISA', 'MASTERCARD', 'DEBIT', 'PAID', 'PAYMENT') || (hasWord(label, 'CARD') && !hasWord(label, 'TOTAL'))) return 'payment';
-  if (hasWord(label, 'TOTAL') || /\b(AMOUNT|BALANCE) DUE\b/.test(joined)) {
-    if (hasWord(label, 'SAVINGS', 'ITEMS', 'QTY', 'QUANTITY')) return null;
-    return 'total';
-  }
-  if (hasWord(label, 'SHIPPING', 'FREIGHT', 'DELIVERY', 'POSTAGE', 'CARRIAGE') || label.includes('S&H')) return 'shipping';
-  if (hasWord(label, 'TAX', 'GST', 'VAT', 'SST', 'HST', 'PST')) return 'tax';
-  if (hasWord(label, 'DISCOUNT', 'COUPON', 'SAVINGS', 'PROMO')) return 'discount';
-  return null;
+function analyse(line: TextLine, options: AmountOptions): AnalysedLine {
+  const tokens = tokenize(line, options);
+  const confidence = line.words.reduce((total, word) => total + word.confidence, 0) / Math.max(line.words.length, 1);
+  const label = readLabel(labelKeywords(tokens));
+  const hasAmount = tokens.some((token) => token.amount);
+  return {
+    line,
+    text: lineText(line),
+    tokens,
+    keywords: tokens.map((token) => keywordOf(token.text)).filter((word) => word !== ''),
+    confidence,
+    summary: hasAmount ? label.role : null,
+    labelOnly: hasAmount ? null : label.role,
+    notASum: label.notASum,
+  };
 }
 
-function analyse(line: TextLine): AnalysedLine {
-  const tokens = tokenize(line);
-  const confidence = line.words.reduce((total, word) => total + word.confidence, 0) / Math.max(line.words.length, 1);
-  return { line, text: lineText(line), tokens, keywords: tokens.map((token) => keywordOf(token.text)).filter((word) => word !== ''), confidence, summary: classifySummary(tokens) };
+/** A summary word on a line of its own takes the amount printed alone on the line below ("TOTAL:" / "9.00"). */
+function labelAmountsBelow(lines: AnalysedLine[]): void {
+  for (let index = 0; index + 1 < lines.length; index += 1) {
+    const role = lines[index].labelOnly;
+    const below = lines[index + 1];
+    if ((role === 'total' || role === 'final_total' || role === 'tendered') && below.summary === null && !below.notASum && below.tokens.some((token) => token.amount) && labelKeywords(below.tokens).length === 0) {
+      below.summary = role;
+    }
+  }
 }
 
 // ------------------------------------------------------------------------------------------------------
@@ -170,11 +152,11 @@ interface QuantityAt {
 }
 
 /** "2 @ 4.99", "2 x 4.99", "2 @4.99" in a line. */
-function quantityAt(tokens: Token[]): QuantityAt | null {
+function quantityAt(tokens: Token[], options: AmountOptions): QuantityAt | null {
   for (let index = 1; index < tokens.length - 1; index += 1) {
     if (!tokens[index].at) continue;
     const quantity = tokens[index - 1].quantity;
-    const unitPrice = readAmount(tokens[index + 1].text, { requireDecimals: false });
+    const unitPrice = readAmount(tokens[index + 1].text, { ...options, requireDecimals: false });
     if (quantity && unitPrice) return { quantity, unitPrice, start: index - 1, end: index + 1 };
   }
   return null;
@@ -205,7 +187,7 @@ interface DraftLine {
   boxes: ReadBox[];
 }
 
-function itemFromLine(analysed: AnalysedLine, hasPartColumn: boolean): DraftLine | null {
+function itemFromLine(analysed: AnalysedLine, hasPartColumn: boolean, options: AmountOptions): DraftLine | null {
   const { tokens } = analysed;
   const amountIndexes = tokens.flatMap((token, index) => (token.amount ? [index] : []));
   if (amountIndexes.length === 0) return null;
@@ -216,7 +198,7 @@ function itemFromLine(analysed: AnalysedLine, hasPartColumn: boolean): DraftLine
   let unitPrice: ReadAmount | null = null;
   let descriptionEnd = amountIndex;
 
-  const pattern = quantityAt(tokens.slice(0, amountIndex));
+  const pattern = quantityAt(tokens.slice(0, amountIndex), options);
   if (pattern) {
     quantity = pattern.quantity;
     unitPrice = pattern.unitPrice;
@@ -406,10 +388,15 @@ function field(value: string | null, confidence: number): ReadField<string> {
 
 export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadReceipt {
   const notes: string[] = [];
-  const lines = pages.flatMap((page) => page.lines).filter((line) => line.words.length > 0).map(analyse);
+  const amountOptions: AmountOptions = { minorUnits: options.minorUnits ?? 2, decimalComma: usesDecimalComma(options.locale) };
+  const lines = pages
+    .flatMap((page) => page.lines)
+    .filter((line) => line.words.length > 0)
+    .map((line) => analyse(line, amountOptions));
+  labelAmountsBelow(lines);
 
   // The item region ends at the first summary line; everything after the total is payment and small print.
-  const firstSummary = lines.findIndex((analysed) => analysed.summary !== null && analysed.summary !== 'discount');
+  const firstSummary = lines.findIndex((analysed) => (analysed.summary !== null && analysed.summary !== 'discount') || analysed.notASum);
   const itemEnd = firstSummary === -1 ? lines.length : firstSummary;
   const headerIndex = lines.findIndex((analysed, index) => index < itemEnd && isColumnHeader(analysed));
   const hasPartColumn = headerIndex !== -1 && hasWord(lines[headerIndex].keywords, 'PART', 'ITEM', 'SKU', 'PARTNO');
@@ -419,7 +406,7 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
   let seenItem = false;
   for (let index = headerIndex + 1; index < itemEnd; index += 1) {
     const analysed = lines[index];
-    const pattern = quantityAt(analysed.tokens);
+    const pattern = quantityAt(analysed.tokens, amountOptions);
     const amounts = analysed.tokens.filter((token) => token.amount);
     const previous = drafts[drafts.length - 1];
     // "2 @ $11.79" under (or over) its item, carrying no amount of its own.
@@ -445,7 +432,7 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
       pendingDescription = seenItem || headerIndex !== -1 ? analysed : null;
       continue;
     }
-    const draft = itemFromLine(analysed, hasPartColumn);
+    const draft = itemFromLine(analysed, hasPartColumn, amountOptions);
     if (!draft) continue;
     if (draft.description === '' && pendingDescription) {
       draft.description = pendingDescription.text.trim();
@@ -458,38 +445,42 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
   }
   const readLines = drafts.map(finishLine);
 
-  // Summary fields: the first line of each kind wins, except taxes, which add up (state + county).
-  const summaries: Partial<Record<SummaryField, { value: Decimal; confidence: number; count: number }>> = {};
-  let totalSeen = false;
-  for (const analysed of lines.slice(itemEnd)) {
-    const kind = analysed.summary;
-    if (!kind || kind === 'payment' || totalSeen) continue;
+  // Summary figures: every figure printed beside a summary word is a candidate; the receipt's arithmetic chooses.
+  const entries: SummaryEntry[] = [];
+  for (let index = itemEnd; index < lines.length; index += 1) {
+    const analysed = lines[index];
     const amount = rightmostAmount(analysed);
-    if (!amount) continue;
-    const value = new Decimal(amount.value);
-    const confidence = Math.min(amount.confidence, analysed.confidence);
-    const existing = summaries[kind];
-    if (kind === 'tax' && existing) summaries.tax = { value: sum([existing.value, value]), confidence: Math.min(existing.confidence, confidence), count: existing.count + 1 };
-    else if (!existing) summaries[kind] = { value, confidence, count: 1 };
-    if (kind === 'total') totalSeen = true;
+    if (!amount || analysed.notASum) continue;
+    entries.push({ role: analysed.summary ?? 'unlabelled', value: new Decimal(amount.value), index, confidence: Math.min(amount.confidence, analysed.confidence) });
   }
-  const money = (kind: SummaryField) => summaries[kind];
-  const subtotal = money('subtotal');
-  const tax = money('tax');
-  const shipping = money('shipping');
-  const discount = money('discount');
-  const total = money('total');
+  const printedSubtotal = entries.find((entry) => entry.role === 'subtotal');
+  const repairedLine = printedSubtotal ? repairOneLine(readLines, printedSubtotal.value, notes) : null;
+  const itemSum = sum(readLines.map((item) => new Decimal(item.amount)));
+  const chosen = chooseFigures(entries, readLines.length > 0 ? itemSum : null);
+  const { subtotal, tax, shipping, discount } = chosen;
+  const total = chosen.total ? { ...chosen.total } : null;
   const discountValue = discount ? discount.value.abs() : null;
+  // A cash-rounded total is the amount paid; the adjustment stays as its own line so the receipt reconciles.
+  if (chosen.rounding) {
+    const roundingEntry = entries.find((entry) => entry.role === 'rounding' && entry.value.equals(chosen.rounding!));
+    const amount = toWire(chosen.rounding, Math.max(2, chosen.rounding.decimalPlaces()));
+    readLines.push({ kind: chosen.rounding.isNegative() ? 'discount' : 'fee', description: 'Rounding adjustment', partNumber: null, quantity: '1', unitPrice: amount, amount, confidence: 0.95, box: roundingEntry ? lines[roundingEntry.index].line.box : null });
+  }
+  if (chosen.service) {
+    const serviceEntry = entries.find((entry) => entry.role === 'service' && entry.value.equals(chosen.service!));
+    const amount = toWire(chosen.service, Math.max(2, chosen.service.decimalPlaces()));
+    readLines.push({ kind: 'fee', description: serviceEntry ? lines[serviceEntry.index].text.replace(/\s*[-+]?\S*[0-9][.,][0-9]+\S*\s*$/, '').trim() || 'Service charge' : 'Service charge', partNumber: null, quantity: '1', unitPrice: amount, amount, confidence: 0.95, box: serviceEntry ? lines[serviceEntry.index].line.box : null });
+  }
+  const rounding = sum([chosen.rounding ?? new Decimal(0), chosen.service ?? new Decimal(0)]);
 
   // Reconciliation: printed figures that add up confirm each other.
-  const repairedLine = subtotal ? repairOneLine(readLines, subtotal.value, notes) : null;
   const lineSum = sum(readLines.map((item) => new Decimal(item.amount)));
-  const linesMatchSubtotal = subtotal !== undefined && readLines.length > 0 && lineSum.equals(subtotal.value);
-  const base = subtotal?.value ?? lineSum;
+  const linesMatchSubtotal = subtotal !== null && readLines.length > 0 && itemSum.equals(subtotal.value);
+  const base = subtotal ? subtotal.value.plus(rounding) : lineSum;
   const computedTotal = sum([base, tax?.value ?? new Decimal(0), shipping?.value ?? new Decimal(0), (discountValue ?? new Decimal(0)).negated()]);
   let totalRepaired = false;
   // Only a total the OCR itself was unsure of is corrected; a well-read one that does not add up is reported.
-  if (total && total.confidence < 0.8 && !computedTotal.equals(total.value) && (linesMatchSubtotal || subtotal === undefined) && readLines.length > 0) {
+  if (total && total.confidence < 0.8 && !computedTotal.equals(total.value) && (linesMatchSubtotal || subtotal === null) && readLines.length > 0) {
     // One misread character in the total ("$517.72" for $17.72) when everything else adds up.
     if (editDistance(digitsOf(toWire(computedTotal, 2)), digitsOf(toWire(total.value, 2))) <= 1 && computedTotal.isNegative() === total.value.isNegative()) {
       notes.push(`The total reads ${toWire(total.value, 2)}; taken as ${toWire(computedTotal, 2)}, what the lines and charges add up to. Check it.`);
@@ -498,16 +489,19 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
       totalRepaired = true;
     }
   }
-  const totalsAgree = total !== undefined && computedTotal.equals(total.value);
+  const totalsAgree = total !== null && computedTotal.equals(total.value);
   const boost = (confidence: number, agreed: boolean) => (agreed ? Math.max(confidence, 0.95) : confidence);
   if (linesMatchSubtotal) for (const item of readLines) if (item !== repairedLine) item.confidence = round2(Math.max(item.confidence, 0.9));
-  if (total && !totalsAgree) {
+  if (total && !totalsAgree && readLines.length > 0) {
     notes.push(`The lines and charges add up to ${toWire(computedTotal, 2)} but the total reads ${toWire(total.value, 2)}; check the amounts.`);
   }
   if (subtotal && readLines.length > 0 && !linesMatchSubtotal) {
-    notes.push(`The lines add up to ${toWire(lineSum, 2)} but the subtotal reads ${toWire(subtotal.value, 2)}; a line may be missing or misread.`);
+    notes.push(`The lines add up to ${toWire(itemSum, 2)} but the subtotal reads ${toWire(subtotal.value, 2)}; a line may be missing or misread.`);
   }
   if (readLines.length === 0) notes.push('No item lines were found; enter them by hand.');
+  if (!total) notes.push('No total was found; enter it from the receipt.');
+  const agreements = [...chosen.agreements];
+  if (linesMatchSubtotal) agreements.push('the lines add up to the subtotal');
 
   const date = findReceiptDate(lines, options.locale, notes);
   const currency = findCurrency(lines, options.locale, notes);
@@ -523,6 +517,7 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
     shipping: field(wire(shipping?.value), boost(shipping?.confidence ?? 0, totalsAgree)),
     discount: field(wire(discountValue), boost(discount?.confidence ?? 0, totalsAgree)),
     total: field(wire(total?.value), boost(total?.confidence ?? 0, totalsAgree && !totalRepaired)),
+    agreements,
     notes,
     pages: pages.map(({ width, height, source }) => ({ width, height, source })),
     words: pages.flatMap((page) => page.lines.flatMap((line) => line.words)),
