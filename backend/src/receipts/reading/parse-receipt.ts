@@ -4,6 +4,7 @@ import { Decimal, multiply, roundHalfUp, sum, toWire } from '../../../../shared/
 import type { LineKind, ReadBox, ReadField, ReadLine, ReadReceipt } from '../../../../shared/api/receipt-reading';
 import { AmountOptions, ReadAmount, currencyMark, readAmount, readQuantity, usesDecimalComma } from './amounts';
 import { findDate } from './dates';
+import { chooseReceiptDate, dateLimits } from './receipt-date';
 import { editDistance, hasWord, keywordOf, readLabel, sameWord } from './label-words';
 import { chooseFigures, SummaryEntry } from './summary-figures';
 import type { SummaryRole } from './summary-words';
@@ -14,6 +15,10 @@ export interface ParseOptions {
   locale: string;
   /** ISO 4217 minor units of the build's currency (2 for EUR, 0 for JPY, 3 for BHD); 2 when not given. */
   minorUnits?: number;
+  /** ISO date the receipt was uploaded: no receipt is dated after it. Today when not given. */
+  readOn?: string;
+  /** ISO date before which a printed date is taken for an OCR error (long before the build began). */
+  notBefore?: string;
 }
 
 interface Token {
@@ -503,7 +508,9 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
   const agreements = [...chosen.agreements];
   if (linesMatchSubtotal) agreements.push('the lines add up to the subtotal');
 
-  const date = findReceiptDate(lines, options.locale, notes);
+  const dateChoice = chooseReceiptDate(lines, options.locale, dateLimits(options.readOn, options.notBefore));
+  if (dateChoice.note) notes.push(dateChoice.note);
+  const date = dateChoice.field;
   const currency = findCurrency(lines, options.locale, notes);
   const wire = (value: Decimal | null | undefined) => (value === null || value === undefined ? null : toWire(value, Math.max(2, value.decimalPlaces())));
 
@@ -545,14 +552,3 @@ function repairOneLine(lines: ReadLine[], subtotal: Decimal, notes: string[]): R
   return item;
 }
 
-function findReceiptDate(lines: AnalysedLine[], locale: string, notes: string[]): ReadField<string> {
-  // A line labelled as the date wins over other dates (due dates, warranty dates).
-  const labelled = lines.filter((analysed) => hasWord(analysed.keywords, 'DATE', 'DATED'));
-  for (const analysed of [...labelled, ...lines]) {
-    const found = findDate(analysed.text, locale);
-    if (!found) continue;
-    if (found.note) notes.push(found.note);
-    return { value: found.value, confidence: round2(found.confidence * Math.max(analysed.confidence, 0.5)) };
-  }
-  return { value: null, confidence: 0 };
-}
