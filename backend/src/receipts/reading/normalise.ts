@@ -1,5 +1,6 @@
 // Prepares a receipt photo for OCR: HEIC to JPEG, orientation from EXIF, greyscale, contrast, a sensible size.
 import sharp from 'sharp';
+import { findPaper } from './paper';
 import type { ReceiptFileType } from './sniff';
 
 export interface NormalisedImage {
@@ -11,6 +12,11 @@ export interface NormalisedImage {
 
 /** Phone photos are 3000–4000 px wide; OCR gains nothing past this and slows down a lot. */
 export const MAX_WIDTH = 2000;
+/** Height in pixels of a row of print (ascender to descender) that tesseract's LSTM model reads best (measured here). */
+const TEXT_ROW_HEIGHT = 32;
+// Print is never shrunk below its own size, only enlarged (or the whole picture fitted to MAX_WIDTH).
+const MIN_SCALE = 1;
+const MAX_SCALE = 3.5;
 /** Small screenshots and thumbnails are enlarged so receipt text is tall enough for the OCR model. */
 export const MIN_WIDTH = 800;
 const ENLARGED_WIDTH = 1200;
@@ -27,17 +33,21 @@ export async function normaliseImage(bytes: Buffer, type: ReceiptFileType): Prom
     const convert = require('heic-convert') as HeicConvert;
     input = Buffer.from(await convert({ buffer: bytes, format: 'JPEG', quality: 0.92 }));
   }
-  // rotate() with no angle applies the EXIF orientation, so a phone photo taken sideways comes upright.
-  const upright = sharp(input, { failOn: 'error' }).rotate();
-  const { width = 0 } = await upright.clone().metadata().then(async (metadata) => {
-    // EXIF orientations 5–8 swap width and height.
-    const swapped = (metadata.orientation ?? 1) >= 5;
-    return { width: swapped ? metadata.height : metadata.width };
-  });
-  // One grey channel: a third of the bytes to hand to the OCR worker.
-  let pipeline = upright.greyscale().normalise().toColourspace('b-w');
-  if (width > MAX_WIDTH) pipeline = pipeline.resize({ width: MAX_WIDTH });
-  else if (width > 0 && width < MIN_WIDTH) pipeline = pipeline.resize({ width: ENLARGED_WIDTH, kernel: 'lanczos3' });
+  // rotate() with no angle applies the EXIF orientation, so a phone photo taken sideways comes upright; one
+  // greyscale decode serves both the layout analysis and the picture handed to the OCR.
+  const grey = await sharp(input, { failOn: 'error' }).rotate().greyscale().raw().toBuffer({ resolveWithObject: true });
+  const raw = { raw: { width: grey.info.width, height: grey.info.height, channels: grey.info.channels } } as const;
+  const layout = await findPaper(sharp(grey.data, raw), grey.info.width, grey.info.height);
+  const { crop, textHeight } = layout;
+  // Small print is enlarged and large print reduced to the size the OCR model reads best.
+  let scale = textHeight ? TEXT_ROW_HEIGHT / textHeight : crop.width < MIN_WIDTH ? ENLARGED_WIDTH / crop.width : 1;
+  scale = Math.min(MAX_SCALE, Math.max(MIN_SCALE, scale));
+  const targetWidth = Math.min(MAX_WIDTH, Math.round(crop.width * scale));
+  let pipeline = sharp(grey.data, raw).extract(crop);
+  if (Math.abs(targetWidth - crop.width) > 4) pipeline = pipeline.resize({ width: targetWidth, kernel: targetWidth > crop.width ? 'lanczos3' : 'lanczos2' });
+  // Uneven light on a photo: local contrast first, so a shadow across the slip does not swallow its print.
+  if (layout.background) pipeline = pipeline.clahe({ width: 64, height: 64, maxSlope: 3 });
+  pipeline = pipeline.normalise().toColourspace('b-w');
   const { data, info } = await pipeline.png({ compressionLevel: 1 }).toBuffer({ resolveWithObject: true });
   return { png: data, width: info.width, height: info.height };
 }

@@ -458,11 +458,13 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
     if (!amount || analysed.notASum) continue;
     entries.push({ role: analysed.summary ?? 'unlabelled', value: new Decimal(amount.value), index, confidence: Math.min(amount.confidence, analysed.confidence) });
   }
+  repairSubtotal(lines, entries, readLines, notes);
   const printedSubtotal = entries.find((entry) => entry.role === 'subtotal');
   const repairedLine = printedSubtotal ? repairOneLine(readLines, printedSubtotal.value, notes) : null;
   const itemSum = sum(readLines.map((item) => new Decimal(item.amount)));
   const chosen = chooseFigures(entries, readLines.length > 0 ? itemSum : null);
-  const { subtotal, tax, shipping, discount } = chosen;
+  const { subtotal, shipping, discount } = chosen;
+  const tax = repairTax(chosen, notes);
   const total = chosen.total ? { ...chosen.total } : null;
   const discountValue = discount ? discount.value.abs() : null;
   // A cash-rounded total is the amount paid; the adjustment stays as its own line so the receipt reconciles.
@@ -529,6 +531,37 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
     pages: pages.map(({ width, height, source }) => ({ width, height, source })),
     words: pages.flatMap((page) => page.lines.flatMap((line) => line.words)),
   };
+}
+
+/**
+ * A subtotal OCR misread in a way the lines explain: its decimal point lost ("14014" for 140.14) or its sign lost on
+ * a return slip ("42.98" where every line is negative). The lines' sum is taken, and the person told.
+ */
+function repairSubtotal(lines: AnalysedLine[], entries: SummaryEntry[], readLines: ReadLine[], notes: string[]): void {
+  if (readLines.length === 0) return;
+  const itemSum = sum(readLines.map((item) => new Decimal(item.amount)));
+  const printed = entries.find((entry) => entry.role === 'subtotal');
+  if (printed) {
+    if (itemSum.isNegative() && printed.value.equals(itemSum.abs())) printed.value = itemSum;
+    return;
+  }
+  const index = lines.findIndex((analysed) => analysed.labelOnly === 'subtotal');
+  const last = index === -1 ? undefined : lines[index].tokens[lines[index].tokens.length - 1];
+  if (!last || !/^[0-9]{3,}$/.test(last.text) || digitsOf(last.text) !== digitsOf(toWire(itemSum, 2))) return;
+  entries.push({ role: 'subtotal', value: itemSum, index, confidence: 0.6 });
+  entries.sort((a, b) => a.index - b.index);
+  notes.push(`The subtotal reads ${last.text}; taken as ${toWire(itemSum, 2)}, what the lines add up to. Check it.`);
+}
+
+/** A tax the OCR was unsure of, one character off what the total less the subtotal leaves ("1.21" for 11.21) is corrected, and the person told. */
+function repairTax(chosen: ReturnType<typeof chooseFigures>, notes: string[]): ReturnType<typeof chooseFigures>['tax'] {
+  const { total, subtotal, tax, shipping, discount } = chosen;
+  // Like the total, only a tax the OCR itself was unsure of is corrected.
+  if (!total || !subtotal || !tax || tax.confidence >= 0.8 || shipping || discount || chosen.rounding || chosen.service) return tax;
+  const expected = total.value.minus(subtotal.value);
+  if (expected.equals(tax.value) || !expected.isPositive() || editDistance(digitsOf(toWire(expected, 2)), digitsOf(toWire(tax.value, 2))) > 1) return tax;
+  notes.push(`The tax reads ${toWire(tax.value, 2)}; taken as ${toWire(expected, 2)}, the total less the subtotal. Check it.`);
+  return { value: expected, confidence: 0.6 };
 }
 
 /**
