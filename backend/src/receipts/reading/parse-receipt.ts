@@ -5,6 +5,7 @@ import type { LineKind, ReadBox, ReadField, ReadLine, ReadReceipt } from '../../
 import { AmountOptions, ReadAmount, currencyMark, readAmount, readQuantity, usesDecimalComma } from './amounts';
 import { findDate } from './dates';
 import { chooseReceiptDate, dateLimits } from './receipt-date';
+import { findVendor } from './vendor';
 import { editDistance, hasWord, keywordOf, readLabel, sameWord } from './label-words';
 import { chooseFigures, SummaryEntry } from './summary-figures';
 import type { SummaryRole } from './summary-words';
@@ -15,6 +16,8 @@ export interface ParseOptions {
   locale: string;
   /** ISO 4217 minor units of the build's currency (2 for EUR, 0 for JPY, 3 for BHD); 2 when not given. */
   minorUnits?: number;
+  /** Names of the shops the build already has receipts from: a name read close to one of them is taken as it. */
+  knownVendors?: string[];
   /** ISO date the receipt was uploaded: no receipt is dated after it. Today when not given. */
   readOn?: string;
   /** ISO date before which a printed date is taken for an OCR error (long before the build began). */
@@ -306,22 +309,6 @@ function round2(value: number): number {
 // ------------------------------------------------------------------------------------------------------
 // Vendor, currency
 
-const NOT_VENDOR = /^(RECEIPT|INVOICE|TAX INVOICE|SALES RECEIPT|WELCOME|ORDER|RETURN|CUSTOMER COPY|DUPLICATE|COPY|STATEMENT)$/i;
-
-function findVendor(lines: AnalysedLine[]): ReadField<string> {
-  for (const analysed of lines.slice(0, 6)) {
-    const text = analysed.text.replace(/[^A-Za-z0-9&'.,\- ]/g, ' ').replace(/\s+/g, ' ').trim();
-    const letters = (text.match(/[A-Za-z]/g) ?? []).length;
-    if (letters < 4 || letters < text.replace(/\s/g, '').length * 0.6) continue;
-    if (NOT_VENDOR.test(text) || /@|www\.|https?:/i.test(analysed.text) || findDate(analysed.text, 'en-US')) continue;
-    if (analysed.tokens.some((token) => token.amount)) continue;
-    // The first line is where shops print their name; a later one is a weaker guess.
-    const position = lines.indexOf(analysed) === 0 ? 1 : 0.8;
-    return { value: text, confidence: round2(analysed.confidence * position) };
-  }
-  return { value: null, confidence: 0 };
-}
-
 /** The currency a bare "$" means in a region (from the locale), common practice; USD elsewhere. */
 const DOLLAR_BY_REGION: Record<string, string> = { US: 'USD', CA: 'CAD', AU: 'AUD', NZ: 'NZD', SG: 'SGD', HK: 'HKD', MX: 'MXN', TW: 'TWD' };
 /** A region's usual currency, for slips that print no mark at all (common practice). */
@@ -517,7 +504,10 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
   const wire = (value: Decimal | null | undefined) => (value === null || value === undefined ? null : toWire(value, Math.max(2, value.decimalPlaces())));
 
   return {
-    vendor: findVendor(lines),
+    vendor: findVendor(
+      lines.map((analysed) => ({ line: analysed.line, text: analysed.text, keywords: analysed.keywords, confidence: analysed.confidence, hasAmount: analysed.tokens.some((token) => token.amount) })),
+      options.knownVendors,
+    ),
     date,
     currency,
     lines: readLines,
