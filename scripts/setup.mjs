@@ -110,11 +110,37 @@ export function ensurePostgres() {
 export function ensureNodeModules() {
   const lock = path.join(ROOT, 'package-lock.json');
   const installed = path.join(ROOT, 'node_modules', '.package-lock.json');
+  // The reading's language data is a package too, from Debian rather than npm.
+  ensureOcrLanguages();
   if (fs.existsSync(installed) && (!fs.existsSync(lock) || fs.statSync(installed).mtimeMs >= fs.statSync(lock).mtimeMs)) {
     return false;
   }
   log('Installing npm packages (npm ci) ...');
   run('npm', fs.existsSync(lock) ? ['ci'] : ['install']);
+  return true;
+}
+
+/** Languages receipts are read in beside English, as tesseract names them; the build's locale chooses among them. */
+export const OCR_LANGUAGES = ['deu', 'fra', 'spa', 'ita', 'nld', 'por', 'msa'];
+/** Where Debian's tesseract-ocr-<lang> packages put their trained data (5.x, then 4.x). */
+export const TESSDATA_FOLDERS = ['/usr/share/tesseract-ocr/5/tessdata', '/usr/share/tesseract-ocr/4.00/tessdata'];
+
+/**
+ * Installs Debian's OCR data for the other languages (never fetched at run time). Without root it only says how:
+ * receipts are then read with the English model alone.
+ */
+export function ensureOcrLanguages() {
+  const missing = OCR_LANGUAGES.filter((language) => !TESSDATA_FOLDERS.some((folder) => fs.existsSync(path.join(folder, `${language}.traineddata`))));
+  if (missing.length === 0) return false;
+  const packages = missing.map((language) => `tesseract-ocr-${language}`);
+  if (!IS_ROOT) {
+    log(`Receipts in other languages are read with the English model until these are installed:\n  sudo apt-get update && sudo apt-get install -y ${packages.join(' ')}`);
+    return false;
+  }
+  log(`Installing OCR language data from Debian (apt-get): ${packages.join(' ')} ...`);
+  const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
+  run('apt-get', ['update'], { env });
+  run('apt-get', ['install', '-y', '--no-install-recommends', ...packages], { env });
   return true;
 }
 

@@ -7,7 +7,8 @@ import { findDate } from './dates';
 import { chooseReceiptDate, dateLimits } from './receipt-date';
 import { findVendor } from './vendor';
 import { editDistance, hasWord, keywordOf, readLabel, sameWord } from './label-words';
-import { chooseFigures, SummaryEntry } from './summary-figures';
+import { chooseFigures, SummaryEntry, TaxTableRow } from './summary-figures';
+import { TAX_TABLE_WORDS } from './summary-words';
 import type { SummaryRole } from './summary-words';
 import { TextLine, TextPage, TextWord, lineText, unionBox } from './text-lines';
 
@@ -449,7 +450,7 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
   const printedSubtotal = entries.find((entry) => entry.role === 'subtotal');
   const repairedLine = printedSubtotal ? repairOneLine(readLines, printedSubtotal.value, notes) : null;
   const itemSum = sum(readLines.map((item) => new Decimal(item.amount)));
-  const chosen = chooseFigures(entries, readLines.length > 0 ? itemSum : null);
+  const chosen = chooseFigures(entries, readLines.length > 0 ? itemSum : null, taxTableRows(lines, entries));
   const { subtotal, shipping, discount } = chosen;
   const tax = repairTax(chosen, notes);
   const total = chosen.total ? { ...chosen.total } : null;
@@ -521,6 +522,27 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
     pages: pages.map(({ width, height, source }) => ({ width, height, source })),
     words: pages.flatMap((page) => page.lines.flatMap((line) => line.words)),
   };
+}
+
+/**
+ * Rows of a tax table under the total: the last two amounts of a line below the first tax-table heading, net then
+ * tax ("SR 6% 106.10 6.37", "A 19% 42,02 7,98 50,00" where the third is their gross).
+ */
+function taxTableRows(lines: AnalysedLine[], entries: SummaryEntry[]): TaxTableRow[] {
+  const firstTotal = entries.find((entry) => entry.role === 'total' || entry.role === 'final_total');
+  if (!firstTotal) return [];
+  const heading = lines.findIndex((analysed, index) => index > firstTotal.index && analysed.tokens.every((token) => !token.amount) && hasWord(analysed.keywords, ...TAX_TABLE_WORDS) && hasWord(analysed.keywords, 'GST', 'VAT', 'TAX', 'MWST', 'TVA', 'IVA', 'BTW', 'SST', 'UST', 'STEUER', 'CUKAI'));
+  if (heading === -1) return [];
+  const rows: TaxTableRow[] = [];
+  for (const analysed of lines.slice(heading + 1, heading + 6)) {
+    const amounts = analysed.tokens.flatMap((token) => (token.amount ? [new Decimal(token.amount.value)] : []));
+    if (amounts.length < 2) continue;
+    const withGross = amounts.length >= 3 && amounts[amounts.length - 3].plus(amounts[amounts.length - 2]).equals(amounts[amounts.length - 1]);
+    const [net, tax] = withGross ? amounts.slice(-3, -1) : amounts.slice(-2);
+    // The tax of a rate is smaller than its net amount; anything else is not a row of the table.
+    if (tax.lessThan(net)) rows.push({ net, tax });
+  }
+  return rows;
 }
 
 /**

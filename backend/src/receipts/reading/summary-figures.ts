@@ -56,7 +56,13 @@ function distinct(values: Decimal[]): Decimal[] {
   return [...seen.values()];
 }
 
-export function chooseFigures(entries: SummaryEntry[], lineSum: Decimal | null): ChosenFigures {
+/** A row of a tax table printed under the total: the net amount of one rate and its tax. */
+export interface TaxTableRow {
+  net: Decimal;
+  tax: Decimal;
+}
+
+export function chooseFigures(entries: SummaryEntry[], lineSum: Decimal | null, taxTable: TaxTableRow[] = []): ChosenFigures {
   const ofRole = (...roles: SummaryEntry['role'][]) => entries.filter((entry) => roles.includes(entry.role));
   const firstTotal = ofRole('total', 'final_total')[0];
   // Below the payment block come tax tables, card slips and loyalty lines: their "totals" are not the receipt's.
@@ -168,6 +174,14 @@ export function chooseFigures(entries: SummaryEntry[], lineSum: Decimal | null):
         if (rounding) target.rounding = rounding;
         break;
       }
+    }
+  }
+
+  // A tax table: the nets of its rates plus their taxes give the gross, the total (before any cash rounding).
+  if (taxTable.length > 0) {
+    const gross = sum(taxTable.map((row) => row.net.plus(row.tax)));
+    for (const target of candidates.values()) {
+      if (gross.equals(target.value) || (target.rounding && gross.plus(target.rounding).equals(target.value))) addFact(target, 1.5, 'net plus tax in the tax table gives it');
     }
   }
 
