@@ -73,7 +73,26 @@ function tokenize(line: TextLine, options: AmountOptions): Token[] {
     }
     tokens.push(makeToken(word.text, [word], options));
   }
-  return tokens;
+  return joinLostDecimalPoint(tokens, options);
+}
+
+/**
+ * OCR often reads a faint decimal point as a space: "RM 64 13", "14 00" at the end of a line are 64.13 and 14.00.
+ * Only a whole number followed by the currency's exact count of decimals, ending the line, is joined, a little less sure.
+ */
+function joinLostDecimalPoint(tokens: Token[], options: AmountOptions): Token[] {
+  const decimals = options.minorUnits ?? 2;
+  const last = tokens.length - 1;
+  // Only where the line has no other amount: beside a well-read one, the two numbers are more likely something else.
+  if (decimals === 0 || last < 1 || tokens.some((token) => token.amount)) return tokens;
+  const [whole, fraction] = [tokens[last - 1], tokens[last]];
+  if (whole.amount || !new RegExp(`^[0-9]{${decimals}}$`).test(fraction.text)) return tokens;
+  const mark = /^(.*?)([0-9]{1,4})$/.exec(whole.text);
+  if (!mark || (mark[1] !== '' && !currencyMark(mark[1]))) return tokens;
+  const joined = makeToken(`${whole.text}.${fraction.text}`, [...whole.words, ...fraction.words], options);
+  if (!joined.amount) return tokens;
+  joined.amount = { ...joined.amount, confidence: Math.min(joined.amount.confidence, 0.6) };
+  return [...tokens.slice(0, last - 1), joined];
 }
 
 function makeToken(text: string, words: TextWord[], options: AmountOptions): Token {
@@ -271,7 +290,11 @@ export function repairUnitPrice(unitPrice: ReadAmount, quantity: string, amount:
   const fitting = amount.dividedBy(quantity);
   if (fitting.decimalPlaces() > 4) return unitPrice;
   const fittingText = toWire(fitting, Math.max(2, fitting.decimalPlaces()));
-  if (editDistance(digitsOf(fittingText), digitsOf(unitPrice.value)) > 1) return unitPrice;
+  const fittingDigits = digitsOf(fittingText);
+  const readDigits = digitsOf(unitPrice.value);
+  // One slip, or part of the price lost ("$79" for $11.79) where what was read still stands in the fitting price.
+  const partLost = readDigits.length >= 2 && fittingDigits.includes(readDigits);
+  if (editDistance(fittingDigits, readDigits) > 1 && !partLost) return unitPrice;
   return { ...unitPrice, value: fittingText, confidence: Math.min(unitPrice.confidence, 0.7) };
 }
 
