@@ -213,6 +213,8 @@ interface DraftLine {
   amount: Decimal;
   confidence: number;
   boxes: ReadBox[];
+  /** The receipt line the amount was read from. */
+  lineIndex?: number;
 }
 
 function itemFromLine(analysed: AnalysedLine, hasPartColumn: boolean, options: AmountOptions): DraftLine | null {
@@ -304,9 +306,9 @@ function isColumnHeader(analysed: AnalysedLine): boolean {
   return !analysed.tokens.some((token) => token.amount) && words.filter((word) => headerWords.some((header) => sameWord(word, header))).length >= 2;
 }
 
-function finishLine(draft: DraftLine): ReadLine {
+function finishLine(draft: DraftLine, minor: number): ReadLine {
   const quantity = draft.quantity ?? (draft.unitPrice ? quantityFromPrices(draft.amount, new Decimal(draft.unitPrice)) : '1');
-  const unitPrice = draft.unitPrice ?? (quantity === '1' ? toWire(draft.amount, Math.max(2, draft.amount.decimalPlaces())) : null);
+  const unitPrice = draft.unitPrice ?? (quantity === '1' ? toWire(draft.amount, Math.max(minor, draft.amount.decimalPlaces())) : null);
   const kind = lineKind(draft.description, draft.amount);
   return {
     kind,
@@ -314,7 +316,7 @@ function finishLine(draft: DraftLine): ReadLine {
     partNumber: draft.partNumber,
     quantity,
     unitPrice,
-    amount: toWire(draft.amount, Math.max(2, draft.amount.decimalPlaces())),
+    amount: toWire(draft.amount, Math.max(minor, draft.amount.decimalPlaces())),
     confidence: round2(draft.confidence),
     box: unionBox(draft.boxes),
   };
@@ -456,13 +458,19 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
     }
     pendingDescription = null;
     if (draft.description === '' && draft.quantity === null) continue;
+    draft.lineIndex = index;
     drafts.push(draft);
     seenItem = true;
   }
-  const readLines = drafts.map(finishLine);
+  // A total whose word OCR lost reads like one more item: the last "item" that is exactly the sum of all before it
+  // is taken back out and offered as a total instead.
+  const lastDraft = drafts[drafts.length - 1];
+  const lostTotal = drafts.length >= 3 && sum(drafts.slice(0, -1).map((draft) => draft.amount)).equals(lastDraft.amount) ? drafts.pop()! : null;
+  const minor = amountOptions.minorUnits ?? 2;
+  const readLines = drafts.map((draft) => finishLine(draft, minor));
 
   // Summary figures: every figure printed beside a summary word is a candidate; the receipt's arithmetic chooses.
-  const entries: SummaryEntry[] = [];
+  const entries: SummaryEntry[] = lostTotal ? [{ role: 'unlabelled', value: lostTotal.amount, index: lostTotal.lineIndex!, confidence: lostTotal.confidence }] : [];
   for (let index = itemEnd; index < lines.length; index += 1) {
     const analysed = lines[index];
     const amount = rightmostAmount(analysed);
@@ -473,20 +481,22 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
   const printedSubtotal = entries.find((entry) => entry.role === 'subtotal');
   const repairedLine = printedSubtotal ? repairOneLine(readLines, printedSubtotal.value, notes) : null;
   const itemSum = sum(readLines.map((item) => new Decimal(item.amount)));
-  const chosen = chooseFigures(entries, readLines.length > 0 ? itemSum : null, taxTableRows(lines, entries));
+  const taxTable = taxTableRows(lines, entries);
+  const chosen = chooseFigures(entries, readLines.length > 0 ? itemSum : null, taxTable);
   const { subtotal, shipping, discount } = chosen;
-  const tax = repairTax(chosen, notes);
+  // A slip that prints its tax only in the table under the total (common in Europe): the table's taxes add up.
+  const tax = repairTax(chosen, notes) ?? (taxTable.length > 0 ? { value: sum(taxTable.map((row) => row.tax)), confidence: 0.8 } : null);
   const total = chosen.total ? { ...chosen.total } : null;
   const discountValue = discount ? discount.value.abs() : null;
   // A cash-rounded total is the amount paid; the adjustment stays as its own line so the receipt reconciles.
   if (chosen.rounding) {
     const roundingEntry = entries.find((entry) => entry.role === 'rounding' && entry.value.equals(chosen.rounding!));
-    const amount = toWire(chosen.rounding, Math.max(2, chosen.rounding.decimalPlaces()));
+    const amount = toWire(chosen.rounding, Math.max(minor, chosen.rounding.decimalPlaces()));
     readLines.push({ kind: chosen.rounding.isNegative() ? 'discount' : 'fee', description: 'Rounding adjustment', partNumber: null, quantity: '1', unitPrice: amount, amount, confidence: 0.95, box: roundingEntry ? lines[roundingEntry.index].line.box : null });
   }
   if (chosen.service) {
     const serviceEntry = entries.find((entry) => entry.role === 'service' && entry.value.equals(chosen.service!));
-    const amount = toWire(chosen.service, Math.max(2, chosen.service.decimalPlaces()));
+    const amount = toWire(chosen.service, Math.max(minor, chosen.service.decimalPlaces()));
     readLines.push({ kind: 'fee', description: serviceEntry ? lines[serviceEntry.index].text.replace(/\s*[-+]?\S*[0-9][.,][0-9]+\S*\s*$/, '').trim() || 'Service charge' : 'Service charge', partNumber: null, quantity: '1', unitPrice: amount, amount, confidence: 0.95, box: serviceEntry ? lines[serviceEntry.index].line.box : null });
   }
   const rounding = sum([chosen.rounding ?? new Decimal(0), chosen.service ?? new Decimal(0)]);
@@ -525,7 +535,7 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
   if (dateChoice.note) notes.push(dateChoice.note);
   const date = dateChoice.field;
   const currency = findCurrency(lines, options.locale, notes);
-  const wire = (value: Decimal | null | undefined) => (value === null || value === undefined ? null : toWire(value, Math.max(2, value.decimalPlaces())));
+  const wire = (value: Decimal | null | undefined) => (value === null || value === undefined ? null : toWire(value, Math.max(minor, value.decimalPlaces())));
 
   return {
     vendor: findVendor(
@@ -559,7 +569,8 @@ function taxTableRows(lines: AnalysedLine[], entries: SummaryEntry[]): TaxTableR
   const rows: TaxTableRow[] = [];
   for (const analysed of lines.slice(heading + 1, heading + 6)) {
     const amounts = analysed.tokens.flatMap((token) => (token.amount ? [new Decimal(token.amount.value)] : []));
-    if (amounts.length < 2) continue;
+    // The table's own total row repeats the sums of its rates.
+    if (amounts.length < 2 || analysed.summary === 'total' || analysed.summary === 'final_total' || analysed.summary === 'subtotal') continue;
     const withGross = amounts.length >= 3 && amounts[amounts.length - 3].plus(amounts[amounts.length - 2]).equals(amounts[amounts.length - 1]);
     const [net, tax] = withGross ? amounts.slice(-3, -1) : amounts.slice(-2);
     // The tax of a rate is smaller than its net amount; anything else is not a row of the table.

@@ -204,11 +204,10 @@ export function chooseFigures(entries: SummaryEntry[], lineSum: Decimal | null, 
     if (value === undefined) return null;
     return { value, confidence: chosen !== undefined ? 0.95 : confidenceOf(value, roles) };
   };
-  const taxBeforeTotal = taxLines.filter((entry) => best.index === null || entry.index <= best.index || entry.index >= paymentStart);
   return {
     total: { value: best.value, confidence: totalConfidence },
     subtotal: pick(best.parts.subtotal, subtotals[0], ['subtotal']),
-    tax: pick(best.parts.tax, taxBeforeTotal.length > 0 ? sum(taxBeforeTotal.map((entry) => entry.value)) : undefined, ['tax']),
+    tax: pick(best.parts.tax, taxLines.length > 0 ? sum(taxLines.map((entry) => entry.value)) : undefined, ['tax']),
     shipping: pick(best.parts.shipping, shippings[0], ['shipping']),
     discount: pick(best.parts.discount, discounts[0], ['discount']),
     rounding: best.rounding,

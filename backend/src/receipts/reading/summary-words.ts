@@ -30,7 +30,7 @@ export interface SummaryWords {
 
 export const SUMMARY_WORDS: SummaryWords[] = [
   // Totals
-  { role: 'total', languages: ['en', 'ms'], source: 'common practice', phrases: ['TOTAL', 'TOTAL AMOUNT', 'AMOUNT DUE', 'BALANCE DUE', 'TOTAL DUE', 'TOTAL PAYABLE', 'AMOUNT PAYABLE', 'TOTAL SALES', 'NET AMOUNT', 'TOTAL INCL', 'TOTAL INCLUSIVE', 'TOTAL RM', 'NETT AMOUNT', 'TOTAL AMT', 'NET AMT', 'NETT AMT', 'TOTAL SALES INCLUSIVE', 'AMOUNT TO BE PAID', 'AMOUNT TO PAY', 'TOTAL INCLUSIVE OF GST'] },
+  { role: 'total', languages: ['en', 'ms'], source: 'common practice', phrases: ['TOTAL', 'TOT', 'TTL', 'TOTAL AMOUNT', 'AMOUNT DUE', 'BALANCE DUE', 'TOTAL DUE', 'TOTAL PAYABLE', 'AMOUNT PAYABLE', 'TOTAL SALES', 'NET AMOUNT', 'TOTAL INCL', 'TOTAL INCLUSIVE', 'TOTAL RM', 'NETT AMOUNT', 'TOTAL AMT', 'NET AMT', 'NETT AMT', 'TOTAL SALES INCLUSIVE', 'AMOUNT TO BE PAID', 'AMOUNT TO PAY', 'TOTAL INCLUSIVE OF GST'] },
   { role: 'final_total', languages: ['en', 'ms'], source: 'common practice', phrases: ['GRAND TOTAL', 'NETT TOTAL', 'NET TOTAL', 'ROUNDED TOTAL', 'TOTAL ROUNDED', 'ROUND TOTAL', 'TOTAL AFTER ROUNDING', 'ROUNDED AMOUNT', 'TOTAL TO PAY', 'PAYABLE'] },
   { role: 'total', languages: ['de'], source: 'memory', phrases: ['SUMME', 'GESAMT', 'GESAMTBETRAG', 'GESAMTSUMME', 'BETRAG', 'RECHNUNGSBETRAG', 'BRUTTO', 'BRUTTOBETRAG'] },
   { role: 'final_total', languages: ['de'], source: 'memory', phrases: ['ZU ZAHLEN', 'ENDSUMME', 'ENDBETRAG', 'ZAHLBETRAG'] },
