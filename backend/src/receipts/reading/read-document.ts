@@ -61,6 +61,9 @@ export interface DocumentRead {
   images: Array<NormalisedImage | null>;
 }
 
+/** Row height of the print for the second look: larger than the first, which is what small faint print needs. */
+const SECOND_LOOK_ROW_HEIGHT = 44;
+
 /** A reading is consistent when the receipt's own arithmetic agreed on its total. */
 function consistent(reading: ReadReceipt): boolean {
   return reading.total.value !== null && (reading.agreements ?? []).some((fact) => !fact.startsWith('it is printed'));
@@ -102,7 +105,8 @@ export async function readDocumentWithImages(bytes: Buffer, options: ReadOptions
   const page = (lines: TextPage['lines']): TextPage => ({ width: image.width, height: image.height, source: 'ocr', lines });
   const reading = parseReceipt([page(first.lines)], parseOptions);
   if (consistent(reading)) return { reading, images: [image] };
-  // A second look, only when the first reading's figures do not agree: the page read as one column of text.
-  const second = parseReceipt([page((await pool.read(image.png, 0, true)).lines)], parseOptions);
-  return { reading: consistent(second) ? second : reading, images: [image] };
+  // A second look, only when the first reading's figures do not agree: the print larger, read as one column.
+  const larger = await normaliseImage(bytes, type, { rowHeight: SECOND_LOOK_ROW_HEIGHT });
+  const second = parseReceipt([{ width: larger.width, height: larger.height, source: 'ocr', lines: (await pool.read(larger.png, 0, true)).lines }], parseOptions);
+  return consistent(second) ? { reading: second, images: [larger] } : { reading, images: [image] };
 }
