@@ -111,6 +111,8 @@ export function ensurePostgres() {
 export function ensureNodeModules() {
   const lock = path.join(ROOT, 'package-lock.json');
   const installed = path.join(ROOT, 'node_modules', '.package-lock.json');
+  // The reading's language data is a package too, from Debian rather than npm.
+  ensureOcrLanguages();
   if (fs.existsSync(installed) && (!fs.existsSync(lock) || fs.statSync(installed).mtimeMs >= fs.statSync(lock).mtimeMs)) {
     return false;
   }
@@ -138,6 +140,30 @@ export function checkRuntimeEngines() {
   if (mismatches.length > 0) {
     fail(`These runtime packages do not support Node ${process.versions.node} (npm's EBADENGINE):\n${mismatches.join('\n')}\nPin versions whose "engines" allow this Node (see shared STACK-NOTES) and run npm install.`);
   }
+}
+
+/** Languages receipts are read in beside English, as tesseract names them; the build's locale chooses among them. */
+export const OCR_LANGUAGES = ['deu', 'fra', 'spa', 'ita', 'nld', 'por', 'msa'];
+/** Where Debian's tesseract-ocr-<lang> packages put their trained data (5.x, then 4.x). */
+export const TESSDATA_FOLDERS = ['/usr/share/tesseract-ocr/5/tessdata', '/usr/share/tesseract-ocr/4.00/tessdata'];
+
+/**
+ * Installs Debian's OCR data for the other languages (never fetched at run time). Without root it only says how:
+ * receipts are then read with the English model alone.
+ */
+export function ensureOcrLanguages() {
+  const missing = OCR_LANGUAGES.filter((language) => !TESSDATA_FOLDERS.some((folder) => fs.existsSync(path.join(folder, `${language}.traineddata`))));
+  if (missing.length === 0) return false;
+  const packages = missing.map((language) => `tesseract-ocr-${language}`);
+  if (!IS_ROOT) {
+    log(`Receipts in other languages are read with the English model until these are installed:\n  sudo apt-get update && sudo apt-get install -y ${packages.join(' ')}`);
+    return false;
+  }
+  log(`Installing OCR language data from Debian (apt-get): ${packages.join(' ')} ...`);
+  const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
+  run('apt-get', ['update'], { env });
+  run('apt-get', ['install', '-y', '--no-install-recommends', ...packages], { env });
+  return true;
 }
 
 /** Makes sure Debian's Chromium is there for the browser tests. */

@@ -63,6 +63,11 @@ export interface ReadReceipt {
   total: ReadField<string>;
   /** Things a person should check, in plain words (an ambiguous date, totals that do not add up). */
   notes: string[];
+  /**
+   * The facts of the receipt's own arithmetic that agreed on its figures, in words ("the amount tendered minus the
+   * change matches it"); empty when the total rests on its printed word alone.
+   */
+  agreements?: string[];
   pages: ReadPage[];
   words: ReadWord[];
 }

@@ -1,10 +1,13 @@
 // `npm run bench`: speed, memory and accuracy figures, printed; targets live here, never in timed tests.
 import { benchLedger } from './ledger-bench';
 import { benchReadingAccuracy } from './reading-accuracy';
+import { benchRealReceipts } from './real-receipts';
 
 async function main() {
   const sections: [string, () => Promise<Record<string, string | number>>][] = [
     ['Receipt reading (fixture set)', benchReadingAccuracy],
+    // Real scans from outside the repository (../shared/receipts-real/sroie or REAL_RECEIPTS); skipped when absent.
+    ['Receipt reading (real receipts)', () => benchRealReceipts()],
     ['Ledger and exports (seeded builds)', benchLedger],
   ];
   for (const [title, run] of sections) {

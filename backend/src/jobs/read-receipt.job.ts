@@ -7,6 +7,7 @@ import { Decimal, fitsMinorUnits, parseMoney } from '../../../shared/money';
 import { ReceiptLine } from '../receipts/receipt-line.entity';
 import { Receipt } from '../receipts/receipt.entity';
 import { vendorNamed } from '../receipts/receipts.service';
+import { Vendor } from '../receipts/vendor.entity';
 import { UnreadableDocumentError } from '../receipts/reading/sniff';
 import type { ObjectStore } from '../storage/object-store';
 
@@ -21,7 +22,15 @@ export interface DocumentReading {
   pageImages: PageImage[];
 }
 
-export type DocumentReader = (bytes: Buffer, locale: string) => Promise<DocumentReading>;
+/** What the build knows that helps reading: its currency's decimals, the upload day, the shops it has seen. */
+export interface ReadingContext {
+  currency: string;
+  /** ISO date the receipt was uploaded: no receipt is dated after it. */
+  readOn: string;
+  knownVendors: string[];
+}
+
+export type DocumentReader = (bytes: Buffer, locale: string, context?: ReadingContext) => Promise<DocumentReading>;
 
 export interface ReadReceiptDeps {
   orm: MikroORM;
@@ -40,6 +49,13 @@ async function setProgress(em: EntityManager, receiptId: string, progress: numbe
   await em.nativeUpdate(Receipt, { id: receiptId }, { readingProgress: progress });
 }
 
+/** The facts that agreed on the total, as one sentence for the check screen. */
+function agreementNotes(reading: ReadReceipt): string[] {
+  const agreements = reading.agreements ?? [];
+  if (reading.total.value === null || agreements.length === 0) return [];
+  return [`Total ${reading.total.value}: ${agreements.join('; ')}.`];
+}
+
 /** Returns what happened, for logs and tests. */
 export async function readQueuedReceipt(deps: ReadReceiptDeps, receiptId: string, finalAttempt: boolean): Promise<'read' | 'skipped' | 'failed'> {
   const em = deps.orm.em.fork();
@@ -54,7 +70,8 @@ export async function readQueuedReceipt(deps: ReadReceiptDeps, receiptId: string
   try {
     const bytes = await deps.store.get(receipt.documentKey);
     await setProgress(em, receipt.id, 25);
-    result = await deps.read(bytes, receipt.build.locale);
+    const knownVendors = (await em.find(Vendor, { build: receipt.build }, { fields: ['name'], limit: 500 })).map((vendor) => vendor.name);
+    result = await deps.read(bytes, receipt.build.locale, { currency: receipt.build.currency, readOn: receipt.createdAt.toISOString().slice(0, 10), knownVendors });
   } catch (error) {
     console.error(`[worker] reading receipt ${receipt.id} failed:`, error);
     if (error instanceof UnreadableDocumentError || finalAttempt) {
@@ -81,9 +98,17 @@ export async function readQueuedReceipt(deps: ReadReceiptDeps, receiptId: string
     if (locked.state !== 'reading') return;
     // Lines from an earlier, interrupted attempt go; the reading's lines replace them.
     await tx.nativeDelete(ReceiptLine, { receipt: locked });
+    // Nothing the reading found vanishes silently: a line the currency cannot hold, or a quantity that is not a
+    // number, leaves a note for the person checking.
+    const jobNotes: string[] = [];
     reading.lines.forEach((line, position) => {
       const amount = readMoney(line.amount, currency);
-      if (amount === null) return;
+      if (amount === null) {
+        jobNotes.push(`A line "${line.description.slice(0, 60)}" reads ${line.amount}, which is not an amount in ${currency}; it was left out. Add it by hand if it belongs.`);
+        return;
+      }
+      const quantityRead = parseMoney(line.quantity, { maxDecimals: 4 }).ok;
+      if (!quantityRead) jobNotes.push(`The quantity of "${line.description.slice(0, 60)}" reads "${line.quantity}"; 1 was entered. Check it.`);
       tx.create(ReceiptLine, {
         build: locked.build,
         receipt: locked,
@@ -91,7 +116,7 @@ export async function readQueuedReceipt(deps: ReadReceiptDeps, receiptId: string
         kind: line.kind,
         description: line.description.slice(0, 300) || '(no description read)',
         partNumber: (line.partNumber ?? '').slice(0, 80),
-        quantity: parseMoney(line.quantity, { maxDecimals: 4 }).ok ? new Decimal(line.quantity) : new Decimal(1),
+        quantity: quantityRead ? new Decimal(line.quantity) : new Decimal(1),
         unitPrice: line.unitPrice === null ? null : (readMoney(line.unitPrice, currency) ?? null),
         amount,
         box: line.box,
@@ -118,7 +143,7 @@ export async function readQueuedReceipt(deps: ReadReceiptDeps, receiptId: string
         discount: reading.discount.value === null ? 1 : reading.discount.confidence,
         total: reading.total.confidence,
       },
-      notes: reading.notes,
+      notes: [...agreementNotes(reading), ...reading.notes, ...jobNotes],
       currency: reading.currency.value,
       words: reading.words,
     };

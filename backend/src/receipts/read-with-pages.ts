@@ -1,10 +1,10 @@
 // Reads a document and keeps the page images the reading's word boxes refer to, for the check screen.
 import path from 'node:path';
-import type { DocumentReading, PageImage } from '../jobs/read-receipt.job';
+import type { DocumentReading, PageImage, ReadingContext } from '../jobs/read-receipt.job';
 import { importEsm } from './reading/esm-import';
 import { normaliseImage } from './reading/normalise';
 import { MAX_RENDER_PIXELS, readPdfPages, TEXT_SCALE } from './reading/pdf-text';
-import { readDocument } from './reading/read-document';
+import { readDocumentWithImages } from './reading/read-document';
 import { sniffReceiptType, UnreadableDocumentError } from './reading/sniff';
 
 type PdfJs = typeof import('pdfjs-dist/legacy/build/pdf.mjs');
@@ -43,9 +43,10 @@ async function pdfPageImages(bytes: Buffer): Promise<PageImage[]> {
   }
 }
 
-export async function readWithPageImages(bytes: Buffer, locale: string): Promise<DocumentReading> {
-  const reading = await readDocument(bytes, { locale });
+export async function readWithPageImages(bytes: Buffer, locale: string, context?: ReadingContext): Promise<DocumentReading> {
+  const { reading, images } = await readDocumentWithImages(bytes, { locale, currency: context?.currency, readOn: context?.readOn, knownVendors: context?.knownVendors });
   const type = await sniffReceiptType(bytes);
-  const pageImages = type === 'pdf' ? await pdfPageImages(bytes) : [await normaliseImage(bytes, type)];
+  // A photo's page image is the one the OCR read, so the word boxes fall on it.
+  const pageImages = type === 'pdf' ? await pdfPageImages(bytes) : images.filter((image): image is PageImage => image !== null);
   return { reading, pageImages };
 }

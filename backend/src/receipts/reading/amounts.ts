@@ -18,11 +18,39 @@ const MARKS: Array<[string, string]> = [
   ['EUR', 'EUR'],
   ['GBP', 'GBP'],
   ['MYR', 'MYR'],
+  ['JPY', 'JPY'],
+  ['BHD', 'BHD'],
+  ['CHF', 'CHF'],
   ['RM', 'MYR'],
+  ['BD', 'BHD'],
   ['$', '$'],
   ['€', 'EUR'],
   ['£', 'GBP'],
+  ['¥', 'JPY'],
+  ['￥', 'JPY'],
+  ['円', 'JPY'],
 ];
+
+export interface AmountOptions {
+  /** False also accepts whole numbers (unit prices printed "4"). */
+  requireDecimals?: boolean;
+  /**
+   * ISO 4217 minor units of the build's currency: 2 (EUR, USD, MYR), 0 (JPY: "¥1,200" is 1200 and amounts print
+   * no decimals), 3 (BHD: "1.250" is one dinar 250 fils). Default 2.
+   */
+  minorUnits?: number;
+  /** The build's locale writes a decimal comma (de, fr, es, it, nl, pt): "1.234" is a thousand, "12,5" is decimal. */
+  decimalComma?: boolean;
+}
+
+/** Whether a locale writes its decimals after a comma, from Intl's own number format. */
+export function usesDecimalComma(locale: string): boolean {
+  try {
+    return new Intl.NumberFormat(locale).formatToParts(1.5).find((part) => part.type === 'decimal')?.value === ',';
+  } catch {
+    return false;
+  }
+}
 
 /** The mark a word consists of, when a receipt prints it apart from the number ("RM 12.40"). */
 export function currencyMark(word: string): string | null {
@@ -55,10 +83,18 @@ const DIGIT_LOOKALIKES: Record<string, string> = {
  * Reads one printed token as an amount with decimals. Returns null for anything that is not one: integers
  * (quantities), dates, times, percentages and words. `requireDecimals` false also accepts whole numbers.
  */
-export function readAmount(token: string, options: { requireDecimals?: boolean } = {}): ReadAmount | null {
-  const requireDecimals = options.requireDecimals ?? true;
-  // OCR gives "~" or "_" for a faint trailing minus ("3.12~").
-  let text = token.trim().replace(/[−–]/g, '-').replace(/(?<=[0-9])[~_]$/, '-');
+export function readAmount(token: string, options: AmountOptions = {}): ReadAmount | null {
+  const minorUnits = options.minorUnits ?? 2;
+  // A currency without minor units prints whole amounts only.
+  const requireDecimals = (options.requireDecimals ?? true) && minorUnits > 0;
+  // OCR gives "~" or "_" for a faint trailing minus ("3.12~"); "*" marks and a tax-class letter glued to the
+  // amount ("49,99A", "9.00*", "*9.00") are not part of it.
+  let text = token
+    .trim()
+    .replace(/[−–]/g, '-')
+    .replace(/(?<=[0-9])[~_]$/, '-')
+    .replace(/^\*+|\*+$/g, '')
+    .replace(/(?<=[0-9][.,][0-9]{2})[A-HJ-NP-Z]$/, '');
   if (text === '' || /[%/:]/.test(text)) return null;
   let confidence = 1;
 
@@ -116,9 +152,9 @@ export function readAmount(token: string, options: { requireDecimals?: boolean }
   const allDigits = (fixed.match(/[0-9]/g) ?? []).length;
   if (realDigits * 2 < allDigits) return null;
 
-  const digits = normaliseSeparators(fixed, requireDecimals);
+  const digits = normaliseSeparators(fixed, requireDecimals, minorUnits, options.decimalComma ?? false);
   if (digits === null) return null;
-  if (digits.commaDecimal) confidence = Math.min(confidence, 0.85);
+  if (digits.commaDecimal && !options.decimalComma) confidence = Math.min(confidence, 0.85);
   const value = new Decimal(digits.text);
   // Keep the printed decimals: "6.00" stays "6.00", not "6".
   const decimals = digits.text.includes('.') ? digits.text.split('.')[1].length : 0;
@@ -130,22 +166,28 @@ export function readAmount(token: string, options: { requireDecimals?: boolean }
  * groups before it are thousands groups of 3 ("1,234.56", "1.234,56", "1 234,56"); a lone comma before
  * two digits is a decimal comma (also what OCR makes of a faint dot).
  */
-function normaliseSeparators(text: string, requireDecimals: boolean): { text: string; commaDecimal: boolean } | null {
+function normaliseSeparators(text: string, requireDecimals: boolean, minorUnits: number, decimalComma: boolean): { text: string; commaDecimal: boolean } | null {
   const compact = text.trim();
   if (!/^[0-9][0-9.,' ]*$/.test(compact) || /[.,' ]$/.test(compact)) return null;
   const match = /^(.*?)([.,])([0-9]{1,4})$/.exec(compact);
-  if (!match) {
+  const wholeNumber = () => {
     if (requireDecimals) return null;
     const whole = stripThousands(compact);
     return whole === null ? null : { text: whole, commaDecimal: false };
-  }
+  };
+  if (!match) return wholeNumber();
   const [, integerPart, separator, decimals] = match;
-  // A comma before three digits ("1,234") is a thousands group; decimals after a comma are always two.
-  if (separator === ',' && decimals.length !== 2) {
-    if (requireDecimals || decimals.length !== 3) return null;
-    const whole = stripThousands(compact);
-    return whole === null ? null : { text: whole, commaDecimal: false };
+  const otherSeparator = separator === ',' ? '.' : ',';
+  // Three digits after the only separator: a thousands group ("1,234"; "1.234" where the locale writes a decimal
+  // comma; any "1.200" in a currency without minor units), or the decimals of a three-decimal currency ("1.250").
+  if (decimals.length === 3 && !integerPart.includes(otherSeparator)) {
+    const thousands = minorUnits === 0 || (minorUnits !== 3 && (separator === ',' ? !decimalComma : decimalComma));
+    if (thousands) return wholeNumber();
   }
+  // A currency without minor units: a whole amount, grouped or not.
+  if (minorUnits === 0 && decimals.length !== 2) return wholeNumber();
+  // Decimals after a comma are two, or three where the locale or the currency uses them.
+  if (separator === ',' && decimals.length !== 2 && !(decimals.length === 3 && (decimalComma || minorUnits === 3))) return null;
   // Two decimals for amounts; three or four only for unit prices (wire at 0.125 per foot).
   if (decimals.length === 1) return null;
   const whole = integerPart === '' ? null : stripThousands(integerPart, separator);

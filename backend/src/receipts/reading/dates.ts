@@ -11,8 +11,27 @@ export interface ReadDate {
   end: number;
 }
 
-const MONTH_NAMES = ['jan', 'feb', 'mar', 'apr', 'may', 'jun', 'jul', 'aug', 'sep', 'oct', 'nov', 'dec'];
-const MONTH_WORDS = 'jan(?:uary)?|feb(?:ruary)?|mar(?:ch)?|apr(?:il)?|may|june?|july?|aug(?:ust)?|sep(?:t(?:ember)?)?|oct(?:ober)?|nov(?:ember)?|dec(?:ember)?';
+/**
+ * Month names and their printed abbreviations, accents folded, in English, German, French, Spanish, Italian,
+ * Dutch, Portuguese and Malay (from memory of each language's calendar words).
+ */
+const MONTH_WORDS_BY_NUMBER: string[][] = [
+  ['january', 'jan', 'januar', 'janner', 'janvier', 'janv', 'enero', 'ene', 'gennaio', 'gen', 'januari', 'janeiro'],
+  ['february', 'feb', 'februar', 'fevrier', 'fevr', 'fev', 'febrero', 'febbraio', 'februari', 'fevereiro'],
+  ['march', 'mar', 'marz', 'maerz', 'mrz', 'mars', 'marzo', 'maart', 'mrt', 'marco', 'mac'],
+  ['april', 'apr', 'avril', 'avr', 'abril', 'abr', 'aprile'],
+  ['may', 'mai', 'mayo', 'maggio', 'mag', 'mei', 'maio'],
+  ['june', 'jun', 'juni', 'juin', 'junio', 'giugno', 'giu', 'junho'],
+  ['july', 'jul', 'juli', 'juillet', 'juil', 'julio', 'luglio', 'lug', 'julho', 'julai'],
+  ['august', 'aug', 'aout', 'agosto', 'ago', 'augustus', 'ogos'],
+  ['september', 'sep', 'sept', 'septembre', 'septiembre', 'setiembre', 'settembre', 'set', 'setembro'],
+  ['october', 'oct', 'oktober', 'okt', 'octobre', 'octubre', 'ottobre', 'ott', 'outubro', 'out'],
+  ['november', 'nov', 'novembre', 'noviembre', 'novembro'],
+  ['december', 'dec', 'dezember', 'dez', 'decembre', 'diciembre', 'dic', 'dicembre', 'dezembro', 'disember'],
+];
+const MONTH_BY_WORD = new Map(MONTH_WORDS_BY_NUMBER.flatMap((words, index) => words.map((word) => [word, index + 1] as const)));
+// Longest first, so "september" wins over "sep"; OCR may give 0 for o inside the word ("N0v").
+const MONTH_WORDS = [...MONTH_BY_WORD.keys()].sort((a, b) => b.length - a.length).map((word) => word.replace(/o/g, '[o0]')).join('|');
 const ENGLISH_MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
 
 /** True when the locale writes the day before the month (en-GB 14/11/2026), from Intl's own pattern. */
@@ -116,15 +135,22 @@ function numericCandidates(text: string, locale: string): Candidate[] {
   return found;
 }
 
-function monthIndex(word: string): number {
-  return MONTH_NAMES.indexOf(word.toLowerCase().replace(/0/g, 'o').slice(0, 3)) + 1;
+function foldAccents(text: string): string {
+  return text.normalize('NFD').replace(/\p{M}/gu, '');
 }
 
-function wordCandidates(text: string): Candidate[] {
+function monthIndex(word: string): number {
+  return MONTH_BY_WORD.get(foldAccents(word).toLowerCase().replace(/0/g, 'o')) ?? 0;
+}
+
+function wordCandidates(printed: string): Candidate[] {
   const found: Candidate[] = [];
+  // Accents folded for the month words ("März", "février", "août"); the folded text keeps the same positions
+  // for the letters the patterns need, so indexes stay close enough for ordering.
+  const text = foldAccents(printed);
   // OCR may give 0 for o inside the month word ("N0v"), so the letter class allows it.
-  const month = `((?:${MONTH_WORDS.replace(/o/g, '[o0]')}))\\.?`;
-  const dayMonthYear = new RegExp(`(?<![0-9A-Za-z])([0-9OlI]{1,2})(?:st|nd|rd|th)?[\\s\\-/.]*${month}[\\s\\-/.,]*([0-9OlI]{4}|[0-9]{2})(?![0-9A-Za-z])`, 'gi');
+  const month = `((?:${MONTH_WORDS}))\\.?`;
+  const dayMonthYear = new RegExp(`(?<![0-9A-Za-z])([0-9OlI]{1,2})(?:st|nd|rd|th|er|º|o)?[\\s\\-/.]*(?:de\\s+)?${month}[\\s\\-/.,]*(?:de\\s+)?([0-9OlI]{4}|[0-9]{2})(?![0-9A-Za-z])`, 'gi');
   const monthDayYear = new RegExp(`(?<![A-Za-z])${month}[\\s\\-/.]*([0-9OlI]{1,2})(?:st|nd|rd|th)?[\\s,.]+([0-9OlI]{4})(?![0-9A-Za-z])`, 'gi');
   for (const match of text.matchAll(dayMonthYear)) {
     const year = fullYear(fixDigits(match[3]));
@@ -139,9 +165,26 @@ function wordCandidates(text: string): Candidate[] {
   return found;
 }
 
-/** Every date in a piece of text, in reading order. */
-export function findDates(text: string, locale: string): ReadDate[] {
-  const candidates = [...wordCandidates(text), ...numericCandidates(text, locale)].sort((a, b) => a.index - b.index);
+export interface DateLimits {
+  /** ISO date after which no receipt can be dated: the day it was uploaded (a day's grace for time zones). */
+  notAfter?: string;
+  /** ISO date before which a receipt date is not believed (long before the build began). */
+  notBefore?: string;
+}
+
+/** The ISO date a number of days after another. */
+export function addDays(isoDate: string, days: number): string {
+  const date = new Date(`${isoDate}T00:00:00Z`);
+  date.setUTCDate(date.getUTCDate() + days);
+  return date.toISOString().slice(0, 10);
+}
+
+/** Every date in a piece of text, in reading order; dates outside the limits (OCR's 2048 for 2018) are refused. */
+export function findDates(text: string, locale: string, limits: DateLimits = {}): ReadDate[] {
+  const latest = limits.notAfter ? addDays(limits.notAfter, 1) : null;
+  const candidates = [...wordCandidates(text), ...numericCandidates(text, locale)]
+    .filter((candidate) => (latest === null || candidate.value <= latest) && (limits.notBefore === undefined || candidate.value >= limits.notBefore))
+    .sort((a, b) => a.index - b.index);
   // A month-word match and a numeric one can overlap ("14-Nov-26" is not numeric, but be safe): keep the first.
   const kept: Candidate[] = [];
   for (const candidate of candidates) {
@@ -153,6 +196,6 @@ export function findDates(text: string, locale: string): ReadDate[] {
 }
 
 /** The first date in the text, or null. */
-export function findDate(text: string, locale: string): ReadDate | null {
-  return findDates(text, locale)[0] ?? null;
+export function findDate(text: string, locale: string, limits: DateLimits = {}): ReadDate | null {
+  return findDates(text, locale, limits)[0] ?? null;
 }

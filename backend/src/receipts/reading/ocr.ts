@@ -1,5 +1,6 @@
 // A small pool of long-lived tesseract.js workers reading with the English model from the npm data package,
 // never from the network.
+import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { OEM, PSM, createWorker } from 'tesseract.js';
 import type { Worker, Block } from 'tesseract.js';
@@ -8,6 +9,24 @@ import { TextLine, TextWord, makeLine } from './text-lines';
 /** The LSTM-only integer model: small and fast (STACK-NOTES: 4.0.0_best_int). */
 export function trainedDataFolder(): string {
   return path.join(path.dirname(require.resolve('@tesseract.js-data/eng/package.json')), '4.0.0_best_int');
+}
+
+/** Where Debian's tesseract-ocr-<lang> packages put their data (installed by the set-up, never fetched). */
+const TESSDATA_FOLDERS = ['/usr/share/tesseract-ocr/5/tessdata', '/usr/share/tesseract-ocr/4.00/tessdata'];
+/** The tesseract model of a locale's language (ISO 639-1 → tesseract's 639-2 names), for the languages set up. */
+const MODEL_BY_LANGUAGE: Record<string, string> = { de: 'deu', fr: 'fra', es: 'spa', it: 'ita', nl: 'nld', pt: 'por', ms: 'msa' };
+
+export interface OcrModel {
+  language: string;
+  langPath: string;
+  gzip: boolean;
+}
+
+/** The model a locale reads with: its language's Debian data when installed, else the English model from npm. */
+export function modelFor(locale: string): OcrModel {
+  const language = MODEL_BY_LANGUAGE[new Intl.Locale(locale).language];
+  const folder = language ? TESSDATA_FOLDERS.find((candidate) => existsSync(path.join(candidate, `${language}.traineddata`))) : undefined;
+  return language && folder ? { language, langPath: folder, gzip: false } : { language: 'eng', langPath: trainedDataFolder(), gzip: true };
 }
 
 export interface OcrPage {
@@ -29,16 +48,19 @@ export class OcrPool {
   /** Milliseconds the last start took, for the bench. */
   startMs = 0;
 
-  constructor(private readonly size = 1) {}
+  constructor(
+    private readonly size = 1,
+    private readonly model: OcrModel = { language: 'eng', langPath: trainedDataFolder(), gzip: true },
+  ) {}
 
   start(): Promise<void> {
     this.starting ??= (async () => {
       const began = Date.now();
       const workers = await Promise.all(
         Array.from({ length: this.size }, () =>
-          createWorker('eng', OEM.LSTM_ONLY, {
-            langPath: trainedDataFolder(),
-            gzip: true,
+          createWorker(this.model.language, OEM.LSTM_ONLY, {
+            langPath: this.model.langPath,
+            gzip: this.model.gzip,
             // Without this tesseract.js writes the model into the working folder (or IndexedDB).
             cacheMethod: 'none',
           }),
@@ -54,10 +76,12 @@ export class OcrPool {
     return this.starting;
   }
 
-  async read(png: Buffer, page: number): Promise<OcrPage> {
+  /** Reads one page; `sparse` reads it as scattered text (a second look when the block reading made no sense). */
+  async read(png: Buffer, page: number, sparse = false): Promise<OcrPage> {
     await this.start();
     const entry = await this.acquire();
     try {
+      await entry.worker.setParameters({ tessedit_pageseg_mode: sparse ? PSM.SINGLE_COLUMN : PSM.SINGLE_BLOCK });
       // rotateAuto straightens small rotations, which hurt receipt OCR most.
       const result = await entry.worker.recognize(png, { rotateAuto: true }, { blocks: true, text: false });
       return { lines: linesFromBlocks(result.data.blocks ?? [], page), rotateRadians: result.data.rotateRadians ?? 0 };

@@ -1,26 +1,7 @@
 // The receipt parser on plain text laid out like OCR output: layouts, kinds, totals, reconciliation, notes.
 import { Decimal } from '../../../../shared/money';
 import { lineKind, looksLikePartNumber, parseReceipt, repairUnitPrice } from './parse-receipt';
-import type { TextPage, TextWord } from './text-lines';
-import { makeLine } from './text-lines';
-
-const CHAR = 10;
-const ROW = 30;
-
-/** A page laid out like monospace OCR output: each word boxed at its column; `confidence` for every word. */
-function page(rows: string[], confidence = 0.95, rowConfidence: Record<number, number> = {}): TextPage {
-  const lines = rows
-    .map((row, rowIndex) => {
-      const words: TextWord[] = [];
-      for (const match of row.matchAll(/\S+/g)) {
-        words.push({ text: match[0], confidence: rowConfidence[rowIndex] ?? confidence, box: { page: 0, x: (match.index ?? 0) * CHAR, y: rowIndex * ROW, w: match[0].length * CHAR, h: 20 } });
-      }
-      return words;
-    })
-    .filter((words) => words.length > 0)
-    .map(makeLine);
-  return { width: 600, height: rows.length * ROW, source: 'ocr', lines };
-}
+import { CHAR, ROW, slipPage as page } from './slip-page';
 
 const counterSlip = [
   '      QUAYSIDE PARTS COUNTER',

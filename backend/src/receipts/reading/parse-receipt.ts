@@ -2,16 +2,28 @@
 // confidence. Pure: no OCR, no I/O, so every layout rule is unit-tested on plain text.
 import { Decimal, multiply, roundHalfUp, sum, toWire } from '../../../../shared/money';
 import type { LineKind, ReadBox, ReadField, ReadLine, ReadReceipt } from '../../../../shared/api/receipt-reading';
-import { ReadAmount, currencyMark, readAmount, readQuantity } from './amounts';
+import { AmountOptions, ReadAmount, currencyMark, readAmount, readQuantity, usesDecimalComma } from './amounts';
 import { findDate } from './dates';
+import { chooseReceiptDate, dateLimits } from './receipt-date';
+import { findVendor } from './vendor';
+import { editDistance, hasWord, keywordOf, readLabel, sameWord } from './label-words';
+import { chooseFigures, SummaryEntry, TaxTableRow } from './summary-figures';
+import { TAX_TABLE_WORDS } from './summary-words';
+import type { SummaryRole } from './summary-words';
 import { TextLine, TextPage, TextWord, lineText, unionBox } from './text-lines';
 
 export interface ParseOptions {
   /** BCP 47 tag of the build: day/month order and the currency a bare "$" means. */
   locale: string;
+  /** ISO 4217 minor units of the build's currency (2 for EUR, 0 for JPY, 3 for BHD); 2 when not given. */
+  minorUnits?: number;
+  /** Names of the shops the build already has receipts from: a name read close to one of them is taken as it. */
+  knownVendors?: string[];
+  /** ISO date the receipt was uploaded: no receipt is dated after it. Today when not given. */
+  readOn?: string;
+  /** ISO date before which a printed date is taken for an OCR error (long before the build began). */
+  notBefore?: string;
 }
-
-type SummaryField = 'subtotal' | 'tax' | 'shipping' | 'discount' | 'total' | 'payment';
 
 interface Token {
   text: string;
@@ -28,17 +40,24 @@ interface AnalysedLine {
   /** Upper-case letters-only words for keyword matching, with digits OCR put in words turned back to letters. */
   keywords: string[];
   confidence: number;
-  summary: SummaryField | null;
+  summary: SummaryRole | null;
+  /** The summary role of a line that prints a summary word but no amount. */
+  labelOnly: SummaryRole | null;
+  /** A total word beside a count or points ("TOTAL QTY: 9"): ends the item lines but is no figure. */
+  notASum: boolean;
 }
 
 // ------------------------------------------------------------------------------------------------------
 // Tokens and keywords
 
-function tokenize(line: TextLine): Token[] {
+function tokenize(line: TextLine, options: AmountOptions): Token[] {
   // "@" glued to numbers ("2@4.99") becomes its own token.
   const words: TextWord[] = [];
   for (const word of line.words) {
-    const pieces = word.text.split(/(@)/).filter((piece) => piece !== '');
+    // "AMOUNT:$6.90" printed without a space: the label and the amount are two tokens.
+    const pieces = word.text
+      .split(/(@)|(?<=[A-Za-z)]:)(?=[-$€£¥(]?[0-9])|(?<=[A-Za-z)]:)(?=RM)/)
+      .filter((piece): piece is string => piece !== undefined && piece !== '');
     for (const piece of pieces) words.push({ ...word, text: piece });
   }
   const tokens: Token[] = [];
@@ -46,58 +65,42 @@ function tokenize(line: TextLine): Token[] {
     const word = words[index];
     const next = words[index + 1];
     // A currency mark printed apart from its number ("RM 12.40", "$ 5.00", "- 5.00").
-    if (next && (currencyMark(word.text) || word.text === '-') && readAmount(next.text)) {
+    if (next && (currencyMark(word.text.replace(/^[-−]/, '')) || word.text === '-') && readAmount(next.text, options)) {
       const joined = `${word.text}${next.text}`;
-      tokens.push(makeToken(joined, [word, next]));
+      tokens.push(makeToken(joined, [word, next], options));
       index += 1;
       continue;
     }
-    tokens.push(makeToken(word.text, [word]));
+    tokens.push(makeToken(word.text, [word], options));
   }
-  return tokens;
+  return joinLostDecimalPoint(tokens, options);
 }
 
-function makeToken(text: string, words: TextWord[]): Token {
+/**
+ * OCR often reads a faint decimal point as a space: "RM 64 13", "14 00" at the end of a line are 64.13 and 14.00.
+ * Only a whole number followed by the currency's exact count of decimals, ending the line, is joined, a little less sure.
+ */
+function joinLostDecimalPoint(tokens: Token[], options: AmountOptions): Token[] {
+  const decimals = options.minorUnits ?? 2;
+  const last = tokens.length - 1;
+  // Only where the line has no other amount: beside a well-read one, the two numbers are more likely something else.
+  if (decimals === 0 || last < 1 || tokens.some((token) => token.amount)) return tokens;
+  const [whole, fraction] = [tokens[last - 1], tokens[last]];
+  if (whole.amount || !new RegExp(`^[0-9]{${decimals}}$`).test(fraction.text)) return tokens;
+  const mark = /^(.*?)([0-9]{1,4})$/.exec(whole.text);
+  if (!mark || (mark[1] !== '' && !currencyMark(mark[1]))) return tokens;
+  const joined = makeToken(`${whole.text}.${fraction.text}`, [...whole.words, ...fraction.words], options);
+  if (!joined.amount) return tokens;
+  joined.amount = { ...joined.amount, confidence: Math.min(joined.amount.confidence, 0.6) };
+  return [...tokens.slice(0, last - 1), joined];
+}
+
+function makeToken(text: string, words: TextWord[], options: AmountOptions): Token {
   const at = /^[@©®]$/.test(text) || /^(at|x)$/i.test(text);
-  return { text, words, amount: at ? null : readAmount(text), quantity: readQuantity(text), at };
-}
-
-const LETTER_FOR_DIGIT: Record<string, string> = { '0': 'O', '1': 'I', '5': 'S', '8': 'B', '6': 'G', '2': 'Z' };
-
-function keywordOf(word: string): string {
-  const letters = (word.match(/[A-Za-z]/g) ?? []).length;
-  const digits = (word.match(/[0-9]/g) ?? []).length;
-  // Only words that are mostly letters get their stray digits turned back into letters ("T0TAL").
-  const fixed = letters > digits ? word.replace(/[015862]/g, (digit) => LETTER_FOR_DIGIT[digit]) : word;
-  return fixed.toUpperCase().replace(/[^A-Z&]/g, '');
-}
-
-function editDistance(left: string, right: string): number {
-  const previous = Array.from({ length: right.length + 1 }, (_, index) => index);
-  for (let i = 1; i <= left.length; i += 1) {
-    let diagonal = previous[0];
-    previous[0] = i;
-    for (let j = 1; j <= right.length; j += 1) {
-      const above = previous[j];
-      previous[j] = Math.min(previous[j] + 1, previous[j - 1] + 1, diagonal + (left[i - 1] === right[j - 1] ? 0 : 1));
-      diagonal = above;
-    }
-  }
-  return previous[right.length];
-}
-
-// Real words that sit one letter away from a keyword and must never be taken for it.
-const NEAR_MISSES = new Set(['CHARGE', 'CHARGES', 'CHANGE', 'TOTALS', 'RETURN', 'REFUND']);
-
-/** A word matches a keyword exactly, or within one OCR slip for words of five letters or more. */
-function sameWord(word: string, keyword: string): boolean {
-  if (word === keyword) return true;
-  if (NEAR_MISSES.has(word)) return false;
-  return keyword.length >= 5 && Math.abs(word.length - keyword.length) <= 1 && editDistance(word, keyword) <= 1;
-}
-
-function hasWord(keywords: string[], ...candidates: string[]): boolean {
-  return keywords.some((word) => candidates.some((candidate) => sameWord(word, candidate)));
+  let amount = at ? null : readAmount(text, options);
+  // Where amounts carry no decimals (JPY), a bare one- or two-digit number is a count, not money.
+  if (amount && options.minorUnits === 0 && amount.mark === null && /^[0-9]{1,2}$/.test(text)) amount = null;
+  return { text, words, amount, quantity: readQuantity(text), at };
 }
 
 /** Words before the first amount: the label of a summary line. */
@@ -105,32 +108,41 @@ function labelKeywords(tokens: Token[]): string[] {
   const labels: string[] = [];
   for (const token of tokens) {
     if (token.amount) break;
-    const keyword = keywordOf(token.text);
-    if (keyword !== '') labels.push(keyword);
+    // "GST/TAX", "SUB-TOTAL": words joined by a slash or a dash are read one by one.
+    for (const piece of token.text.split(/[/\-]/)) {
+      const keyword = keywordOf(piece);
+      if (keyword !== '') labels.push(keyword);
+    }
   }
   return labels;
 }
 
-function classifySummary(tokens: Token[]): SummaryField | null {
-  if (!tokens.some((token) => token.amount)) return null;
-  const label = labelKeywords(tokens);
-  const joined = label.join(' ');
-  if (hasWord(label, 'SUBTOTAL') || /\bSUB ?TOTAL\b/.test(joined) || /\bMERCHANDISE\b/.test(joined)) return 'subtotal';
-  if (hasWord(label, 'CHANGE', 'CASH', 'TENDER', 'TENDERED', 'VISA', 'MASTERCARD', 'DEBIT', 'PAID', 'PAYMENT') || (hasWord(label, 'CARD') && !hasWord(label, 'TOTAL'))) return 'payment';
-  if (hasWord(label, 'TOTAL') || /\b(AMOUNT|BALANCE) DUE\b/.test(joined)) {
-    if (hasWord(label, 'SAVINGS', 'ITEMS', 'QTY', 'QUANTITY')) return null;
-    return 'total';
-  }
-  if (hasWord(label, 'SHIPPING', 'FREIGHT', 'DELIVERY', 'POSTAGE', 'CARRIAGE') || label.includes('S&H')) return 'shipping';
-  if (hasWord(label, 'TAX', 'GST', 'VAT', 'SST', 'HST', 'PST')) return 'tax';
-  if (hasWord(label, 'DISCOUNT', 'COUPON', 'SAVINGS', 'PROMO')) return 'discount';
-  return null;
+function analyse(line: TextLine, options: AmountOptions): AnalysedLine {
+  const tokens = tokenize(line, options);
+  const confidence = line.words.reduce((total, word) => total + word.confidence, 0) / Math.max(line.words.length, 1);
+  const label = readLabel(labelKeywords(tokens));
+  const hasAmount = tokens.some((token) => token.amount);
+  return {
+    line,
+    text: lineText(line),
+    tokens,
+    keywords: tokens.map((token) => keywordOf(token.text)).filter((word) => word !== ''),
+    confidence,
+    summary: hasAmount ? label.role : null,
+    labelOnly: hasAmount ? null : label.role,
+    notASum: label.notASum,
+  };
 }
 
-function analyse(line: TextLine): AnalysedLine {
-  const tokens = tokenize(line);
-  const confidence = line.words.reduce((total, word) => total + word.confidence, 0) / Math.max(line.words.length, 1);
-  return { line, text: lineText(line), tokens, keywords: tokens.map((token) => keywordOf(token.text)).filter((word) => word !== ''), confidence, summary: classifySummary(tokens) };
+/** A summary word on a line of its own takes the amount printed alone on the line below ("TOTAL:" / "9.00"). */
+function labelAmountsBelow(lines: AnalysedLine[]): void {
+  for (let index = 0; index + 1 < lines.length; index += 1) {
+    const role = lines[index].labelOnly;
+    const below = lines[index + 1];
+    if ((role === 'total' || role === 'final_total' || role === 'tendered') && below.summary === null && !below.notASum && below.tokens.some((token) => token.amount) && labelKeywords(below.tokens).length === 0) {
+      below.summary = role;
+    }
+  }
 }
 
 // ------------------------------------------------------------------------------------------------------
@@ -168,11 +180,11 @@ interface QuantityAt {
 }
 
 /** "2 @ 4.99", "2 x 4.99", "2 @4.99" in a line. */
-function quantityAt(tokens: Token[]): QuantityAt | null {
+function quantityAt(tokens: Token[], options: AmountOptions): QuantityAt | null {
   for (let index = 1; index < tokens.length - 1; index += 1) {
     if (!tokens[index].at) continue;
     const quantity = tokens[index - 1].quantity;
-    const unitPrice = readAmount(tokens[index + 1].text, { requireDecimals: false });
+    const unitPrice = readAmount(tokens[index + 1].text, { ...options, requireDecimals: false });
     if (quantity && unitPrice) return { quantity, unitPrice, start: index - 1, end: index + 1 };
   }
   return null;
@@ -201,9 +213,11 @@ interface DraftLine {
   amount: Decimal;
   confidence: number;
   boxes: ReadBox[];
+  /** The receipt line the amount was read from. */
+  lineIndex?: number;
 }
 
-function itemFromLine(analysed: AnalysedLine, hasPartColumn: boolean): DraftLine | null {
+function itemFromLine(analysed: AnalysedLine, hasPartColumn: boolean, options: AmountOptions): DraftLine | null {
   const { tokens } = analysed;
   const amountIndexes = tokens.flatMap((token, index) => (token.amount ? [index] : []));
   if (amountIndexes.length === 0) return null;
@@ -214,7 +228,7 @@ function itemFromLine(analysed: AnalysedLine, hasPartColumn: boolean): DraftLine
   let unitPrice: ReadAmount | null = null;
   let descriptionEnd = amountIndex;
 
-  const pattern = quantityAt(tokens.slice(0, amountIndex));
+  const pattern = quantityAt(tokens.slice(0, amountIndex), options);
   if (pattern) {
     quantity = pattern.quantity;
     unitPrice = pattern.unitPrice;
@@ -278,7 +292,11 @@ export function repairUnitPrice(unitPrice: ReadAmount, quantity: string, amount:
   const fitting = amount.dividedBy(quantity);
   if (fitting.decimalPlaces() > 4) return unitPrice;
   const fittingText = toWire(fitting, Math.max(2, fitting.decimalPlaces()));
-  if (editDistance(digitsOf(fittingText), digitsOf(unitPrice.value)) > 1) return unitPrice;
+  const fittingDigits = digitsOf(fittingText);
+  const readDigits = digitsOf(unitPrice.value);
+  // One slip, or part of the price lost ("$79" for $11.79) where what was read still stands in the fitting price.
+  const partLost = readDigits.length >= 2 && fittingDigits.includes(readDigits);
+  if (editDistance(fittingDigits, readDigits) > 1 && !partLost) return unitPrice;
   return { ...unitPrice, value: fittingText, confidence: Math.min(unitPrice.confidence, 0.7) };
 }
 
@@ -288,9 +306,9 @@ function isColumnHeader(analysed: AnalysedLine): boolean {
   return !analysed.tokens.some((token) => token.amount) && words.filter((word) => headerWords.some((header) => sameWord(word, header))).length >= 2;
 }
 
-function finishLine(draft: DraftLine): ReadLine {
+function finishLine(draft: DraftLine, minor: number): ReadLine {
   const quantity = draft.quantity ?? (draft.unitPrice ? quantityFromPrices(draft.amount, new Decimal(draft.unitPrice)) : '1');
-  const unitPrice = draft.unitPrice ?? (quantity === '1' ? toWire(draft.amount, Math.max(2, draft.amount.decimalPlaces())) : null);
+  const unitPrice = draft.unitPrice ?? (quantity === '1' ? toWire(draft.amount, Math.max(minor, draft.amount.decimalPlaces())) : null);
   const kind = lineKind(draft.description, draft.amount);
   return {
     kind,
@@ -298,7 +316,7 @@ function finishLine(draft: DraftLine): ReadLine {
     partNumber: draft.partNumber,
     quantity,
     unitPrice,
-    amount: toWire(draft.amount, Math.max(2, draft.amount.decimalPlaces())),
+    amount: toWire(draft.amount, Math.max(minor, draft.amount.decimalPlaces())),
     confidence: round2(draft.confidence),
     box: unionBox(draft.boxes),
   };
@@ -316,22 +334,6 @@ function round2(value: number): number {
 
 // ------------------------------------------------------------------------------------------------------
 // Vendor, currency
-
-const NOT_VENDOR = /^(RECEIPT|INVOICE|TAX INVOICE|SALES RECEIPT|WELCOME|ORDER|RETURN|CUSTOMER COPY|DUPLICATE|COPY|STATEMENT)$/i;
-
-function findVendor(lines: AnalysedLine[]): ReadField<string> {
-  for (const analysed of lines.slice(0, 6)) {
-    const text = analysed.text.replace(/[^A-Za-z0-9&'.,\- ]/g, ' ').replace(/\s+/g, ' ').trim();
-    const letters = (text.match(/[A-Za-z]/g) ?? []).length;
-    if (letters < 4 || letters < text.replace(/\s/g, '').length * 0.6) continue;
-    if (NOT_VENDOR.test(text) || /@|www\.|https?:/i.test(analysed.text) || findDate(analysed.text, 'en-US')) continue;
-    if (analysed.tokens.some((token) => token.amount)) continue;
-    // The first line is where shops print their name; a later one is a weaker guess.
-    const position = lines.indexOf(analysed) === 0 ? 1 : 0.8;
-    return { value: text, confidence: round2(analysed.confidence * position) };
-  }
-  return { value: null, confidence: 0 };
-}
 
 /** The currency a bare "$" means in a region (from the locale), common practice; USD elsewhere. */
 const DOLLAR_BY_REGION: Record<string, string> = { US: 'USD', CA: 'CAD', AU: 'AUD', NZ: 'NZD', SG: 'SGD', HK: 'HKD', MX: 'MXN', TW: 'TWD' };
@@ -404,10 +406,15 @@ function field(value: string | null, confidence: number): ReadField<string> {
 
 export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadReceipt {
   const notes: string[] = [];
-  const lines = pages.flatMap((page) => page.lines).filter((line) => line.words.length > 0).map(analyse);
+  const amountOptions: AmountOptions = { minorUnits: options.minorUnits ?? 2, decimalComma: usesDecimalComma(options.locale) };
+  const lines = pages
+    .flatMap((page) => page.lines)
+    .filter((line) => line.words.length > 0)
+    .map((line) => analyse(line, amountOptions));
+  labelAmountsBelow(lines);
 
   // The item region ends at the first summary line; everything after the total is payment and small print.
-  const firstSummary = lines.findIndex((analysed) => analysed.summary !== null && analysed.summary !== 'discount');
+  const firstSummary = lines.findIndex((analysed) => (analysed.summary !== null && analysed.summary !== 'discount') || analysed.notASum);
   const itemEnd = firstSummary === -1 ? lines.length : firstSummary;
   const headerIndex = lines.findIndex((analysed, index) => index < itemEnd && isColumnHeader(analysed));
   const hasPartColumn = headerIndex !== -1 && hasWord(lines[headerIndex].keywords, 'PART', 'ITEM', 'SKU', 'PARTNO');
@@ -417,7 +424,7 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
   let seenItem = false;
   for (let index = headerIndex + 1; index < itemEnd; index += 1) {
     const analysed = lines[index];
-    const pattern = quantityAt(analysed.tokens);
+    const pattern = quantityAt(analysed.tokens, amountOptions);
     const amounts = analysed.tokens.filter((token) => token.amount);
     const previous = drafts[drafts.length - 1];
     // "2 @ $11.79" under (or over) its item, carrying no amount of its own.
@@ -443,7 +450,7 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
       pendingDescription = seenItem || headerIndex !== -1 ? analysed : null;
       continue;
     }
-    const draft = itemFromLine(analysed, hasPartColumn);
+    const draft = itemFromLine(analysed, hasPartColumn, amountOptions);
     if (!draft) continue;
     if (draft.description === '' && pendingDescription) {
       draft.description = pendingDescription.text.trim();
@@ -451,43 +458,57 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
     }
     pendingDescription = null;
     if (draft.description === '' && draft.quantity === null) continue;
+    draft.lineIndex = index;
     drafts.push(draft);
     seenItem = true;
   }
-  const readLines = drafts.map(finishLine);
+  // A total whose word OCR lost reads like one more item: the last "item" that is exactly the sum of all before it
+  // is taken back out and offered as a total instead.
+  const lastDraft = drafts[drafts.length - 1];
+  const lostTotal = drafts.length >= 3 && sum(drafts.slice(0, -1).map((draft) => draft.amount)).equals(lastDraft.amount) ? drafts.pop()! : null;
+  const minor = amountOptions.minorUnits ?? 2;
+  const readLines = drafts.map((draft) => finishLine(draft, minor));
 
-  // Summary fields: the first line of each kind wins, except taxes, which add up (state + county).
-  const summaries: Partial<Record<SummaryField, { value: Decimal; confidence: number; count: number }>> = {};
-  let totalSeen = false;
-  for (const analysed of lines.slice(itemEnd)) {
-    const kind = analysed.summary;
-    if (!kind || kind === 'payment' || totalSeen) continue;
+  // Summary figures: every figure printed beside a summary word is a candidate; the receipt's arithmetic chooses.
+  const entries: SummaryEntry[] = lostTotal ? [{ role: 'unlabelled', value: lostTotal.amount, index: lostTotal.lineIndex!, confidence: lostTotal.confidence }] : [];
+  for (let index = itemEnd; index < lines.length; index += 1) {
+    const analysed = lines[index];
     const amount = rightmostAmount(analysed);
-    if (!amount) continue;
-    const value = new Decimal(amount.value);
-    const confidence = Math.min(amount.confidence, analysed.confidence);
-    const existing = summaries[kind];
-    if (kind === 'tax' && existing) summaries.tax = { value: sum([existing.value, value]), confidence: Math.min(existing.confidence, confidence), count: existing.count + 1 };
-    else if (!existing) summaries[kind] = { value, confidence, count: 1 };
-    if (kind === 'total') totalSeen = true;
+    if (!amount || analysed.notASum) continue;
+    entries.push({ role: analysed.summary ?? 'unlabelled', value: new Decimal(amount.value), index, confidence: Math.min(amount.confidence, analysed.confidence) });
   }
-  const money = (kind: SummaryField) => summaries[kind];
-  const subtotal = money('subtotal');
-  const tax = money('tax');
-  const shipping = money('shipping');
-  const discount = money('discount');
-  const total = money('total');
+  repairSubtotal(lines, entries, readLines, notes);
+  const printedSubtotal = entries.find((entry) => entry.role === 'subtotal');
+  const repairedLine = printedSubtotal ? repairOneLine(readLines, printedSubtotal.value, notes) : null;
+  const itemSum = sum(readLines.map((item) => new Decimal(item.amount)));
+  const taxTable = taxTableRows(lines, entries);
+  const chosen = chooseFigures(entries, readLines.length > 0 ? itemSum : null, taxTable);
+  const { subtotal, shipping, discount } = chosen;
+  // A slip that prints its tax only in the table under the total (common in Europe): the table's taxes add up.
+  const tax = repairTax(chosen, notes) ?? (taxTable.length > 0 ? { value: sum(taxTable.map((row) => row.tax)), confidence: 0.8 } : null);
+  const total = chosen.total ? { ...chosen.total } : null;
   const discountValue = discount ? discount.value.abs() : null;
+  // A cash-rounded total is the amount paid; the adjustment stays as its own line so the receipt reconciles.
+  if (chosen.rounding) {
+    const roundingEntry = entries.find((entry) => entry.role === 'rounding' && entry.value.equals(chosen.rounding!));
+    const amount = toWire(chosen.rounding, Math.max(minor, chosen.rounding.decimalPlaces()));
+    readLines.push({ kind: chosen.rounding.isNegative() ? 'discount' : 'fee', description: 'Rounding adjustment', partNumber: null, quantity: '1', unitPrice: amount, amount, confidence: 0.95, box: roundingEntry ? lines[roundingEntry.index].line.box : null });
+  }
+  if (chosen.service) {
+    const serviceEntry = entries.find((entry) => entry.role === 'service' && entry.value.equals(chosen.service!));
+    const amount = toWire(chosen.service, Math.max(minor, chosen.service.decimalPlaces()));
+    readLines.push({ kind: 'fee', description: serviceEntry ? lines[serviceEntry.index].text.replace(/\s*[-+]?\S*[0-9][.,][0-9]+\S*\s*$/, '').trim() || 'Service charge' : 'Service charge', partNumber: null, quantity: '1', unitPrice: amount, amount, confidence: 0.95, box: serviceEntry ? lines[serviceEntry.index].line.box : null });
+  }
+  const rounding = sum([chosen.rounding ?? new Decimal(0), chosen.service ?? new Decimal(0)]);
 
   // Reconciliation: printed figures that add up confirm each other.
-  const repairedLine = subtotal ? repairOneLine(readLines, subtotal.value, notes) : null;
   const lineSum = sum(readLines.map((item) => new Decimal(item.amount)));
-  const linesMatchSubtotal = subtotal !== undefined && readLines.length > 0 && lineSum.equals(subtotal.value);
-  const base = subtotal?.value ?? lineSum;
+  const linesMatchSubtotal = subtotal !== null && readLines.length > 0 && itemSum.equals(subtotal.value);
+  const base = subtotal ? subtotal.value.plus(rounding) : lineSum;
   const computedTotal = sum([base, tax?.value ?? new Decimal(0), shipping?.value ?? new Decimal(0), (discountValue ?? new Decimal(0)).negated()]);
   let totalRepaired = false;
   // Only a total the OCR itself was unsure of is corrected; a well-read one that does not add up is reported.
-  if (total && total.confidence < 0.8 && !computedTotal.equals(total.value) && (linesMatchSubtotal || subtotal === undefined) && readLines.length > 0) {
+  if (total && total.confidence < 0.8 && !computedTotal.equals(total.value) && (linesMatchSubtotal || subtotal === null) && readLines.length > 0) {
     // One misread character in the total ("$517.72" for $17.72) when everything else adds up.
     if (editDistance(digitsOf(toWire(computedTotal, 2)), digitsOf(toWire(total.value, 2))) <= 1 && computedTotal.isNegative() === total.value.isNegative()) {
       notes.push(`The total reads ${toWire(total.value, 2)}; taken as ${toWire(computedTotal, 2)}, what the lines and charges add up to. Check it.`);
@@ -496,23 +517,31 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
       totalRepaired = true;
     }
   }
-  const totalsAgree = total !== undefined && computedTotal.equals(total.value);
+  const totalsAgree = total !== null && computedTotal.equals(total.value);
   const boost = (confidence: number, agreed: boolean) => (agreed ? Math.max(confidence, 0.95) : confidence);
   if (linesMatchSubtotal) for (const item of readLines) if (item !== repairedLine) item.confidence = round2(Math.max(item.confidence, 0.9));
-  if (total && !totalsAgree) {
+  if (total && !totalsAgree && readLines.length > 0) {
     notes.push(`The lines and charges add up to ${toWire(computedTotal, 2)} but the total reads ${toWire(total.value, 2)}; check the amounts.`);
   }
   if (subtotal && readLines.length > 0 && !linesMatchSubtotal) {
-    notes.push(`The lines add up to ${toWire(lineSum, 2)} but the subtotal reads ${toWire(subtotal.value, 2)}; a line may be missing or misread.`);
+    notes.push(`The lines add up to ${toWire(itemSum, 2)} but the subtotal reads ${toWire(subtotal.value, 2)}; a line may be missing or misread.`);
   }
   if (readLines.length === 0) notes.push('No item lines were found; enter them by hand.');
+  if (!total) notes.push('No total was found; enter it from the receipt.');
+  const agreements = [...chosen.agreements];
+  if (linesMatchSubtotal) agreements.push('the lines add up to the subtotal');
 
-  const date = findReceiptDate(lines, options.locale, notes);
+  const dateChoice = chooseReceiptDate(lines, options.locale, dateLimits(options.readOn, options.notBefore));
+  if (dateChoice.note) notes.push(dateChoice.note);
+  const date = dateChoice.field;
   const currency = findCurrency(lines, options.locale, notes);
-  const wire = (value: Decimal | null | undefined) => (value === null || value === undefined ? null : toWire(value, Math.max(2, value.decimalPlaces())));
+  const wire = (value: Decimal | null | undefined) => (value === null || value === undefined ? null : toWire(value, Math.max(minor, value.decimalPlaces())));
 
   return {
-    vendor: findVendor(lines),
+    vendor: findVendor(
+      lines.map((analysed) => ({ line: analysed.line, text: analysed.text, keywords: analysed.keywords, confidence: analysed.confidence, hasAmount: analysed.tokens.some((token) => token.amount) })),
+      options.knownVendors,
+    ),
     date,
     currency,
     lines: readLines,
@@ -521,10 +550,64 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
     shipping: field(wire(shipping?.value), boost(shipping?.confidence ?? 0, totalsAgree)),
     discount: field(wire(discountValue), boost(discount?.confidence ?? 0, totalsAgree)),
     total: field(wire(total?.value), boost(total?.confidence ?? 0, totalsAgree && !totalRepaired)),
+    agreements,
     notes,
     pages: pages.map(({ width, height, source }) => ({ width, height, source })),
     words: pages.flatMap((page) => page.lines.flatMap((line) => line.words)),
   };
+}
+
+/**
+ * Rows of a tax table under the total: the last two amounts of a line below the first tax-table heading, net then
+ * tax ("SR 6% 106.10 6.37", "A 19% 42,02 7,98 50,00" where the third is their gross).
+ */
+function taxTableRows(lines: AnalysedLine[], entries: SummaryEntry[]): TaxTableRow[] {
+  const firstTotal = entries.find((entry) => entry.role === 'total' || entry.role === 'final_total');
+  if (!firstTotal) return [];
+  const heading = lines.findIndex((analysed, index) => index > firstTotal.index && analysed.tokens.every((token) => !token.amount) && hasWord(analysed.keywords, ...TAX_TABLE_WORDS) && hasWord(analysed.keywords, 'GST', 'VAT', 'TAX', 'MWST', 'TVA', 'IVA', 'BTW', 'SST', 'UST', 'STEUER', 'CUKAI'));
+  if (heading === -1) return [];
+  const rows: TaxTableRow[] = [];
+  for (const analysed of lines.slice(heading + 1, heading + 6)) {
+    const amounts = analysed.tokens.flatMap((token) => (token.amount ? [new Decimal(token.amount.value)] : []));
+    // The table's own total row repeats the sums of its rates.
+    if (amounts.length < 2 || analysed.summary === 'total' || analysed.summary === 'final_total' || analysed.summary === 'subtotal') continue;
+    const withGross = amounts.length >= 3 && amounts[amounts.length - 3].plus(amounts[amounts.length - 2]).equals(amounts[amounts.length - 1]);
+    const [net, tax] = withGross ? amounts.slice(-3, -1) : amounts.slice(-2);
+    // The tax of a rate is smaller than its net amount; anything else is not a row of the table.
+    if (tax.lessThan(net)) rows.push({ net, tax });
+  }
+  return rows;
+}
+
+/**
+ * A subtotal OCR misread in a way the lines explain: its decimal point lost ("14014" for 140.14) or its sign lost on
+ * a return slip ("42.98" where every line is negative). The lines' sum is taken, and the person told.
+ */
+function repairSubtotal(lines: AnalysedLine[], entries: SummaryEntry[], readLines: ReadLine[], notes: string[]): void {
+  if (readLines.length === 0) return;
+  const itemSum = sum(readLines.map((item) => new Decimal(item.amount)));
+  const printed = entries.find((entry) => entry.role === 'subtotal');
+  if (printed) {
+    if (itemSum.isNegative() && printed.value.equals(itemSum.abs())) printed.value = itemSum;
+    return;
+  }
+  const index = lines.findIndex((analysed) => analysed.labelOnly === 'subtotal');
+  const last = index === -1 ? undefined : lines[index].tokens[lines[index].tokens.length - 1];
+  if (!last || !/^[0-9]{3,}$/.test(last.text) || digitsOf(last.text) !== digitsOf(toWire(itemSum, 2))) return;
+  entries.push({ role: 'subtotal', value: itemSum, index, confidence: 0.6 });
+  entries.sort((a, b) => a.index - b.index);
+  notes.push(`The subtotal reads ${last.text}; taken as ${toWire(itemSum, 2)}, what the lines add up to. Check it.`);
+}
+
+/** A tax the OCR was unsure of, one character off what the total less the subtotal leaves ("1.21" for 11.21) is corrected, and the person told. */
+function repairTax(chosen: ReturnType<typeof chooseFigures>, notes: string[]): ReturnType<typeof chooseFigures>['tax'] {
+  const { total, subtotal, tax, shipping, discount } = chosen;
+  // Like the total, only a tax the OCR itself was unsure of is corrected.
+  if (!total || !subtotal || !tax || tax.confidence >= 0.8 || shipping || discount || chosen.rounding || chosen.service) return tax;
+  const expected = total.value.minus(subtotal.value);
+  if (expected.equals(tax.value) || !expected.isPositive() || editDistance(digitsOf(toWire(expected, 2)), digitsOf(toWire(tax.value, 2))) > 1) return tax;
+  notes.push(`The tax reads ${toWire(tax.value, 2)}; taken as ${toWire(expected, 2)}, the total less the subtotal. Check it.`);
+  return { value: expected, confidence: 0.6 };
 }
 
 /**
@@ -548,14 +631,3 @@ function repairOneLine(lines: ReadLine[], subtotal: Decimal, notes: string[]): R
   return item;
 }
 
-function findReceiptDate(lines: AnalysedLine[], locale: string, notes: string[]): ReadField<string> {
-  // A line labelled as the date wins over other dates (due dates, warranty dates).
-  const labelled = lines.filter((analysed) => hasWord(analysed.keywords, 'DATE', 'DATED'));
-  for (const analysed of [...labelled, ...lines]) {
-    const found = findDate(analysed.text, locale);
-    if (!found) continue;
-    if (found.note) notes.push(found.note);
-    return { value: found.value, confidence: round2(found.confidence * Math.max(analysed.confidence, 0.5)) };
-  }
-  return { value: null, confidence: 0 };
-}

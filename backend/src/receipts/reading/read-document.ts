@@ -1,7 +1,8 @@
 // The one entry point of receipt reading: bytes in (photo or PDF), a ReadReceipt out.
 import type { ReadReceipt } from '../../../../shared/api/receipt-reading';
-import { normaliseImage } from './normalise';
-import { OcrPool } from './ocr';
+import { NormalisedImage, normaliseImage } from './normalise';
+import { minorUnits } from '../../../../shared/money';
+import { OcrPool, modelFor } from './ocr';
 import { parseReceipt } from './parse-receipt';
 import { readPdfPages } from './pdf-text';
 import { sniffReceiptType } from './sniff';
@@ -10,16 +11,27 @@ import type { TextPage } from './text-lines';
 export interface ReadOptions {
   /** BCP 47 tag of the build, e.g. "en-US" (month first) or "en-GB" (day first). */
   locale?: string;
+  /** ISO 4217 code of the build's currency: how many decimals its amounts carry. */
+  currency?: string;
+  /** ISO date the receipt was uploaded: no receipt is dated after it. */
+  readOn?: string;
+  /** Shops the build already knows. */
+  knownVendors?: string[];
 }
 
 export const DEFAULT_LOCALE = 'en-US';
 
-let pool: OcrPool | undefined;
+const pools = new Map<string, OcrPool>();
 let poolSize = Number(process.env['RECEIPT_OCR_WORKERS'] ?? 1) || 1;
 
-/** The process's OCR workers, started on first use and kept for every later document. */
-export function ocrPool(): OcrPool {
-  pool ??= new OcrPool(poolSize);
+/** The process's OCR workers for a locale's language, started on first use and kept for every later document. */
+export function ocrPool(locale = DEFAULT_LOCALE): OcrPool {
+  const model = modelFor(locale);
+  let pool = pools.get(model.language);
+  if (!pool) {
+    pool = new OcrPool(poolSize, model);
+    pools.set(model.language, pool);
+  }
   return pool;
 }
 
@@ -30,9 +42,9 @@ export function setOcrWorkers(count: number): void {
 
 /** Stops the OCR workers; a later read starts them again. */
 export async function closeReaders(): Promise<void> {
-  const current = pool;
-  pool = undefined;
-  await current?.close();
+  const current = [...pools.values()];
+  pools.clear();
+  await Promise.all(current.map((pool) => pool.close()));
 }
 
 export function checkLocale(locale: string): string {
@@ -43,25 +55,58 @@ export function checkLocale(locale: string): string {
   }
 }
 
+export interface DocumentRead {
+  reading: ReadReceipt;
+  /** The prepared page images the OCR read (null for PDF pages read from their text layer). */
+  images: Array<NormalisedImage | null>;
+}
+
+/** Row height of the print for the second look: larger than the first, which is what small faint print needs. */
+const SECOND_LOOK_ROW_HEIGHT = 44;
+
+/** A reading is consistent when the receipt's own arithmetic agreed on its total. */
+function consistent(reading: ReadReceipt): boolean {
+  return reading.total.value !== null && (reading.agreements ?? []).some((fact) => !fact.startsWith('it is printed'));
+}
+
 export async function readDocument(bytes: Buffer, options: ReadOptions = {}): Promise<ReadReceipt> {
+  return (await readDocumentWithImages(bytes, options)).reading;
+}
+
+export async function readDocumentWithImages(bytes: Buffer, options: ReadOptions = {}): Promise<DocumentRead> {
   const locale = checkLocale(options.locale ?? DEFAULT_LOCALE);
+  const parseOptions = {
+    locale,
+    minorUnits: options.currency ? minorUnits(options.currency) : undefined,
+    readOn: options.readOn,
+    knownVendors: options.knownVendors,
+  };
   const type = await sniffReceiptType(bytes);
   const pages: TextPage[] = [];
+  const images: Array<NormalisedImage | null> = [];
+  const pool = ocrPool(locale);
   if (type === 'pdf') {
     const pdfPages = await readPdfPages(bytes);
     for (const [index, pdfPage] of pdfPages.entries()) {
       if (pdfPage.text) {
         pages.push(pdfPage.text);
+        images.push(null);
         continue;
       }
       const image = await normaliseImage(pdfPage.image!.png, 'png');
-      const read = await ocrPool().read(image.png, index);
+      const read = await pool.read(image.png, index);
       pages.push({ width: image.width, height: image.height, source: 'ocr', lines: read.lines });
+      images.push(image);
     }
-  } else {
-    const image = await normaliseImage(bytes, type);
-    const read = await ocrPool().read(image.png, 0);
-    pages.push({ width: image.width, height: image.height, source: 'ocr', lines: read.lines });
+    return { reading: parseReceipt(pages, parseOptions), images };
   }
-  return parseReceipt(pages, { locale });
+  const image = await normaliseImage(bytes, type);
+  const first = await pool.read(image.png, 0);
+  const page = (lines: TextPage['lines']): TextPage => ({ width: image.width, height: image.height, source: 'ocr', lines });
+  const reading = parseReceipt([page(first.lines)], parseOptions);
+  if (consistent(reading)) return { reading, images: [image] };
+  // A second look, only when the first reading's figures do not agree: the print larger, read as one column.
+  const larger = await normaliseImage(bytes, type, { rowHeight: SECOND_LOOK_ROW_HEIGHT });
+  const second = parseReceipt([{ width: larger.width, height: larger.height, source: 'ocr', lines: (await pool.read(larger.png, 0, true)).lines }], parseOptions);
+  return consistent(second) ? { reading: second, images: [larger] } : { reading, images: [image] };
 }
