@@ -1,7 +1,6 @@
 // Builds the Express app: security headers, sessions in PostgreSQL, CSRF, the API routes and the built client.
 import type { MikroORM } from '@mikro-orm/postgresql';
 import { requestTransaction } from './http/request-transaction';
-import connectPgSimple from 'connect-pg-simple';
 import cookieParser from 'cookie-parser';
 import express, { type Express } from 'express';
 import session from 'express-session';
@@ -12,6 +11,7 @@ import pg from 'pg';
 import { alertPreferencesRoutes } from './alerts/alert-preferences.routes';
 import { authRoutes } from './auth/auth.routes';
 import { createPassport } from './auth/passport';
+import { pgSessionStore } from './auth/session-store';
 import { buildsRoutes } from './builds/builds.routes';
 import type { AppConfig } from './config';
 import { crewRoutes, inviteLinkRoutes } from './crew/crew.routes';
@@ -66,17 +66,10 @@ export function createApp({ orm, config, mailer, store, queue }: AppDeps): Runni
   app.use(requestTransaction(orm));
 
   const sessionPool = new pg.Pool({ ...config.db, database: config.db.dbName, max: 4 });
-  const PgStore = connectPgSimple(session);
   let closing = false;
-  const sessionStore = new PgStore({
-    pool: sessionPool,
-    tableName: 'session',
-    createTableIfMissing: false,
-    pruneSessionInterval: 15 * 60,
-    // A prune that was under way when the app closed fails on the ended pool: that is no news.
-    errorLog: (...args: unknown[]) => {
-      if (!closing) console.error(...args);
-    },
+  // A prune that was under way when the app closed fails on the ended pool: that is no news.
+  const sessionStore = pgSessionStore(sessionPool, (...args: unknown[]) => {
+    if (!closing) console.error(...args);
   });
   app.use(
     session({

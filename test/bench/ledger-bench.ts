@@ -3,7 +3,6 @@
 import { MikroORM } from '@mikro-orm/postgresql';
 import { Writable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
-import pg from 'pg';
 import { User } from '../../backend/src/auth/user.entity';
 import { Build } from '../../backend/src/builds/build.entity';
 import { createBuild } from '../../backend/src/builds/builds.service';
@@ -11,16 +10,10 @@ import { loadConfig } from '../../backend/src/config';
 import { ormConfig } from '../../backend/src/db/mikro-orm.config';
 import { taxLedgerCsv } from '../../backend/src/exports/tax-ledger';
 import { buildLedger } from '../../backend/src/ledger/ledger.service';
+import { recreateDatabase } from './bench-db';
+import { percentile } from './percentile';
 
 const BENCH_DB = 'tallyhood_bench';
-
-async function recreate(config: ReturnType<typeof loadConfig>['db']) {
-  const admin = new pg.Client({ host: config.host, port: config.port, user: config.user, password: config.password, database: 'postgres' });
-  await admin.connect();
-  await admin.query(`drop database if exists ${BENCH_DB} with (force)`);
-  await admin.query(`create database ${BENCH_DB}`);
-  await admin.end();
-}
 
 /** Receipts of 10 lines each, spread over the build's systems, filed, with cents that vary. */
 async function seedLines(orm: MikroORM, build: Build, userId: string, lineCount: number) {
@@ -43,11 +36,6 @@ async function seedLines(orm: MikroORM, build: Build, userId: string, lineCount:
   await connection.execute('analyze');
 }
 
-function percentile(values: number[], p: number): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
-}
-
 async function time(fn: () => Promise<unknown>, runs: number): Promise<number[]> {
   const times: number[] = [];
   for (let i = 0; i < runs; i += 1) {
@@ -60,7 +48,7 @@ async function time(fn: () => Promise<unknown>, runs: number): Promise<number[]>
 
 export async function benchLedger(): Promise<Record<string, string | number>> {
   const base = loadConfig();
-  await recreate(base.db);
+  await recreateDatabase(base.db, BENCH_DB);
   const db = { ...base.db, dbName: BENCH_DB };
   const orm = await MikroORM.init(ormConfig(db));
   await orm.getMigrator().up();

@@ -1,5 +1,6 @@
 // `npm run bench`: speed, memory and accuracy figures, printed; targets live here, never in timed tests.
 import { benchLedger } from './ledger-bench';
+import { benchListLoad } from './list-load';
 import { benchReadingAccuracy } from './reading-accuracy';
 import { benchRealReceipts } from './real-receipts';
 
@@ -9,6 +10,7 @@ async function main() {
     // Real scans from outside the repository (../shared/receipts-real/sroie or REAL_RECEIPTS); skipped when absent.
     ['Receipt reading (real receipts)', () => benchRealReceipts()],
     ['Ledger and exports (seeded builds)', benchLedger],
+    ['List routes under load (demo build, 20 clients)', benchListLoad],
   ];
   for (const [title, run] of sections) {
     console.log(`\n== ${title}`);

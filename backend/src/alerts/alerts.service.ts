@@ -221,7 +221,7 @@ async function duplicateAlerts(em: EntityManager, ctx: BuildContext, now: Date):
     { populate: ['vendor', 'build'], orderBy: { createdAt: 'asc', id: 'asc' } },
   );
   if (fresh.length === 0) return [];
-  const duplicates = await findDuplicates(em, fresh);
+  const duplicates = await findDuplicates(em, fresh[0].build.id, fresh.map((receipt) => receipt.id));
   const otherIds = [...new Set([...duplicates.values()].flat())];
   const others = new Map((otherIds.length ? await em.find(Receipt, { id: { $in: otherIds } }) : []).map((r) => [r.id, r]));
   const isEarlier = (other: Receipt, receipt: Receipt) =>

@@ -2,7 +2,7 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import type { PartDto, UpdatePartRequest } from '../../../shared/api/parts';
 import type { PartStatus } from '../../../shared/enums';
-import { type Decimal, fitsStoredAmount, minorUnits, multiply, toWire } from '../../../shared/money';
+import { type Decimal, fitsStoredAmount, minorUnits, multiply, toDecimal, toWire } from '../../../shared/money';
 import type { Unit } from '../../../shared/units';
 import type { Build } from '../builds/build.entity';
 import { NotFound, StaleVersion, ValidationFailed } from '../http/errors';
@@ -26,7 +26,14 @@ export interface PartInput {
 
 export type PartChanges = Partial<PartInput> & { version: number };
 
-export function partDto(part: Part, currency: string): PartDto {
+/** What a part's answer is made of: a loaded Part, or a row of the list read straight from SQL. */
+export type PartFields = Pick<
+  Part,
+  | 'id' | 'description' | 'partNumber' | 'quantity' | 'unit' | 'estimatedUnitCost' | 'status' | 'storageLocation' | 'sourceUrl'
+  | 'notes' | 'forSale' | 'askingPrice' | 'version' | 'updatedAt'
+> & { system: { id: string } };
+
+export function partDto(part: PartFields, currency: string): PartDto {
   return {
     id: part.id,
     systemId: part.system.id,
@@ -47,12 +54,57 @@ export function partDto(part: Part, currency: string): PartDto {
   };
 }
 
-export async function listParts(em: EntityManager, build: Build, filter: { systemId?: string; status?: string }): Promise<Part[]> {
-  return em.find(
-    Part,
-    { build, ...(filter.systemId ? { system: filter.systemId } : {}), ...(filter.status ? { status: filter.status as PartStatus } : {}) },
-    { orderBy: { system: { sortOrder: 'asc' }, createdAt: 'asc' } },
+interface PartRow {
+  id: string;
+  systemId: string;
+  description: string;
+  partNumber: string;
+  quantity: string;
+  unit: Unit;
+  estimatedUnitCost: string;
+  status: PartStatus;
+  storageLocation: string;
+  sourceUrl: string;
+  notes: string;
+  forSale: boolean;
+  askingPrice: string | null;
+  version: number;
+  updatedAt: Date;
+}
+
+/**
+ * The list is read as plain rows, not entities: making an entity of every part (identity map, references, change
+ * tracking) cost most of the route's time under load, and a list only answers.
+ */
+export async function listParts(em: EntityManager, build: Build, filter: { systemId?: string; status?: string }): Promise<PartFields[]> {
+  const params: unknown[] = [build.id];
+  let where = 'p.build_id = ?';
+  if (filter.systemId) {
+    where += ' and p.system_id = ?';
+    params.push(filter.systemId);
+  }
+  if (filter.status) {
+    where += ' and p.status = ?';
+    params.push(filter.status);
+  }
+  const rows: PartRow[] = await em.execute(
+    `select p.id, p.system_id as "systemId", p.description, p.part_number as "partNumber", p.quantity, p.unit,
+            p.estimated_unit_cost as "estimatedUnitCost", p.status, p.storage_location as "storageLocation",
+            p.source_url as "sourceUrl", p.notes, p.for_sale as "forSale", p.asking_price as "askingPrice", p.version,
+            p.updated_at as "updatedAt"
+       from part p join vehicle_system s on s.id = p.system_id
+      where ${where}
+      order by s.sort_order asc, p.created_at asc`,
+    params,
   );
+  return rows.map(({ systemId, quantity, estimatedUnitCost, askingPrice, updatedAt, ...fields }) => ({
+    ...fields,
+    system: { id: systemId },
+    quantity: toDecimal(quantity),
+    estimatedUnitCost: toDecimal(estimatedUnitCost),
+    askingPrice: askingPrice === null ? null : toDecimal(askingPrice),
+    updatedAt: new Date(updatedAt),
+  }));
 }
 
 /** The part's estimate (quantity × unit cost) is summed on every ledger: it must fit a stored amount. */

@@ -35,10 +35,9 @@ export function lineDto(line: ReceiptLine, currency: string): ReceiptLineDto {
 }
 
 /** Other receipts of the same build with the same document, or the same shop, date and total. */
-export async function findDuplicates(em: EntityManager, receipts: Receipt[]): Promise<Map<string, string[]>> {
-  const result = new Map<string, string[]>(receipts.map((r) => [r.id, []]));
-  if (receipts.length === 0) return result;
-  const buildId = receipts[0].build.id;
+export async function findDuplicates(em: EntityManager, buildId: string, receiptIds: string[]): Promise<Map<string, string[]>> {
+  const result = new Map<string, string[]>(receiptIds.map((id) => [id, []]));
+  if (receiptIds.length === 0) return result;
   const rows: { id: string; other: string }[] = await em.execute(
     `select r.id, o.id as other
        from receipt r
@@ -47,13 +46,20 @@ export async function findDuplicates(em: EntityManager, receipts: Receipt[]): Pr
         and (o.sha256 = r.sha256
              or (r.vendor_id is not null and o.vendor_id = r.vendor_id and o.purchase_date = r.purchase_date and o.total = r.total))
       order by o.created_at`,
-    [buildId, `{${receipts.map((r) => r.id).join(',')}}`],
+    [buildId, `{${receiptIds.join(',')}}`],
   );
   for (const row of rows) result.get(row.id)!.push(row.other);
   return result;
 }
 
-export function summaryDto(receipt: Receipt, extra: { lineCount: number; duplicateOf: string[]; systemIds: string[] }): ReceiptSummaryDto {
+/** What a receipt's summary is made of: a loaded Receipt, or a row of the list read straight from SQL. */
+export type ReceiptSummaryFields = Pick<
+  Receipt,
+  | 'id' | 'purchaseDate' | 'receiptNumber' | 'total' | 'state' | 'readingProgress' | 'reviewState' | 'originalFilename'
+  | 'contentType' | 'createdAt' | 'version'
+> & { build: { currency: string }; vendor?: { name: string } | null; uploadedBy: { displayName?: string | null } };
+
+export function summaryDto(receipt: ReceiptSummaryFields, extra: { lineCount: number; duplicateOf: string[]; systemIds: string[] }): ReceiptSummaryDto {
   const places = minorUnits(receipt.build.currency);
   return {
     id: receipt.id,
@@ -80,7 +86,7 @@ export async function receiptDto(em: EntityManager, receipt: Receipt, role: Buil
   const places = minorUnits(currency);
   const lines = await em.find(ReceiptLine, { receipt }, { populate: ['part'], orderBy: { position: 'asc', createdAt: 'asc' } });
   await em.populate(receipt, ['reading', 'uploadedBy', 'vendor']);
-  const duplicates = await findDuplicates(em, [receipt]);
+  const duplicates = await findDuplicates(em, receipt.build.id, [receipt.id]);
   const reading = (receipt.reading ?? {}) as { fieldConfidence?: Record<string, number>; notes?: string[] };
   const rec = reconcile(lines, receipt);
   // A filed receipt is read-only for everyone until the owner reopens it: its allocations and cores follow its lines.

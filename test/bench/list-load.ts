@@ -1,0 +1,167 @@
+// The list routes under load: 20 signed-in clients on loopback ask, each in turn, for /api/health, the demo
+// build's parts list and its receipts list, and the rates and latencies of the lists are set beside health's.
+// Runs the app in this process against its own throw-away database, seeded with the demo build.
+import { MikroORM } from '@mikro-orm/postgresql';
+import http from 'node:http';
+import type { AddressInfo } from 'node:net';
+import os from 'node:os';
+import path from 'node:path';
+import { mkdtemp, rm } from 'node:fs/promises';
+import { createApp } from '../../backend/src/app';
+import { Build } from '../../backend/src/builds/build.entity';
+import { loadConfig } from '../../backend/src/config';
+import { ormConfig } from '../../backend/src/db/mikro-orm.config';
+import type { JobQueue } from '../../backend/src/jobs/queue';
+import { createMailer } from '../../backend/src/mail/mailer';
+import { DEMO_BUILD, DEMO_PASSWORD, DEMO_PEOPLE } from '../../backend/src/seed/demo-scenario';
+import { seedDemo } from '../../backend/src/seed/seed-demo';
+import { startFakeS3 } from '../../backend/src/storage/fake-s3-server';
+import { createObjectStore } from '../../backend/src/storage/object-store';
+import { recreateDatabase } from './bench-db';
+import { percentile } from './percentile';
+
+const LOAD_DB = 'tallyhood_bench_load';
+const CLIENTS = 20;
+/**
+ * The routes take turns, ROUNDS times, each for this long or until this many answers have come: other work on the
+ * machine then weighs on every route alike, and the ratios to health stay fair.
+ */
+const ROUNDS = 4;
+const SECONDS_PER_TURN = 2;
+const MAX_REQUESTS_PER_TURN = 2000;
+const WARM_UP_REQUESTS = 100;
+
+/** One browser's worth of state: its cookies (session and XSRF-TOKEN) and the token it echoes on writes. */
+class LoadClient {
+  private cookies = new Map<string, string>();
+  constructor(
+    private readonly port: number,
+    private readonly agent: http.Agent,
+  ) {}
+
+  request(method: 'GET' | 'POST', url: string, body?: unknown): Promise<{ status: number; text: string }> {
+    const payload = body === undefined ? undefined : JSON.stringify(body);
+    const headers: Record<string, string> = { cookie: [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ') };
+    if (payload !== undefined) {
+      headers['content-type'] = 'application/json';
+      headers['x-xsrf-token'] = decodeURIComponent(this.cookies.get('XSRF-TOKEN') ?? '');
+    }
+    return new Promise((resolve, reject) => {
+      const req = http.request({ host: '127.0.0.1', port: this.port, path: url, method, headers, agent: this.agent }, (res) => {
+        for (const cookie of res.headers['set-cookie'] ?? []) {
+          const [pair] = cookie.split(';');
+          const at = pair.indexOf('=');
+          this.cookies.set(pair.slice(0, at), pair.slice(at + 1));
+        }
+        const chunks: Buffer[] = [];
+        res.on('data', (chunk: Buffer) => chunks.push(chunk));
+        res.on('end', () => resolve({ status: res.statusCode ?? 0, text: Buffer.concat(chunks).toString('utf8') }));
+        res.on('error', reject);
+      });
+      req.on('error', reject);
+      req.end(payload);
+    });
+  }
+}
+
+/** All clients ask for `url` back to back until the time or the count runs out; every answer must be 200. */
+async function load(clients: LoadClient[], url: string, seconds: number, maxRequests: number, latencies: number[] = []) {
+  let issued = 0;
+  const deadline = performance.now() + seconds * 1000;
+  const started = performance.now();
+  await Promise.all(
+    clients.map(async (client) => {
+      while (issued < maxRequests && performance.now() < deadline) {
+        issued += 1;
+        const sent = performance.now();
+        const res = await client.request('GET', url);
+        if (res.status !== 200) throw new Error(`${url} answered ${res.status}: ${res.text.slice(0, 200)}`);
+        latencies.push(performance.now() - sent);
+      }
+    }),
+  );
+  return (performance.now() - started) / 1000;
+}
+
+export async function benchListLoad(): Promise<Record<string, string | number>> {
+  const base = loadConfig({ ...process.env, NODE_ENV: 'development' });
+  await recreateDatabase(base.db, LOAD_DB);
+  const db = { ...base.db, dbName: LOAD_DB };
+  const orm = await MikroORM.init(ormConfig(db));
+  const s3Folder = await mkdtemp(path.join(os.tmpdir(), 'tallyhood-load-s3-'));
+  const s3 = await startFakeS3({ directory: s3Folder });
+  const store = createObjectStore({ ...base.storage, endpoint: s3.endpoint });
+  const agent = new http.Agent({ keepAlive: true, maxSockets: CLIENTS });
+  let server: http.Server | undefined;
+  let running: ReturnType<typeof createApp> | undefined;
+  try {
+    await orm.getMigrator().up();
+    await store.ensureBucket();
+    const config = { ...base, db, clientDist: '/nonexistent' };
+    await seedDemo({ orm, store, config });
+    const build = await orm.em.fork().findOneOrFail(Build, { name: DEMO_BUILD.name });
+    // No job runs here: the seed reads its receipts itself, and the lists only read.
+    const queue = { readReceipt: async () => undefined, scheduleAlerts: async () => undefined, stop: async () => undefined } as unknown as JobQueue;
+    running = createApp({ orm, config, mailer: createMailer(config.smtp), store, queue });
+    server = await new Promise<http.Server>((resolve) => {
+      const listening = running!.app.listen(0, '127.0.0.1', () => resolve(listening));
+    });
+    const port = (server.address() as AddressInfo).port;
+
+    const owner = DEMO_PEOPLE.find((person) => person.role === 'owner')!;
+    const clients = Array.from({ length: CLIENTS }, () => new LoadClient(port, agent));
+    for (const client of clients) {
+      await client.request('GET', '/api/auth/me');
+      const res = await client.request('POST', '/api/auth/sign-in', { email: owner.email, password: DEMO_PASSWORD });
+      if (res.status !== 200) throw new Error(`sign-in answered ${res.status}: ${res.text}`);
+    }
+    const routes: [string, string][] = [
+      ['health', '/api/health'],
+      ['parts list', `/api/builds/${build.id}/parts`],
+      ['receipts list', `/api/builds/${build.id}/receipts`],
+    ];
+    const figures: Record<string, string | number> = {};
+    const parts = JSON.parse((await clients[0].request('GET', routes[1][1])).text).parts.length;
+    const receipts = JSON.parse((await clients[0].request('GET', routes[2][1])).text).receipts.length;
+    figures['load: clients'] = CLIENTS;
+    figures['load: demo parts, receipts'] = `${parts}, ${receipts}`;
+    for (const [, url] of routes) await load(clients, url, SECONDS_PER_TURN, WARM_UP_REQUESTS);
+    const measured = routes.map(() => ({ latencies: [] as number[], seconds: 0 }));
+    for (let round = 0; round < ROUNDS; round += 1) {
+      for (const [index, [, url]] of routes.entries()) {
+        measured[index].seconds += await load(clients, url, SECONDS_PER_TURN, MAX_REQUESTS_PER_TURN, measured[index].latencies);
+      }
+    }
+    const healthRate = measured[0].latencies.length / measured[0].seconds;
+    for (const [index, [name]] of routes.entries()) {
+      const { latencies, seconds } = measured[index];
+      const rate = latencies.length / seconds;
+      figures[`load ${name}: requests`] = latencies.length;
+      figures[`load ${name}: req/s`] = rate.toFixed(0);
+      figures[`load ${name}: p50 ms`] = percentile(latencies, 50).toFixed(1);
+      figures[`load ${name}: p95 ms${index > 0 ? " (goal ≤ 150)" : ""}`] = percentile(latencies, 95).toFixed(1);
+      if (index > 0) figures[`load ${name}: rate / health (goal ≥ 0.70)`] = (rate / healthRate).toFixed(2);
+    }
+    return figures;
+  } finally {
+    agent.destroy();
+    if (server) await new Promise((resolve) => server!.close(resolve));
+    await running?.close();
+    store.close();
+    await s3.close();
+    await rm(s3Folder, { recursive: true, force: true });
+    await orm.close(true);
+  }
+}
+
+if (require.main === module) {
+  benchListLoad()
+    .then((figures) => {
+      for (const [name, value] of Object.entries(figures)) console.log(`${name.padEnd(48)} ${value}`);
+      process.exit(0);
+    })
+    .catch((error: unknown) => {
+      console.error(error);
+      process.exit(1);
+    });
+}
