@@ -1,5 +1,6 @@
 // Ledger and export figures on large builds seeded here: the ledger's p50/p95 beside the bare SQL aggregate, and
 // the tax-ledger export's rows per second and peak memory. Runs against its own throw-away database.
+import { runSection } from './print-figures';
 import { MikroORM } from '@mikro-orm/postgresql';
 import { Writable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
@@ -98,14 +99,4 @@ export async function benchLedger(): Promise<Record<string, string | number>> {
   return figures;
 }
 
-if (require.main === module) {
-  benchLedger()
-    .then((figures) => {
-      for (const [name, value] of Object.entries(figures)) console.log(`${name.padEnd(48)} ${value}`);
-      process.exit(0);
-    })
-    .catch((error: unknown) => {
-      console.error(error);
-      process.exit(1);
-    });
-}
+if (require.main === module) runSection(benchLedger);

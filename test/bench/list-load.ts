@@ -1,6 +1,7 @@
 // The list routes under load: 20 signed-in clients on loopback ask, each in turn, for /api/health, the demo
 // build's parts list and its receipts list, and the rates and latencies of the lists are set beside health's.
 // Runs the app in this process against its own throw-away database, seeded with the demo build.
+import { runSection } from './print-figures';
 import { MikroORM } from '@mikro-orm/postgresql';
 import http from 'node:http';
 import type { AddressInfo } from 'node:net';
@@ -154,14 +155,4 @@ export async function benchListLoad(): Promise<Record<string, string | number>> 
   }
 }
 
-if (require.main === module) {
-  benchListLoad()
-    .then((figures) => {
-      for (const [name, value] of Object.entries(figures)) console.log(`${name.padEnd(48)} ${value}`);
-      process.exit(0);
-    })
-    .catch((error: unknown) => {
-      console.error(error);
-      process.exit(1);
-    });
-}
+if (require.main === module) runSection(benchListLoad);

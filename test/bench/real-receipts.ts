@@ -4,6 +4,7 @@
 // parser alone on the true text (rows joined in reading order), which tells OCR misses from parsing misses.
 //   npx tsx test/bench/real-receipts.ts [--parser-only] [--limit N] [--folder DIR] [--verbose]
 //   REAL_RECEIPTS=DIR npm run bench
+import { runSection } from './print-figures';
 import { existsSync, readFileSync, readdirSync } from 'node:fs';
 import path from 'node:path';
 import { Decimal } from '../../shared/money';
@@ -226,12 +227,5 @@ if (require.main === module) {
     return index === -1 ? undefined : argv[index + 1];
   };
   const limit = valueOf('--limit');
-  benchRealReceipts({ parserOnly: argv.includes('--parser-only'), limit: limit ? Number(limit) : undefined, folder: valueOf('--folder'), verbose: argv.includes('--verbose') })
-    .then((figures) => {
-      for (const [name, value] of Object.entries(figures)) console.log(`${name.padEnd(44)} ${value}`);
-    })
-    .catch((error: unknown) => {
-      console.error(error);
-      process.exit(1);
-    });
+  runSection(() => benchRealReceipts({ parserOnly: argv.includes('--parser-only'), limit: limit ? Number(limit) : undefined, folder: valueOf('--folder'), verbose: argv.includes('--verbose') }));
 }

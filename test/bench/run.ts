@@ -1,11 +1,12 @@
 // `npm run bench`: speed, memory and accuracy figures, printed; targets live here, never in timed tests.
 import { benchLedger } from './ledger-bench';
+import { printFigures, type Figures } from './print-figures';
 import { benchListLoad } from './list-load';
 import { benchReadingAccuracy } from './reading-accuracy';
 import { benchRealReceipts } from './real-receipts';
 
 async function main() {
-  const sections: [string, () => Promise<Record<string, string | number>>][] = [
+  const sections: [string, () => Promise<Figures>][] = [
     ['Receipt reading (fixture set)', benchReadingAccuracy],
     // Real scans from outside the repository (../shared/receipts-real/sroie or REAL_RECEIPTS); skipped when absent.
     ['Receipt reading (real receipts)', () => benchRealReceipts()],
@@ -15,7 +16,7 @@ async function main() {
   for (const [title, run] of sections) {
     console.log(`\n== ${title}`);
     const figures = await run();
-    for (const [name, value] of Object.entries(figures)) console.log(`${name.padEnd(44)} ${value}`);
+    printFigures(figures);
   }
 }
 

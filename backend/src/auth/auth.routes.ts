@@ -1,4 +1,5 @@
 // Sign-up, sign-in, sign-out, who-am-I and password reset.
+import { afterCommit } from '../http/request-transaction';
 import { Router, type Request } from 'express';
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 import { resetConfirmRequest, resetRequest, signInRequest, signUpRequest, type MeResponse } from '../../../shared/api/auth';
@@ -102,11 +103,12 @@ export function authRoutes(passport: AppPassport, mailer: Mailer, config: AppCon
     });
   });
 
-  router.post('/password-reset', resetRequestLimit, validBody(resetRequest), (req, res) => {
+  router.post('/password-reset', resetRequestLimit, validBody(resetRequest), async (req, res) => {
     // The same answer at once for every address; the link is made and mailed after it, so neither the answer
     // nor its timing says whether the address has an account.
+    const requestEm = em();
+    await afterCommit(requestEm, () => requestPasswordReset(requestEm.fork(), mailer, config, req.body.email));
     res.status(202).json({ message: 'If an account exists for that address, a link is on its way.' });
-    requestPasswordReset(em().fork(), mailer, config, req.body.email).catch((error: unknown) => console.error('password reset mail failed:', error));
   });
 
   router.post('/password-reset/confirm', resetConfirmLimit, validBody(resetConfirmRequest), async (req, res) => {

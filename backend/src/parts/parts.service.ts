@@ -54,23 +54,8 @@ export function partDto(part: PartFields, currency: string): PartDto {
   };
 }
 
-interface PartRow {
-  id: string;
-  systemId: string;
-  description: string;
-  partNumber: string;
-  quantity: string;
-  unit: Unit;
-  estimatedUnitCost: string;
-  status: PartStatus;
-  storageLocation: string;
-  sourceUrl: string;
-  notes: string;
-  forSale: boolean;
-  askingPrice: string | null;
-  version: number;
-  updatedAt: Date;
-}
+/** A part as the list query reads it: the answer's fields, less the estimate worked out from them, with its time. */
+type PartRow = Omit<PartDto, 'estimatedTotal' | 'updatedAt'> & { updatedAt: Date };
 
 /**
  * The list is read as plain rows, not entities: making an entity of every part (identity map, references, change
