@@ -1,7 +1,7 @@
 // Test fixtures: whole DTOs of one invented build, so a field added to a DTO is added here once, not in every spec.
 import type { BuildDto } from '../../shared/api/builds';
 import type { PartDto, SystemDto, SystemsResponse } from '../../shared/api/parts';
-import type { CoreDto, ReceiptDto, ReceiptSummaryDto } from '../../shared/api/receipts';
+import type { CoreDto, ReceiptDto, ReceiptLineDto, ReceiptSummaryDto } from '../../shared/api/receipts';
 import type { BuildRole } from '../../shared/enums';
 
 /** Build b-1 as its API answers it to a member with `role`. */
@@ -53,6 +53,32 @@ export function testPart(id: string, overrides: Partial<PartDto> = {}): PartDto 
     askingPrice: null,
     version: 1,
     updatedAt: '2026-03-02T10:00:00.000Z',
+    ...overrides,
+  };
+}
+
+/** A purchase line of one piece at `amount`, read from a box near the top of page 0. */
+export function testLine(id: string, position: number, description: string, amount: string, systemId: string | null, overrides: Partial<ReceiptLineDto> = {}): ReceiptLineDto {
+  return {
+    id,
+    position,
+    kind: 'part',
+    description,
+    partNumber: '',
+    quantity: '1',
+    unitPrice: amount,
+    amount,
+    taxable: true,
+    allocatedTax: '0.00',
+    allocatedShipping: '0.00',
+    allocatedDiscount: '0.00',
+    partId: null,
+    partDescription: null,
+    systemId,
+    returnOfLineId: null,
+    box: { page: 0, x: 10, y: 200, w: 300, h: 20 },
+    confidence: {},
+    version: 1,
     ...overrides,
   };
 }

@@ -1,7 +1,5 @@
 // /builds/:buildId/parts: the bill of materials grouped by system, with totals against budget, inline status, bulk changes and import.
-import { BreakpointObserver } from '@angular/cdk/layout';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked } from '@angular/core';
-import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatDialog } from '@angular/material/dialog';
@@ -16,7 +14,7 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatSortModule, Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
-import { forkJoin, map } from 'rxjs';
+import { forkJoin } from 'rxjs';
 import type { ImportResultDto, PartDto, SystemDto } from '../../../../../shared/api/parts';
 import { PART_STATUSES, PART_STATUS_LABELS, PartStatus } from '../../../../../shared/enums';
 import { Decimal } from '../../../../../shared/money';
@@ -24,6 +22,7 @@ import { SAFETY_CAUTION } from '../../../../../shared/safety';
 import { toApiError } from '../../../core/http/api-error';
 import { EmptyState } from '../../../ui/empty-state';
 import { MoneyPipe } from '../../../ui/money';
+import { injectNarrowScreen } from '../../../ui/narrow-screen';
 import { CurrentBuild } from '../../builds/services/current-build';
 import { ImportDialog, ImportDialogData } from '../components/import-dialog';
 import { PartFormData, PartFormDialog, PartFormResult } from '../components/part-form-dialog';
@@ -491,12 +490,7 @@ export class PartsPage {
   });
   protected readonly activeSystems = computed(() => this.systems().filter((system) => !system.archived));
   /** Phones: part number, quantity, unit cost and location go under the description, so the figures stay in view. */
-  protected readonly narrow = toSignal(
-    inject(BreakpointObserver)
-      .observe('(max-width: 599.98px)')
-      .pipe(map((state) => state.matches)),
-    { initialValue: false },
-  );
+  protected readonly narrow = injectNarrowScreen();
   protected readonly partColumns = computed(() => {
     const columns = this.narrow()
       ? ['description', 'total', 'status']

@@ -5,12 +5,13 @@ import { HttpTestingController } from '@angular/common/http/testing';
 import { render, screen, waitFor } from '@testing-library/angular/zoneless';
 import userEvent from '@testing-library/user-event';
 import type { SystemDto } from '../../../../../shared/api/parts';
-import type { ReceiptDto, ReceiptLineDto } from '../../../../../shared/api/receipts';
+import type { ReceiptDto } from '../../../../../shared/api/receipts';
+import type { ReceiptSuggestionsDto } from '../../../../../shared/api/suggestions';
 import type { BuildRole } from '../../../../../shared/enums';
 import { apiTestProviders } from '../../../../testing/api-test-providers';
 import { CurrentBuild } from '../../builds/services/current-build';
 import { ReceiptCheck } from './receipt-check';
-import { testBuild, testSystem } from '../../../../testing/build-fixtures';
+import { testBuild, testLine, testSystem } from '../../../../testing/build-fixtures';
 
 // The first test pays the compilation of the check screen with its image and review panels, and the typing tests
 // type many keys: on a busy 2-core machine they came near jest's 5 s default.
@@ -18,27 +19,7 @@ jest.setTimeout(15_000);
 
 const system = (id: string, name: string, safetyCaution = false): SystemDto => testSystem(id, name, { safetyCaution });
 
-const line = (id: string, position: number, description: string, amount: string, systemId: string | null): ReceiptLineDto => ({
-  id,
-  position,
-  kind: 'part',
-  description,
-  partNumber: '',
-  quantity: '1',
-  unitPrice: amount,
-  amount,
-  taxable: true,
-  allocatedTax: '0.00',
-  allocatedShipping: '0.00',
-  allocatedDiscount: '0.00',
-  partId: null,
-  partDescription: null,
-  systemId,
-  returnOfLineId: null,
-  box: { page: 0, x: 10, y: 200, w: 300, h: 20 },
-  confidence: {},
-  version: 1,
-});
+const line = testLine;
 
 // 30.00 + 10.00 + tax 2.00 = 42.00, the printed total.
 const receipt = (extra: Partial<ReceiptDto> = {}): ReceiptDto => ({
@@ -77,7 +58,7 @@ const receipt = (extra: Partial<ReceiptDto> = {}): ReceiptDto => ({
   ...extra,
 });
 
-async function renderAs(role: BuildRole, shown: ReceiptDto) {
+async function renderAs(role: BuildRole, shown: ReceiptDto, suggestions: ReceiptSuggestionsDto = { threshold: 0.6, lines: [] }) {
   await render(ReceiptCheck, {
     providers: [
       ...apiTestProviders(),
@@ -100,6 +81,8 @@ async function renderAs(role: BuildRole, shown: ReceiptDto) {
   await new Promise((resolve) => setTimeout(resolve, 0));
   http.expectOne('/api/builds/b-1/receipts/r-1').flush(shown);
   await screen.findByRole('heading', { name: 'Ridgeback Parts' });
+  // An editable receipt asks for the reader's suggestions once it shows.
+  for (const request of http.match('/api/builds/b-1/receipts/r-1/suggestions')) request.flush(suggestions);
   return http;
 }
 
@@ -217,6 +200,43 @@ describe('ReceiptCheck', () => {
     expect(request.request.body).toEqual({ version: 3, acceptDifference: { reason: 'Card surcharge not itemised' } });
     request.flush(receipt({ total: '42.40', state: 'filed', version: 4, differenceAccepted: true, differenceReason: 'Card surcharge not itemised' }));
     expect(await screen.findByText(/Difference accepted: Card surcharge not itemised/)).toBeTruthy();
+  });
+
+  it("offers each line the reader's suggestions with reasons, and accepts every sure one in one request", async () => {
+    const unassigned = receipt({ lines: [line('l-1', 0, 'Brake hose pair', '30.00', null), line('l-2', 1, 'Shop rags', '10.00', null)] });
+    const http = await renderAs('crew', unassigned, {
+      threshold: 0.6,
+      lines: [
+        { lineId: 'l-1', suggestions: [{ partId: null, partName: null, systemId: 's-brakes', systemName: 'Brakes', score: 0.9, source: 'history', reason: 'went to Brakes on an earlier receipt from this shop' }] },
+        { lineId: 'l-2', suggestions: [{ partId: null, partName: null, systemId: 's-tools', systemName: 'Tools and consumables', score: 0.3, source: 'trade-word', reason: '“rags” is a word for tools and consumables' }] },
+      ],
+    });
+    // Only the first line's suggestion is sure enough for the one button.
+    const acceptAll = await screen.findByRole('button', { name: /Accept the suggestion/ });
+    const user = userEvent.setup();
+    // The assign field lists the suggestion first, with its reason.
+    await user.click(screen.getByRole('combobox', { name: /Assign line 1/ }));
+    const suggested = await screen.findByRole('group', { name: 'Suggested' });
+    expect(suggested.textContent?.replace(/\s+/g, ' ')).toContain('Brakes (system only), went to Brakes on an earlier receipt from this shop');
+    await user.keyboard('{Escape}');
+    await user.click(acceptAll);
+    const accept = await nextRequest(http, '/api/builds/b-1/receipts/r-1/suggestions/accept');
+    expect(accept.request.method).toBe('POST');
+    expect(accept.request.body).toEqual({});
+    accept.flush(receipt({ version: 4, lines: [line('l-1', 0, 'Brake hose pair', '30.00', 's-brakes'), line('l-2', 1, 'Shop rags', '10.00', null)] }));
+    await screen.findByText('Assign the last line to a part or a system before filing.');
+  });
+
+  it('assigns a line from a suggestion in its field, sending the part with its system', async () => {
+    const http = await renderAs('crew', receipt({ lines: [line('l-1', 0, 'Brake hose pair', '30.00', null), line('l-2', 1, 'Shop rags', '10.00', 's-tools')] }), {
+      threshold: 0.6,
+      lines: [{ lineId: 'l-1', suggestions: [{ partId: 'p-hose', partName: 'Braided brake hoses', systemId: 's-brakes', systemName: 'Brakes', score: 0.95, source: 'part-number', reason: 'part number BH-2 is on the bill of materials' }] }],
+    });
+    const user = userEvent.setup();
+    await user.click(screen.getByRole('combobox', { name: /Assign line 1/ }));
+    await user.click(await screen.findByRole('option', { name: /Braided brake hoses/ }));
+    const patch = await nextRequest(http, '/api/builds/b-1/receipts/r-1/lines/l-1');
+    expect(patch.request.body).toEqual({ partId: 'p-hose', systemId: 's-brakes', version: 1 });
   });
 
   it('keeps filing disabled with the reason while a line is unassigned', async () => {
@@ -381,7 +401,7 @@ describe('ReceiptCheck lines by keyboard', () => {
     amount.focus();
     amount.setSelectionRange(5, 5);
     await user.keyboard('{ArrowRight}');
-    const part = screen.getByRole('combobox', { name: 'Part for line 2, type a part number or description' }) as HTMLInputElement;
+    const part = screen.getByRole('combobox', { name: 'Assign line 2: type a part, a part number or a system' }) as HTMLInputElement;
     expect(focused()).toBe(part);
     await user.keyboard('{ArrowDown}');
     expect(focused()).toBe(part);
@@ -389,10 +409,11 @@ describe('ReceiptCheck lines by keyboard', () => {
     await user.keyboard('{ArrowLeft}');
     expect(focused()).toBe(amount);
     await waitFor(() => expect(part.getAttribute('aria-expanded')).toBe('false'));
-    // Right from the part box reaches the system list of the same line.
+    // The assign field is the last of its line: Right at the end of its text goes nowhere.
     part.focus();
+    part.setSelectionRange(part.value.length, part.value.length);
     await user.keyboard('{ArrowRight}');
-    expect(focused()).toBe(screen.getByRole('combobox', { name: 'System for line 2' }));
+    expect(focused()).toBe(part);
   });
 
   it('tells the keys beside the lines, and describes the table with them', async () => {

@@ -2,7 +2,6 @@
 import { ChangeDetectionStrategy, Component, DestroyRef, ElementRef, computed, effect, inject, input, signal, untracked, viewChildren } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { FormArray, FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
-import { MatAutocompleteModule, MatAutocompleteSelectedEvent, MatAutocompleteTrigger } from '@angular/material/autocomplete';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatDialog } from '@angular/material/dialog';
@@ -16,7 +15,8 @@ import { RouterLink } from '@angular/router';
 import { Observable, Subscription, firstValueFrom, of, switchMap, takeWhile, timer } from 'rxjs';
 import type { PartDto, SystemDto } from '../../../../../shared/api/parts';
 import type { FileReceiptRequest, ReceiptDto, ReceiptLineDto, UpdateLineRequest, UpdateReceiptRequest } from '../../../../../shared/api/receipts';
-import { RECEIPT_LINE_KINDS, RECEIPT_LINE_KIND_LABELS, RECEIPT_STATE_LABELS, ReceiptLineKind } from '../../../../../shared/enums';
+import type { LineSuggestionDto } from '../../../../../shared/api/suggestions';
+import { RECEIPT_LINE_KINDS, RECEIPT_LINE_KIND_LABELS, RECEIPT_STATE_LABELS } from '../../../../../shared/enums';
 import { parseMoney } from '../../../../../shared/money';
 import { SAFETY_CAUTION } from '../../../../../shared/safety';
 import { ApiError, toApiError } from '../../../core/http/api-error';
@@ -32,6 +32,10 @@ import { ReceiptPages } from '../components/receipt-pages';
 import { ReturnLinkData, ReturnLinkDialog } from '../components/return-link-dialog';
 import { SplitDialog, SplitDialogData, SplitShare } from '../components/split-dialog';
 import { liveReconciliation } from '../models/live-reconciliation';
+import { LINE_FIELD_LABELS, LINE_TEXT_FIELDS, lineGroup, type LineAction, type LineField, type LineGroup } from '../models/line-form';
+import { AssignPicker, type Assignment } from '../components/assign-picker/assign-picker';
+import { LineCard } from '../components/line-card/line-card';
+import { injectNarrowScreen } from '../../../ui/narrow-screen';
 import { ReceiptsApi } from '../services/receipts-api';
 
 /** Below this reading confidence a field is marked "check this". */
@@ -48,9 +52,6 @@ const HEADER_FIELDS = [
   { name: 'total', label: 'Total', confidence: 'total', money: true },
 ] as const;
 type HeaderName = (typeof HEADER_FIELDS)[number]['name'];
-
-const LINE_TEXT_FIELDS = ['description', 'partNumber', 'quantity', 'unitPrice', 'amount'] as const;
-type LineTextField = (typeof LINE_TEXT_FIELDS)[number];
 
 /** A typed value against the saved one: amounts compare as decimals ("12" is "12.00"), the rest as text. */
 function sameValue(saved: unknown, typed: string | null, numeric: boolean): boolean {
@@ -79,25 +80,12 @@ function caretAtEdge(input: HTMLInputElement, edge: 'start' | 'end'): boolean {
   return edge === 'start' ? selectionStart === 0 : selectionStart === input.value.length;
 }
 
-function lineGroup(line: ReceiptLineDto) {
-  return new FormGroup({
-    kind: new FormControl<ReceiptLineKind>(line.kind, { nonNullable: true }),
-    description: new FormControl(line.description, { nonNullable: true }),
-    partNumber: new FormControl(line.partNumber, { nonNullable: true }),
-    quantity: new FormControl(line.quantity, { nonNullable: true }),
-    unitPrice: new FormControl(line.unitPrice ?? '', { nonNullable: true }),
-    amount: new FormControl(line.amount, { nonNullable: true }),
-    taxable: new FormControl(line.taxable, { nonNullable: true }),
-    systemId: new FormControl(line.systemId ?? '', { nonNullable: true }),
-  });
-}
-type LineGroup = ReturnType<typeof lineGroup>;
-
 @Component({
   selector: 'th-receipt-check',
   imports: [
     ReactiveFormsModule,
-    MatAutocompleteModule,
+    AssignPicker,
+    LineCard,
     MatButtonModule,
     MatCheckboxModule,
     MatFormFieldModule,
@@ -129,13 +117,7 @@ export class ReceiptCheck {
 
   protected readonly headerFields = HEADER_FIELDS;
   protected readonly lineTextFields = LINE_TEXT_FIELDS;
-  protected readonly lineFieldLabels: Record<LineTextField, string> = {
-    description: 'Description',
-    partNumber: 'Part number',
-    quantity: 'Quantity',
-    unitPrice: 'Unit price',
-    amount: 'Amount',
-  };
+  protected readonly lineFieldLabels = LINE_FIELD_LABELS;
   protected readonly kinds = RECEIPT_LINE_KINDS;
   protected readonly kindLabels = RECEIPT_LINE_KIND_LABELS;
   protected readonly stateLabels = RECEIPT_STATE_LABELS;
@@ -149,7 +131,11 @@ export class ReceiptCheck {
   protected readonly busy = signal(false);
   protected readonly activeLineId = signal<string | null>(null);
   protected readonly selected = signal<ReadonlySet<string>>(new Set());
-  protected readonly partQuery = signal('');
+  /** Each line's suggestions by line id; empty until they arrive (and when they cannot be had). */
+  protected readonly suggestions = signal<Record<string, LineSuggestionDto[]>>({});
+  protected readonly suggestionThreshold = signal(1);
+  /** Phones get one card per line instead of the table. */
+  protected readonly narrow = injectNarrowScreen();
   protected readonly lineProblems = signal<Record<string, string>>({});
   protected readonly fileProblems = signal<string[]>([]);
 
@@ -164,14 +150,15 @@ export class ReceiptCheck {
     total: new FormControl('', { nonNullable: true }),
   });
   protected readonly lineForms = new FormArray<LineGroup>([]);
-  /** The part boxes' autocomplete triggers, and their inputs in the same order. */
-  private readonly partTriggers = viewChildren(MatAutocompleteTrigger);
-  private readonly partBoxes = viewChildren(MatAutocompleteTrigger, { read: ElementRef });
+  /** The table's assign fields, to close one's list when the arrow keys leave it. */
+  private readonly pickers = viewChildren(AssignPicker);
+  private readonly pickerHosts = viewChildren(AssignPicker, { read: ElementRef });
   /** Bumped on every keystroke, so the live reconciliation (a computed) follows the forms. */
   private readonly formTick = signal(0);
   /** Saves run one after another, so each sends the version the previous one answered with. */
   private saving: Promise<unknown> = Promise.resolve();
   private polling: Subscription | null = null;
+  private suggestionsKey = '';
 
   protected readonly currency = computed(() => this.receipt()?.currency ?? this.current.build()?.currency ?? '');
   protected readonly locale = computed(() => this.receipt()?.locale ?? this.current.build()?.locale ?? 'en-US');
@@ -181,11 +168,11 @@ export class ReceiptCheck {
 
   protected readonly activeBox = computed(() => this.receipt()?.lines.find((line) => line.id === this.activeLineId())?.box ?? null);
 
-  protected readonly matchingParts = computed(() => {
-    const query = this.partQuery().trim().toLowerCase();
-    const parts = this.parts();
-    const matches = query ? parts.filter((part) => part.partNumber.toLowerCase().includes(query) || part.description.toLowerCase().includes(query)) : parts;
-    return matches.slice(0, 30);
+  /** Unassigned lines whose best suggestion is sure enough for "accept all". */
+  protected readonly acceptableCount = computed(() => {
+    const suggestions = this.suggestions();
+    const threshold = this.suggestionThreshold();
+    return (this.receipt()?.lines ?? []).filter((line) => !line.systemId && (suggestions[line.id]?.[0]?.score ?? 0) >= threshold).length;
   });
 
   protected readonly live = computed(() => {
@@ -342,7 +329,7 @@ export class ReceiptCheck {
     event.stopPropagation();
     if (!to) return;
     // The suggestions only close by themselves on Tab, Escape or a click elsewhere: close them when leaving by arrow.
-    if (isPartBox) this.partTriggers()[this.partBoxes().findIndex((box) => box.nativeElement === from)]?.closePanel();
+    if (isPartBox) this.pickers()[this.pickerHosts().findIndex((host) => host.nativeElement.contains(from))]?.closePanel();
     to.focus();
     if (to instanceof HTMLInputElement) {
       // Up and down select the figure to retype it, as Tab does; sideways the caret continues from the near edge.
@@ -381,14 +368,13 @@ export class ReceiptCheck {
     });
   }
 
-  protected saveLine(line: ReceiptLineDto, field: LineTextField | 'kind' | 'systemId'): void {
+  protected saveLine(line: ReceiptLineDto, field: LineField): void {
     const group = this.groupOf(line.id);
     if (!group) return;
     const control = group.controls[field];
     const raw = String(control.value).trim();
     let value: string | null = raw;
     if (field === 'unitPrice' && raw === '') value = null;
-    if (field === 'systemId' && raw === '') value = null;
     if ((field === 'amount' || field === 'unitPrice' || field === 'quantity') && value !== null) {
       const parsed = parseMoney(value);
       if (!parsed.ok) {
@@ -409,20 +395,31 @@ export class ReceiptCheck {
         next: (saved) => this.replaceLine(saved),
         error: (error) => {
           const message = error.fields[field] ?? Object.values(error.fields)[0] ?? error.message;
-          if (field === 'kind' || field === 'systemId') this.setLineProblem(line.id, message);
+          if (field === 'kind') this.setLineProblem(line.id, message);
           else control.setErrors({ message });
         },
       },
     );
   }
 
-  /** What the part box shows once a part is picked: its description, never its id. */
-  protected readonly partLabel = (partId: string | null): string => this.parts().find((part) => part.id === partId)?.description ?? '';
+  /** A part brings its system; a system alone leaves the line without a part. */
+  protected assignTo(line: ReceiptLineDto, assignment: Assignment): void {
+    this.sendLine(line.id, { partId: assignment.partId, systemId: assignment.systemId });
+  }
 
-  protected assignPart(line: ReceiptLineDto, event: MatAutocompleteSelectedEvent): void {
-    const partId = event.option.value as string | null;
-    const part = this.parts().find((candidate) => candidate.id === partId);
-    this.sendLine(line.id, part ? { partId, systemId: part.systemId } : { partId: null });
+  protected act(line: ReceiptLineDto, action: LineAction): void {
+    if (action === 'newPart') this.newPartFrom(line);
+    else if (action === 'linkReturn') this.linkReturn(line);
+    else if (action === 'split') this.split(line);
+    else this.removeLine(line);
+  }
+
+  /** One button takes every sure suggestion at once. */
+  protected acceptAll(): void {
+    this.enqueue(() => this.receiptsApi.acceptSuggestions(this.buildId(), this.receiptId()), {
+      next: (saved) => this.show(saved),
+      error: (error) => this.problem.set(error.message),
+    });
   }
 
   protected newPartFrom(line: ReceiptLineDto): void {
@@ -620,6 +617,23 @@ export class ReceiptCheck {
     this.lineForms.clear({ emitEvent: false });
     for (const line of receipt.lines) this.lineForms.push(lineGroup(line), { emitEvent: false });
     this.bump();
+    this.loadSuggestions(receipt);
+  }
+
+  /** Asked once per set of lines (a split, merge or new line asks again); a receipt still being read has none yet. */
+  private loadSuggestions(receipt: ReceiptDto): void {
+    const key = receipt.editable && receipt.state !== 'queued' && receipt.state !== 'reading' ? receipt.lines.map((line) => line.id).join(',') : '';
+    if (key === this.suggestionsKey) return;
+    this.suggestionsKey = key;
+    if (!key) return;
+    this.receiptsApi.suggestions(this.buildId(), this.receiptId()).subscribe({
+      next: (answer) => {
+        this.suggestionThreshold.set(answer.threshold);
+        this.suggestions.set(Object.fromEntries(answer.lines.map((line) => [line.lineId, line.suggestions])));
+      },
+      // Suggestions help; without them the person assigns by hand.
+      error: () => this.suggestions.set({}),
+    });
   }
 
   private bump(): void {

@@ -16,6 +16,7 @@ import type {
   UpdateLineRequest,
   UpdateReceiptRequest,
 } from '../../../../../shared/api/receipts';
+import type { AcceptSuggestionsRequest, ReceiptSuggestionsDto } from '../../../../../shared/api/suggestions';
 import type { ReceiptState } from '../../../../../shared/enums';
 import { HANDLED_STATUSES } from '../../../core/http/api-error';
 
@@ -112,6 +113,16 @@ export class ReceiptsApi {
 
   reopen(buildId: string, receiptId: string): Observable<ReceiptDto> {
     return this.http.post<ReceiptDto>(`${receiptPath(buildId, receiptId)}/reopen`, {});
+  }
+
+  /** The reader's proposals for every line that takes a part or a system, best first, with reasons. */
+  suggestions(buildId: string, receiptId: string): Observable<ReceiptSuggestionsDto> {
+    return this.http.get<ReceiptSuggestionsDto>(`${receiptPath(buildId, receiptId)}/suggestions`);
+  }
+
+  /** Takes the top suggestion of every unassigned line (or the named ones) that reaches the threshold. */
+  acceptSuggestions(buildId: string, receiptId: string, request: AcceptSuggestionsRequest = {}): Observable<ReceiptDto> {
+    return this.http.post<ReceiptDto>(`${receiptPath(buildId, receiptId)}/suggestions/accept`, request, handled([400, 409]));
   }
 
   /** Lines of other receipts matching the text, to link a return to the line it returns. */
