@@ -24,13 +24,34 @@ export async function launchBrowser(): Promise<Browser> {
   });
 }
 
-export async function newPage(browser: Browser, options: { phone?: boolean } = {}): Promise<Page> {
+/** A desktop page, or a phone's (390 × 844 unless `width` says otherwise; `touch` for taps). */
+export async function newPage(browser: Browser, options: { phone?: boolean; width?: number; touch?: boolean } = {}): Promise<Page> {
   const context = await browser.newContext({
     reducedMotion: 'reduce',
-    viewport: options.phone ? { width: 390, height: 844 } : { width: 1280, height: 860 },
+    viewport: options.phone ? { width: options.width ?? 390, height: 844 } : { width: 1280, height: 860 },
     deviceScaleFactor: 1,
+    hasTouch: options.touch ?? false,
+    isMobile: options.touch ?? false,
   });
   return context.newPage();
+}
+
+/**
+ * What scrolls sideways: whether the document is wider than the window, and each element whose content is wider than
+ * its box while it lets the person scroll it sideways (a region to swipe inside), named by tag, id and class.
+ */
+export async function sidewaysScroll(page: Page): Promise<{ page: boolean; regions: string[] }> {
+  return page.evaluate(`(() => {
+    const root = document.documentElement;
+    const regions = [];
+    for (const element of document.querySelectorAll('body *')) {
+      const overflow = getComputedStyle(element).overflowX;
+      if ((overflow === 'auto' || overflow === 'scroll') && element.scrollWidth > element.clientWidth + 1) {
+        regions.push(element.tagName.toLowerCase() + (element.id ? '#' + element.id : '') + (element.className && typeof element.className === 'string' ? '.' + element.className.trim().split(/\\s+/).join('.') : ''));
+      }
+    }
+    return { page: root.scrollWidth > window.innerWidth, regions };
+  })()`);
 }
 
 export async function screenshot(page: Page, name: string): Promise<string> {

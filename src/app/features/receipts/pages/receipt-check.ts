@@ -132,11 +132,11 @@ export class ReceiptCheck {
   protected readonly activeLineId = signal<string | null>(null);
   protected readonly selected = signal<ReadonlySet<string>>(new Set());
   /** Each line's suggestions by line id; empty until they arrive (and when they cannot be had). */
-  protected readonly suggestions = signal<Record<string, LineSuggestionDto[]>>({});
+  protected readonly suggestions = signal<Partial<Record<string, LineSuggestionDto[]>>>({});
   protected readonly suggestionThreshold = signal(1);
   /** Phones get one card per line instead of the table. */
   protected readonly narrow = injectNarrowScreen();
-  protected readonly lineProblems = signal<Record<string, string>>({});
+  protected readonly lineProblems = signal<Partial<Record<string, string>>>({});
   protected readonly fileProblems = signal<string[]>([]);
 
   protected readonly header = new FormGroup({

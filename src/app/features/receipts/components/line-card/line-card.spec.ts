@@ -95,6 +95,6 @@ describe('LineCard', () => {
     await renderCard({ editable: false, systemId: 's-cooling', partId: 'p-pump' });
     expect(screen.queryAllByRole('button')).toEqual([]);
     expect(screen.queryAllByRole('combobox')).toEqual([]);
-    expect(screen.getByText('Electric water pump')).toBeTruthy();
+    expect(screen.getByText('Assigned to Electric water pump · Cooling')).toBeTruthy();
   });
 });

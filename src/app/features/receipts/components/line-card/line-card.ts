@@ -59,6 +59,14 @@ export class LineCard {
     return `${line.quantity} × ${moneyText(line.unitPrice, this.currency(), this.locale(), 4)}`;
   });
 
+  /** For a reader: where the line went, in words. */
+  protected readonly assignedText = computed(() => {
+    const line = this.line();
+    const system = line.systemId ? (this.systems().find((candidate) => candidate.id === line.systemId)?.name ?? 'A system') : null;
+    if (!system) return 'Not assigned';
+    return line.partDescription ? `${line.partDescription} · ${system}` : system;
+  });
+
   protected money(amount: string): string {
     return moneyText(amount, this.currency(), this.locale());
   }
