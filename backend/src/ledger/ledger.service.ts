@@ -46,10 +46,15 @@ export const FIGURE_FILTER: Record<LedgerLineFigure, string> = {
   netCost: `(l.kind in ('part', 'fee', 'discount', 'return') or (l.kind = 'core_charge' and c.state = 'forfeited'))`,
   coreDepositsOutstanding: `(l.kind = 'core_charge' and c.state in ('owed', 'dropped_off'))`,
   // Parts sent back with no filed return line yet: what was paid for them is owed back.
-  // The returned parts are found once (a hashed subplan), not looked up per line (bench, 200,000 lines: 755 → 650 ms).
-  returnsAwaitingRefund: `(l.kind = 'part' and l.part_id in (select p.id from part p where p.status = 'returned')
-      and not exists (select 1 from receipt_line rl join receipt rr on rr.id = rl.receipt_id and rr.state = 'filed'
-                       where rl.kind = 'return' and (rl.return_of_id = l.id or rl.part_id = l.part_id)))`,
+  // Each set is found once (a hashed subplan), never looked up per line: a correlated "not exists" ran once per line
+  // even for lines without a part (null in "in (...)" is not false, so "and" went on), a scan of every line each time:
+  // 13.5 s for a receipt of 8,000 lines, 18 ms this way. The "is not null" filters keep "not in" away from nulls.
+  returnsAwaitingRefund: `(l.kind = 'part' and l.part_id is not null
+      and l.part_id in (select p.id from part p where p.status = 'returned')
+      and l.id not in (select rl.return_of_id from receipt_line rl join receipt rr on rr.id = rl.receipt_id and rr.state = 'filed'
+                        where rl.kind = 'return' and rl.return_of_id is not null)
+      and l.part_id not in (select rl.part_id from receipt_line rl join receipt rr on rr.id = rl.receipt_id and rr.state = 'filed'
+                        where rl.kind = 'return' and rl.part_id is not null))`,
 };
 
 const SYSTEM_FIGURES = `
