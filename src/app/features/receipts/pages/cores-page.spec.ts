@@ -1,6 +1,6 @@
 // Cores and returns: overdue deposits and closing return windows marked in words with an icon, one click moves a deposit
 // or a part on with its version, a stale version reloads with a message, a reviewer gets no buttons.
-import { screen } from '@testing-library/angular/zoneless';
+import { screen, within } from '@testing-library/angular/zoneless';
 import userEvent from '@testing-library/user-event';
 import type { CoreDto, RefundedItemDto, ReturnableItemDto, ReturnsDto } from '../../../../../shared/api/receipts';
 import type { BuildRole } from '../../../../../shared/enums';
@@ -105,7 +105,7 @@ describe('CoresPage', () => {
       awaitingRefund: [returnable('l-away', '2026-03-02', { partStatus: 'returned' })],
       refunded: [refunded()],
     });
-    expect(await screen.findByRole('heading', { name: 'Can still go back (3)' })).toBeTruthy();
+    expect(await screen.findByRole('heading', { name: 'Can still go back (2)' })).toBeTruthy();
     expect(screen.getByRole('heading', { name: 'Returns' })).toBeTruthy();
     expect(screen.getByRole('heading', { name: 'Sent back, refund not filed yet (1)' })).toBeTruthy();
 
@@ -115,7 +115,12 @@ describe('CoresPage', () => {
     expect(soon[1].textContent).toContain('Brake hose · BH-1');
     expect(soon[1].textContent).toMatch(/Returnable until .* · 20 days left/);
     expect(soon[1].textContent).not.toContain('Closing soon');
-    expect(soon[2].textContent).toMatch(/Radiator cap.*Could go back until .* · Window closed 2 days ago/);
+    expect(soon).toHaveLength(2);
+    // A closed window leaves "can still go back" for its own folded group.
+    const closedFold = screen.getByText('Window closed (1)').closest('details')!;
+    expect(closedFold.open).toBe(false);
+    const closed = within(closedFold).getByRole('list', { name: 'Window closed', hidden: true }).children;
+    expect(closed[0].textContent).toMatch(/Radiator cap.*Could go back until .* · Window closed 2 days ago/);
 
     const awaiting = screen.getByRole('list', { name: 'Sent back, refund not filed yet' }).children;
     expect(awaiting).toHaveLength(1);
@@ -144,7 +149,7 @@ describe('CoresPage', () => {
   it('sends a part back in one click with its version, then lists it as awaiting its refund', async () => {
     const item = returnable('l-1', fromToday(10));
     const http = await renderAs('crew', [], { ...NO_RETURNS, returnable: [item] });
-    await userEvent.setup().click(await screen.findByRole('button', { name: /Sent back/ }));
+    await userEvent.setup().click(await screen.findByRole('button', { name: /Mark as sent back/ }));
     const request = http.expectOne('/api/builds/b-1/parts/p-l-1');
     expect(request.request.method).toBe('PATCH');
     expect(request.request.body).toEqual({ status: 'returned', version: 4 });
@@ -152,7 +157,7 @@ describe('CoresPage', () => {
     http.expectOne('/api/builds/b-1/returns').flush({ ...NO_RETURNS, awaitingRefund: [{ ...item, partStatus: 'returned', partVersion: 5 }] });
     expect(await screen.findByRole('heading', { name: 'Sent back, refund not filed yet (1)' })).toBeTruthy();
     expect(screen.getByRole('heading', { name: 'Can still go back (0)' })).toBeTruthy();
-    expect(screen.queryByRole('button', { name: /Sent back/ })).toBeNull();
+    expect(screen.queryByRole('button', { name: /Mark as sent back/ })).toBeNull();
     expect(screen.getByRole('button', { name: /Keep it after all/ })).toBeTruthy();
   });
 
@@ -170,7 +175,7 @@ describe('CoresPage', () => {
   it('reloads and says someone changed the part when the version is stale (409)', async () => {
     const item = returnable('l-3', fromToday(10));
     const http = await renderAs('crew', [], { ...NO_RETURNS, returnable: [item] });
-    await userEvent.setup().click(await screen.findByRole('button', { name: /Sent back/ }));
+    await userEvent.setup().click(await screen.findByRole('button', { name: /Mark as sent back/ }));
     http
       .expectOne('/api/builds/b-1/parts/p-l-3')
       .flush({ error: { code: 'stale_version', message: 'This part was changed by someone else.' } }, { status: 409, statusText: 'Conflict' });

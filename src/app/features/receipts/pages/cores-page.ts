@@ -5,6 +5,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
+import { NgTemplateOutlet } from '@angular/common';
 import type { AwaitingRefundItemDto, CoreDto, ReturnableItemDto, ReturnsDto } from '../../../../../shared/api/receipts';
 import { CORE_STATE_LABELS, CoreState, PART_STATUS_LABELS, type PartStatus } from '../../../../../shared/enums';
 import { toApiError } from '../../../core/http/api-error';
@@ -23,10 +24,10 @@ const NEXT_STATES: Record<CoreState, { state: CoreState; label: string; icon: st
   ],
   dropped_off: [
     { state: 'refunded', label: 'Deposit came back', icon: 'payments' },
-    { state: 'owed', label: 'Not handed in after all', icon: 'undo' },
+    { state: 'owed', label: 'Undo handing in', icon: 'undo' },
   ],
-  refunded: [{ state: 'dropped_off', label: 'Refund not received', icon: 'undo' }],
-  forfeited: [{ state: 'owed', label: 'Still can hand it in', icon: 'undo' }],
+  refunded: [{ state: 'dropped_off', label: 'Undo refund', icon: 'undo' }],
+  forfeited: [{ state: 'owed', label: 'Undo deposit lost', icon: 'undo' }],
 };
 
 /** A return window this close to its end (in days) is marked as closing soon, as the alert mails do. */
@@ -53,257 +54,10 @@ export function todayIso(now = new Date()): string {
 
 @Component({
   selector: 'th-cores-page',
-  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, RouterLink, EmptyState, MoneyPipe],
+  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, NgTemplateOutlet, RouterLink, EmptyState, MoneyPipe],
   changeDetection: ChangeDetectionStrategy.OnPush,
-  template: `
-    @if (loading() || busy()) {
-      <mat-progress-bar mode="indeterminate" [attr.aria-label]="loading() ? 'Loading the core deposits and returns' : 'Saving'" />
-    }
-    <div class="page">
-      <h1 class="page-heading">Cores and returns</h1>
-      <p class="intro">
-        A core deposit is paid when you buy a rebuilt part; you get it back when you hand in the old part before its due date.
-        A part you send back stays listed until the return slip with its refund is filed.
-      </p>
-      @if (problem()) {
-        <p class="notice notice-error" role="alert">{{ problem() }}</p>
-      }
-      @if (loaded() && cores().length === 0) {
-        <th-empty-state icon="autorenew" heading="No core deposits yet">
-          <p>
-            When a receipt has a core deposit line and you file it, the deposit shows here with its due date. Start on
-            <a routerLink="../receipts">Receipts</a>.
-          </p>
-        </th-empty-state>
-      } @else if (loaded()) {
-        <ul class="cores" aria-label="Core deposits">
-          @for (core of cores(); track core.id) {
-            <li class="core">
-              <div class="core-main">
-                <span class="core-description">{{ titleOf(core) }}</span>
-                <span class="core-shop">
-                  <a [routerLink]="['../receipts', core.receiptId]">{{ core.vendorName || 'Receipt' }}</a>
-                  {{ core.purchaseDate ? ' · bought ' + dateText(core.purchaseDate) : '' }}
-                </span>
-                <span class="core-due" [class.overdue]="isOverdue(core)">
-                  @if (isOverdue(core)) {
-                    <mat-icon aria-hidden="true">schedule</mat-icon> Overdue: was due {{ dateText(core.dueDate) }}
-                  } @else {
-                    Due back by {{ dateText(core.dueDate) }}
-                  }
-                </span>
-              </div>
-              <div class="core-side">
-                <span class="tabular core-amount">{{ core.amount | money: currency() : locale() }}</span>
-                <span class="core-state">{{ stateLabels[core.state] }}</span>
-              </div>
-              @if (canEdit()) {
-                <div class="core-actions">
-                  @for (next of nextStates[core.state]; track next.state) {
-                    <button mat-stroked-button type="button" [disabled]="busy()" (click)="move(core, next.state)">
-                      <mat-icon aria-hidden="true">{{ next.icon }}</mat-icon>
-                      {{ next.label }}
-                    </button>
-                  }
-                </div>
-              }
-            </li>
-          }
-        </ul>
-      }
-
-      <section class="returns" aria-labelledby="returns-heading">
-        <h2 id="returns-heading" class="section-heading">Returns</h2>
-        @if (returns(); as returns) {
-          <h3 class="group-heading">Can still go back ({{ returns.returnable.length }})</h3>
-          @if (returns.returnable.length === 0) {
-            <p class="quiet">Nothing bought is within its return window now.</p>
-          } @else {
-            <ul class="cores" aria-label="Can still go back">
-              @for (item of returns.returnable; track item.lineId) {
-                <li class="core">
-                  <div class="core-main">
-                    <span class="core-description">{{ titleOf(item) }}</span>
-                    <span class="core-shop">
-                      <a [routerLink]="['../receipts', item.receiptId]">{{ item.vendorName || 'Receipt' }}</a>
-                      · bought {{ dateText(item.purchaseDate) }}
-                    </span>
-                    <span class="core-due" [class.overdue]="daysLeft(item) < 0" [class.closing]="isClosingSoon(item)">
-                      @if (daysLeft(item) < 0) {
-                        <mat-icon aria-hidden="true">event_busy</mat-icon>
-                        Could go back until {{ dateText(item.returnableUntil) }} · {{ windowWords(item) }}
-                      } @else if (isClosingSoon(item)) {
-                        <mat-icon aria-hidden="true">hourglass_bottom</mat-icon>
-                        Closing soon: returnable until {{ dateText(item.returnableUntil) }} · {{ windowWords(item) }}
-                      } @else {
-                        Returnable until {{ dateText(item.returnableUntil) }} · {{ windowWords(item) }}
-                      }
-                    </span>
-                  </div>
-                  <div class="core-side">
-                    <span class="tabular core-amount">{{ item.amountPaid | money: currency() : locale() }}</span>
-                    <span class="core-state">{{ partStatusLabel(item.partStatus) }}</span>
-                  </div>
-                  @if (canEdit()) {
-                    <div class="core-actions">
-                      <button mat-stroked-button type="button" [disabled]="busy()" (click)="setPartStatus(item, 'returned')">
-                        <mat-icon aria-hidden="true">assignment_return</mat-icon>
-                        Sent back
-                      </button>
-                    </div>
-                  }
-                </li>
-              }
-            </ul>
-          }
-
-          <h3 class="group-heading">Sent back, refund not filed yet ({{ returns.awaitingRefund.length }})</h3>
-          @if (returns.awaitingRefund.length === 0) {
-            <p class="quiet">Nothing sent back is waiting for its refund.</p>
-          } @else {
-            <ul class="cores" aria-label="Sent back, refund not filed yet">
-              @for (item of returns.awaitingRefund; track item.lineId) {
-                <li class="core">
-                  <div class="core-main">
-                    <span class="core-description">{{ titleOf(item) }}</span>
-                    <span class="core-shop">
-                      <a [routerLink]="['../receipts', item.receiptId]">{{ item.vendorName || 'Receipt' }}</a>
-                      · bought {{ dateText(item.purchaseDate) }}
-                    </span>
-                    <span class="core-shop">The refund is recorded when its return slip is filed.</span>
-                  </div>
-                  <div class="core-side">
-                    <span class="tabular core-amount">{{ item.amountPaid | money: currency() : locale() }}</span>
-                    <span class="core-state">Owed back</span>
-                  </div>
-                  @if (canEdit()) {
-                    <div class="core-actions">
-                      <a mat-flat-button routerLink="../receipts">
-                        <mat-icon aria-hidden="true">upload_file</mat-icon>
-                        Upload the return slip
-                      </a>
-                      <button mat-stroked-button type="button" [disabled]="busy()" (click)="setPartStatus(item, 'on_hand')">
-                        <mat-icon aria-hidden="true">undo</mat-icon>
-                        Keep it after all
-                      </button>
-                    </div>
-                  }
-                </li>
-              }
-            </ul>
-          }
-
-          <details class="refunded">
-            <summary class="group-heading">Refunded ({{ returns.refunded.length }})</summary>
-            @if (returns.refunded.length === 0) {
-              <p class="quiet">No refunds filed yet.</p>
-            } @else {
-              <ul class="cores" aria-label="Refunded">
-                @for (item of returns.refunded; track item.lineId) {
-                  <li class="core">
-                    <div class="core-main">
-                      <span class="core-description">{{ titleOf(item) }}</span>
-                      <span class="core-shop">
-                        <a [routerLink]="['../receipts', item.receiptId]">{{ item.vendorName || 'Receipt' }}</a>
-                        · bought {{ dateText(item.purchaseDate) }} for {{ item.amountPaid | money: currency() : locale() }}
-                      </span>
-                      <span class="core-shop">
-                        <a [routerLink]="['../receipts', item.refundReceiptId]">Return slip</a>
-                        {{ item.refundDate ? 'of ' + dateText(item.refundDate) : '' }}
-                      </span>
-                    </div>
-                    <div class="core-side">
-                      <span class="tabular core-amount">{{ item.refundedAmount | money: currency() : locale() }}</span>
-                      <span class="core-state">Refunded</span>
-                    </div>
-                  </li>
-                }
-              </ul>
-            }
-          </details>
-        }
-      </section>
-    </div>
-  `,
-  styles: `
-    .intro {
-      color: var(--mat-sys-on-surface-variant);
-      max-width: 70ch;
-    }
-    .cores {
-      list-style: none;
-      padding: 0;
-      margin: 0;
-      display: grid;
-      gap: 8px;
-    }
-    .core {
-      display: flex;
-      flex-wrap: wrap;
-      gap: 8px 16px;
-      padding: 12px;
-      border-radius: 12px;
-      border: 1px solid var(--mat-sys-outline-variant);
-    }
-    .core-main {
-      flex: 1 1 260px;
-      display: flex;
-      flex-direction: column;
-      gap: 2px;
-    }
-    .core-description {
-      font: var(--mat-sys-title-medium);
-    }
-    .core-shop,
-    .core-due {
-      color: var(--mat-sys-on-surface-variant);
-    }
-    .core-due {
-      display: inline-flex;
-      align-items: center;
-      gap: 4px;
-    }
-    .core-due.overdue {
-      color: var(--mat-sys-error);
-      font-weight: 600;
-    }
-    .core-side {
-      display: flex;
-      flex-direction: column;
-      align-items: flex-end;
-    }
-    .core-amount {
-      font: var(--mat-sys-title-medium);
-    }
-    .core-due.closing {
-      color: var(--mat-sys-on-surface);
-      font-weight: 600;
-    }
-    .returns {
-      margin-top: 32px;
-    }
-    .section-heading {
-      font: var(--mat-sys-headline-small);
-      margin: 0 0 8px;
-    }
-    .group-heading {
-      font: var(--mat-sys-title-medium);
-      margin: 20px 0 8px;
-    }
-    .refunded summary {
-      cursor: pointer;
-    }
-    .quiet {
-      color: var(--mat-sys-on-surface-variant);
-      margin: 0;
-    }
-    .core-actions {
-      flex: 1 1 100%;
-      display: flex;
-      flex-wrap: wrap;
-      gap: 8px;
-    }
-  `,
+  templateUrl: './cores-page.html',
+  styleUrl: './cores-page.css',
 })
 export class CoresPage {
   private readonly receiptsApi = inject(ReceiptsApi);
@@ -353,6 +107,10 @@ export class CoresPage {
     const days = this.daysLeft(item);
     return days >= 0 && days <= CLOSING_SOON_DAYS;
   }
+
+  /** Returnable lines split by the person's own calendar: the closed ones wait in a folded group below. */
+  protected readonly openReturns = computed(() => (this.returns()?.returnable ?? []).filter((item) => this.daysLeft(item) >= 0));
+  protected readonly closedReturns = computed(() => (this.returns()?.returnable ?? []).filter((item) => this.daysLeft(item) < 0));
 
   protected windowWords(item: ReturnableItemDto): string {
     return windowText(this.daysLeft(item));
