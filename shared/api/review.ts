@@ -29,4 +29,6 @@ export interface AuditEventDto {
   action: string;
   before: Record<string, unknown> | null;
   after: Record<string, unknown> | null;
+  /** Names of the parts and systems the snapshots refer to by id, as they are called now. */
+  names: Record<string, string>;
 }

@@ -58,6 +58,8 @@ it('lets the reviewer approve one receipt and question another; the uploader is 
     'receipt:review:Test review-reviewer',
   ]);
   expect(trail[0].after).toMatchObject({ total: '80' });
+  // The trail names what a line went to, as it is called now.
+  expect(trail[1].names).toEqual({ [engine]: 'Engine' });
   expect((await partner.client.get(`/api/builds/${build.id}/review-queue`)).body.receipts).toEqual([]);
 });
 

@@ -121,7 +121,7 @@ it('files a five-line counter slip on a phone by touch in a handful of taps, wit
   expect(await accessibilityViolations(page)).toEqual([]);
   await tap(acceptAll);
   const file = page.getByRole('button', { name: 'File receipt' });
-  await page.waitForFunction(() => !(document.querySelector('.file-bar .cta') as HTMLButtonElement | null)?.disabled);
+  await page.waitForFunction(`document.querySelector('.file-bar .cta')?.disabled === false`);
   // The file button stays in view above the bottom bar while the cards scroll.
   expect(await file.isVisible()).toBe(true);
   await tap(file);

@@ -13,6 +13,8 @@ import type { Mailer } from '../mail/mailer';
 import { commentMail } from '../mail/templates';
 import type { Receipt } from '../receipts/receipt.entity';
 import { Comment } from './comment.entity';
+import { Part } from '../parts/part.entity';
+import { VehicleSystem } from '../systems/vehicle-system.entity';
 
 function commentDto(comment: Comment): CommentDto {
   return { id: comment.id, author: comment.author.displayName, body: comment.body, createdAt: comment.createdAt.toISOString() };
@@ -68,15 +70,41 @@ export async function listComments(em: EntityManager, receipt: Receipt): Promise
   return comments.map(commentDto);
 }
 
+/** Ids of parts and systems in a snapshot, including the lines of a split or merge. */
+function referencedIds(snapshot: Record<string, unknown> | null, into: { parts: Set<string>; systems: Set<string> }): void {
+  if (!snapshot) return;
+  if (typeof snapshot['partId'] === 'string') into.parts.add(snapshot['partId']);
+  if (typeof snapshot['systemId'] === 'string') into.systems.add(snapshot['systemId']);
+  for (const nested of [snapshot['shares'], snapshot['lines']]) {
+    if (Array.isArray(nested)) for (const item of nested) if (item && typeof item === 'object') referencedIds(item as Record<string, unknown>, into);
+  }
+}
+
 export async function auditTrail(em: EntityManager, receipt: Receipt): Promise<AuditEventDto[]> {
   const events = await em.find(AuditEvent, { receiptId: receipt.id }, { populate: ['user'], orderBy: { createdAt: 'asc' } });
-  return events.map((event) => ({
-    id: event.id,
-    who: event.user.displayName,
-    at: event.createdAt.toISOString(),
-    entity: event.entity,
-    action: event.action,
-    before: event.before,
-    after: event.after,
-  }));
+  // The trail names the part and system a line went to, as they are called today (a deleted part says so).
+  const ids = { parts: new Set<string>(), systems: new Set<string>() };
+  for (const event of events) {
+    referencedIds(event.before, ids);
+    referencedIds(event.after, ids);
+  }
+  const names = new Map<string, string>();
+  for (const part of await em.find(Part, { id: [...ids.parts], build: receipt.build })) names.set(part.id, part.description);
+  for (const system of await em.find(VehicleSystem, { id: [...ids.systems], build: receipt.build })) names.set(system.id, system.name);
+  for (const id of ids.parts) if (!names.has(id)) names.set(id, 'a part since deleted');
+  return events.map((event) => {
+    const own = { parts: new Set<string>(), systems: new Set<string>() };
+    referencedIds(event.before, own);
+    referencedIds(event.after, own);
+    return {
+      id: event.id,
+      who: event.user.displayName,
+      at: event.createdAt.toISOString(),
+      entity: event.entity,
+      action: event.action,
+      before: event.before,
+      after: event.after,
+      names: Object.fromEntries([...own.parts, ...own.systems].filter((id) => names.has(id)).map((id) => [id, names.get(id)!])),
+    };
+  });
 }

@@ -20,19 +20,21 @@ const comments: CommentDto[] = [
 ];
 
 const events: AuditEventDto[] = [
-  { id: 'e-1', who: 'Dario Fenn', at: '2026-02-14T10:05:00.000Z', entity: 'receipt', action: 'edit', before: { total: null, tax: null }, after: { total: '42', tax: '2' } },
-  { id: 'e-0', who: 'Dario Fenn', at: '2026-02-14T10:05:30.000Z', entity: 'receipt_line', action: 'add', before: null, after: { kind: 'fee', description: 'Hazmat fee', amount: '4.5', partId: null, systemId: 's-tools' } },
+  { id: 'e-1', who: 'Dario Fenn', at: '2026-02-14T10:05:00.000Z', entity: 'receipt', action: 'edit', before: { total: null, tax: null }, after: { total: '42', tax: '2' }, names: {} },
+  { id: 'e-0', who: 'Dario Fenn', at: '2026-02-14T10:05:30.000Z', entity: 'receipt_line', action: 'add', before: null, after: { kind: 'fee', description: 'Hazmat fee', amount: '4.5', partId: null, systemId: 's-tools' }, names: {} },
   {
     id: 'e-2',
     who: 'Dario Fenn',
     at: '2026-02-14T10:06:00.000Z',
     entity: 'receipt_line',
     action: 'edit',
-    before: { kind: 'part', description: 'Gauge', amount: '30', systemId: 's-brakes' },
-    after: { kind: 'part', description: 'Gauge', amount: '35.5', systemId: 's-tools' },
+    before: { kind: 'part', description: 'Gauge', amount: '30', partId: null, systemId: 's-brakes' },
+    after: { kind: 'part', description: 'Gauge', amount: '35.5', partId: 'p-gauge', systemId: 's-tools' },
+    // The server names the part (and may name the system) as they are called now.
+    names: { 'p-gauge': 'Oil pressure gauge', 's-tools': 'Tools and consumables' },
   },
-  { id: 'e-4', who: 'Rosa Quill', at: '2026-02-14T10:07:00.000Z', entity: 'receipt_line', action: 'delete', before: { kind: 'part', description: 'Rags', amount: '3', systemId: null }, after: null },
-  { id: 'e-3', who: 'Ines Varga', at: '2026-02-15T12:00:00.000Z', entity: 'receipt', action: 'review', before: { reviewState: 'none' }, after: { reviewState: 'questioned' } },
+  { id: 'e-4', who: 'Rosa Quill', at: '2026-02-14T10:07:00.000Z', entity: 'receipt_line', action: 'delete', before: { kind: 'part', description: 'Rags', amount: '3', systemId: null }, after: null, names: {} },
+  { id: 'e-3', who: 'Ines Varga', at: '2026-02-15T12:00:00.000Z', entity: 'receipt', action: 'review', before: { reviewState: 'none' }, after: { reviewState: 'questioned' }, names: {} },
 ];
 
 async function renderPanel(shown = signal(receipt())) {
@@ -63,10 +65,11 @@ describe('ReviewPanel', () => {
     ]);
     const trail = within(screen.getByRole('list', { name: 'Changes to money' })).getAllByRole('listitem');
     expect(trail.map((item) => text(item.querySelector('.trail-head')!).replace(/ · .*$/, ''))).toEqual(['Changed the receipt', 'Added a line', 'Changed a line', 'Deleted a line', 'Reviewed the receipt']);
-    // Money is compared as amounts ("2" and "2.00" are one amount) and shown in the currency; unchanged fields are left out.
+    // Money is compared as amounts ("2" and "2.00" are one amount) and shown in the currency; unchanged fields are left
+    // out; figures come in the order a receipt prints them (tax before total), whatever order the snapshot kept.
     expect(changes(trail[0])).toEqual([
-      ['Total', '— → $42.00'],
       ['Tax', '— → $2.00'],
+      ['Total', '— → $42.00'],
     ]);
     // A new line shows its values without an arrow; a deleted one what it was.
     expect(changes(trail[1])).toEqual([
@@ -77,6 +80,7 @@ describe('ReviewPanel', () => {
     ]);
     expect(changes(trail[2])).toEqual([
       ['Amount', '$30.00 → $35.50'],
+      ['Part', '— → Oil pressure gauge'],
       ['System', 'Brakes → Tools and consumables'],
     ]);
     expect(changes(trail[3])).toEqual([

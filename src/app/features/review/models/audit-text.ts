@@ -39,6 +39,34 @@ const FIELD_LABELS: Record<string, string> = {
   lines: 'Lines',
 };
 
+/** Fields in the order a receipt is read: the line, where it went, then the figures from subtotal down to total. */
+const FIELD_ORDER = [
+  'kind',
+  'description',
+  'quantity',
+  'unitPrice',
+  'amount',
+  'partId',
+  'systemId',
+  'subtotal',
+  'tax',
+  'shipping',
+  'discount',
+  'total',
+  'differenceAccepted',
+  'differenceReason',
+  'reviewState',
+  'state',
+  'dueDate',
+  'shares',
+  'lines',
+];
+
+function fieldRank(field: string): number {
+  const rank = FIELD_ORDER.indexOf(field);
+  return rank === -1 ? FIELD_ORDER.length : rank;
+}
+
 const MONEY_FIELDS = new Set(['unitPrice', 'amount', 'subtotal', 'tax', 'shipping', 'discount', 'total']);
 
 export interface AuditChange {
@@ -60,14 +88,14 @@ export interface AuditEntry {
   changes: AuditChange[];
 }
 
-function textOf(field: string, value: unknown, systemName: (id: string) => string): string | null {
+function textOf(field: string, value: unknown, names: Record<string, string>, systemName: (id: string) => string): string | null {
   if (value === null || value === undefined || value === '') return null;
   if (Array.isArray(value)) return `${value.length} ${value.length === 1 ? 'line' : 'lines'}`;
   if (typeof value === 'boolean') return value ? 'Yes' : 'No';
   if (typeof value === 'object') return null;
   const text = String(value);
-  if (field === 'systemId') return systemName(text);
-  if (field === 'partId') return 'Assigned';
+  if (field === 'systemId') return names[text] ?? systemName(text);
+  if (field === 'partId') return names[text] ?? 'A part';
   if (field === 'kind') return RECEIPT_LINE_KIND_LABELS[text as keyof typeof RECEIPT_LINE_KIND_LABELS] ?? text;
   if (field === 'reviewState') return REVIEW_STATE_LABELS[text as keyof typeof REVIEW_STATE_LABELS] ?? text;
   if (field === 'state') return CORE_STATE_LABELS[text as keyof typeof CORE_STATE_LABELS] ?? text;
@@ -78,11 +106,12 @@ export function auditEntry(event: AuditEventDto, systemName: (id: string) => str
   const before = event.before ?? {};
   const after = event.after ?? {};
   const kind: AuditChange['kind'] = event.before === null ? 'set' : event.after === null ? 'removed' : 'change';
-  const fields = [...new Set([...Object.keys(before), ...Object.keys(after)])];
+  const fields = [...new Set([...Object.keys(before), ...Object.keys(after)])].sort((a, b) => fieldRank(a) - fieldRank(b));
+  const names = event.names ?? {};
   const changes: AuditChange[] = [];
   for (const field of fields) {
-    const was = textOf(field, before[field], systemName);
-    const now = textOf(field, after[field], systemName);
+    const was = textOf(field, before[field], names, systemName);
+    const now = textOf(field, after[field], names, systemName);
     // Money compares by value: "80" and "80.00" are the same amount.
     const same = MONEY_FIELDS.has(field) && was !== null && now !== null ? sameAmount(was, now) : was === now;
     if (same || (was === null && now === null)) continue;

@@ -9,6 +9,9 @@ import { testReceipt, testReceiptSummary, testSystem, testSystemsResponse } from
 import { renderInBuild } from '../../../../testing/render-in-build';
 import { ReviewPage } from './review-page';
 
+// The typing tests type a question key by key: on a busy 2-core machine they came near jest's 5 s default.
+jest.setTimeout(15_000);
+
 const summary = (id: string, vendorName: string, purchaseDate: string, total: string, extra: Partial<ReceiptSummaryDto> = {}): ReceiptSummaryDto =>
   testReceiptSummary(id, { vendorName, purchaseDate, receiptNumber: '', total, state: 'filed', lineCount: 1, version: 3, ...extra });
 
