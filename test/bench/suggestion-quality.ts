@@ -57,6 +57,47 @@ async function tally(em: EntityManager, build: Build, receipts: Receipt[], hideP
   return result;
 }
 
+/**
+ * A build of years, not months: every demo part and receipt copied this many times, each copy's text and number a
+ * little changed. Every copied line is then a close description of a demo line, the worst case for the history query.
+ */
+const SCALE_COPIES = 300;
+
+const INFLATE = [
+  `insert into part (id, build_id, system_id, description, part_number, quantity, unit, estimated_unit_cost)
+   select gen_random_uuid(), p.build_id, p.system_id, p.description || ' mk' || n, p.part_number || '-' || n, p.quantity, p.unit, p.estimated_unit_cost
+     from part p, generate_series(1, ?) n where p.build_id = ?`,
+  `insert into receipt (id, build_id, vendor_id, purchase_date, original_filename, document_key, content_type, sha256, size, state, uploaded_by_id)
+   select md5(r.id::text || n)::uuid, r.build_id, r.vendor_id, r.purchase_date - n, r.original_filename, r.document_key, r.content_type,
+          md5(r.sha256 || n), r.size, 'filed', r.uploaded_by_id
+     from receipt r, generate_series(1, ?) n where r.build_id = ?`,
+  `insert into receipt_line (id, build_id, receipt_id, position, kind, description, part_number, amount, part_id, system_id)
+   select gen_random_uuid(), l.build_id, md5(l.receipt_id::text || n)::uuid, l.position, l.kind, l.description || ' ' || n,
+          l.part_number || '/' || n, l.amount, l.part_id, l.system_id
+     from receipt_line l, generate_series(1, ?) n where l.build_id = ?`,
+];
+
+/** The time to suggest for each demo receipt again, once the build holds SCALE_COPIES times as much. */
+async function timeAtScale(em: EntityManager, build: Build, receipts: Receipt[]): Promise<Figures> {
+  for (const statement of INFLATE) await em.execute(statement, [SCALE_COPIES, build.id]);
+  await em.execute('analyze');
+  const [{ parts, lines }] = await em.execute<{ parts: string; lines: string }[]>(
+    'select (select count(*) from part where build_id = ?) as parts, (select count(*) from receipt_line where build_id = ?) as lines',
+    [build.id, build.id],
+  );
+  const timings: number[] = [];
+  for (const receipt of receipts) {
+    const lines = (await em.find(ReceiptLine, { receipt }, { orderBy: { position: 'asc' } })).filter(takesAssignment);
+    const started = performance.now();
+    await suggestForLines(em, build, receipt.vendor?.id ?? null, lines);
+    timings.push(performance.now() - started);
+  }
+  return {
+    'suggest at scale: parts, lines': `${parts}, ${lines}`,
+    'suggest at scale: one receipt, p50 / max ms': `${percentile(timings, 50).toFixed(1)} / ${Math.max(...timings).toFixed(1)}`,
+  };
+}
+
 export async function benchSuggestionQuality(): Promise<Figures> {
   return withSeededDemo(QUALITY_DB, async ({ orm, build }) => {
     const em = orm.em.fork();
@@ -74,6 +115,7 @@ export async function benchSuggestionQuality(): Promise<Figures> {
       figures[`suggest ${label}wrong or nothing first`] = result.misses.length ? result.misses.join('; ') : 'none';
     }
     figures['suggest: one receipt, p50 / max ms'] = `${percentile(timings, 50).toFixed(1)} / ${Math.max(...timings).toFixed(1)}`;
+    Object.assign(figures, await timeAtScale(em, build, receipts));
     return figures;
   });
 }

@@ -46,33 +46,48 @@ const BY_PART_NUMBER = `
 
 // The same shop's same part number, or a close description, assigned earlier on this build (any receipt, any state:
 // a correction counts from the moment it is made). A line on a part suggests the part, and so the part's system.
+// The two ways to be alike are two arms, so each finds its lines through its own index (an OR of both scanned every
+// line of the build). Of the earlier lines alike in the same ways and going to one place, the closest and then the
+// latest is kept: the score rises with the similarity alone once the part number and shop are the same.
 const FROM_HISTORY = `
-  select w.line_id, p.id as part_id, p.description as part_name, s.id as system_id, s.name as system_name,
-         similarity(w.description, h.description) as similarity,
-         (w.key <> '' and ${partNumberKeySql('h.part_number')} = w.key) as same_part_number,
-         (r.vendor_id is not null and r.vendor_id is not distinct from ?::uuid) as same_shop,
-         r.purchase_date::text as purchase_date, r.created_at, v.name as shop
-    from ${WANTED}
-    join receipt_line h on h.build_id = ? and h.id <> w.line_id and h.system_id is not null
-         and ((w.key <> '' and ${partNumberKeySql('h.part_number')} = w.key)
-              or (h.description % w.description and similarity(w.description, h.description) >= ${HISTORY_SIMILARITY}))
-    join receipt r on r.id = h.receipt_id
-    left join vendor v on v.id = r.vendor_id
-    left join part p on p.id = h.part_id
-    join vehicle_system s on s.id = coalesce(p.system_id, h.system_id) and s.archived_at is null
-   order by r.purchase_date desc nulls last, r.created_at desc`;
+  with w as (select * from ${WANTED}),
+  earlier as (
+    select w.line_id, h.id from w join receipt_line h on h.build_id = ? and w.key <> '' and ${partNumberKeySql('h.part_number')} = w.key
+    union
+    select w.line_id, h.id from w join receipt_line h on h.build_id = ? and h.description % w.description
+     where similarity(w.description, h.description) >= ${HISTORY_SIMILARITY}
+  )
+  select distinct on (line_id, part_id, system_id, same_part_number, same_shop) * from (
+    select w.line_id, p.id as part_id, p.description as part_name, s.id as system_id, s.name as system_name,
+           similarity(w.description, h.description) as similarity,
+           (w.key <> '' and ${partNumberKeySql('h.part_number')} = w.key) as same_part_number,
+           (r.vendor_id is not null and r.vendor_id is not distinct from ?::uuid) as same_shop,
+           r.purchase_date::text as purchase_date, r.created_at, v.name as shop
+      from earlier e
+      join w on w.line_id = e.line_id
+      join receipt_line h on h.id = e.id and h.id <> e.line_id and h.system_id is not null
+      join receipt r on r.id = h.receipt_id
+      left join vendor v on v.id = r.vendor_id
+      left join part p on p.id = h.part_id
+      join vehicle_system s on s.id = coalesce(p.system_id, h.system_id) and s.archived_at is null
+  ) alike
+   order by line_id, part_id, system_id, same_part_number, same_shop, similarity desc, purchase_date desc nulls last, created_at desc`;
 
 // A short slip line ("Front brake pads") is often a piece of a longer part name ("Brake pads, front, street compound"):
 // word_similarity finds it inside; the plain similarity keeps a one-word line from matching every part that has the word.
+// Only the few best of each line leave the database.
 const BY_DESCRIPTION = `
   select * from (
-    select w.line_id, p.id as part_id, p.description as part_name, s.id as system_id, s.name as system_name,
-           (similarity(w.description, p.description) + word_similarity(w.description, p.description)) / 2 as similarity
-      from ${WANTED}
-      join part p on p.build_id = ? and (p.description % w.description or w.description <% p.description)
-      join vehicle_system s on s.id = p.system_id and s.archived_at is null
-  ) found
-   where similarity >= 0.3`;
+    select *, row_number() over (partition by line_id order by similarity desc, part_name) as place from (
+      select w.line_id, p.id as part_id, p.description as part_name, s.id as system_id, s.name as system_name,
+             (similarity(w.description, p.description) + word_similarity(w.description, p.description)) / 2 as similarity
+        from ${WANTED}
+        join part p on p.build_id = ? and (p.description % w.description or w.description <% p.description)
+        join vehicle_system s on s.id = p.system_id and s.archived_at is null
+    ) found
+     where similarity >= 0.3
+  ) ranked
+   where place <= ${MAX_SUGGESTIONS_PER_LINE}`;
 
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
 
@@ -123,7 +138,7 @@ export async function suggestForLines(em: EntityManager, build: Build, shopId: s
   }
 
   type HistoryRow = TargetRow & { same_part_number: boolean; same_shop: boolean; purchase_date: string | null; created_at: Date; shop: string | null };
-  const fromHistory = await em.execute<HistoryRow[]>(FROM_HISTORY, [shopId, wanted, build.id]);
+  const fromHistory = await em.execute<HistoryRow[]>(FROM_HISTORY, [wanted, build.id, build.id, shopId]);
   for (const row of fromHistory) {
     const receipt = `the ${dayOf(row.purchase_date ?? row.created_at)} receipt${row.shop ? ` from ${row.shop}` : ''}`;
     candidates.get(row.line_id)!.offer({
