@@ -22,6 +22,7 @@ import { errorMiddleware, NotFound } from './http/errors';
 import type { JobQueue } from './jobs/queue';
 import type { Mailer } from './mail/mailer';
 import { receiptsRoutes } from './receipts/receipts.routes';
+import { suggestionsRoutes } from './suggestions/suggestions.routes';
 import { exportsRoutes } from './exports/exports.routes';
 import { ledgerRoutes } from './ledger/ledger.routes';
 import { reviewRoutes } from './review/review.routes';
@@ -104,6 +105,7 @@ export function createApp({ orm, config, mailer, store, queue }: AppDeps): Runni
   api.use('/builds/:buildId', systemsRoutes());
   api.use('/builds/:buildId', partsRoutes());
   api.use('/builds/:buildId', receiptsRoutes({ store, queue }));
+  api.use('/builds/:buildId', suggestionsRoutes());
   api.use('/builds/:buildId', exportsRoutes({ store }));
   api.use('/builds/:buildId', ledgerRoutes());
   api.use('/builds/:buildId', reviewRoutes({ mailer, config }));

@@ -140,6 +140,12 @@ const ROUTES: RouteCase[] = [
   { name: 'GET /api/builds/:buildId/receipts', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/receipts`), expected: readable },
   { name: 'POST /api/builds/:buildId/receipts', call: (f, a) => upload(f.clients[a], f.buildId), expected: editors(201) },
   { name: 'GET /api/builds/:buildId/receipts/:receiptId', call: async (f, a) => f.clients[a].get((await receiptFor(f)).base), expected: readable },
+  { name: 'GET /api/builds/:buildId/receipts/:receiptId/suggestions', call: async (f, a) => f.clients[a].get(`${(await receiptFor(f)).base}/suggestions`), expected: readable },
+  {
+    name: 'POST /api/builds/:buildId/receipts/:receiptId/suggestions/accept',
+    call: async (f, a) => f.clients[a].post(`${(await receiptFor(f)).base}/suggestions/accept`, {}),
+    expected: editors(200),
+  },
   { name: 'GET /api/builds/:buildId/receipts/:receiptId/document', call: async (f, a) => f.clients[a].get(`${(await receiptFor(f)).base}/document`), expected: readable },
   {
     name: 'PATCH /api/builds/:buildId/receipts/:receiptId',

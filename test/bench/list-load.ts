@@ -2,24 +2,14 @@
 // build's parts list and its receipts list, and the rates and latencies of the lists are set beside health's.
 // Runs the app in this process against its own throw-away database, seeded with the demo build.
 import { runSection } from './print-figures';
-import { MikroORM } from '@mikro-orm/postgresql';
 import http from 'node:http';
 import type { AddressInfo } from 'node:net';
-import os from 'node:os';
-import path from 'node:path';
-import { mkdtemp, rm } from 'node:fs/promises';
 import { createApp } from '../../backend/src/app';
-import { Build } from '../../backend/src/builds/build.entity';
-import { loadConfig } from '../../backend/src/config';
-import { ormConfig } from '../../backend/src/db/mikro-orm.config';
 import type { JobQueue } from '../../backend/src/jobs/queue';
 import { createMailer } from '../../backend/src/mail/mailer';
-import { DEMO_BUILD, DEMO_PASSWORD, DEMO_PEOPLE } from '../../backend/src/seed/demo-scenario';
-import { seedDemo } from '../../backend/src/seed/seed-demo';
-import { startFakeS3 } from '../../backend/src/storage/fake-s3-server';
-import { createObjectStore } from '../../backend/src/storage/object-store';
-import { recreateDatabase } from './bench-db';
+import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../backend/src/seed/demo-scenario';
 import { percentile } from './percentile';
+import { withSeededDemo } from './seeded-demo';
 
 const LOAD_DB = 'tallyhood_bench_load';
 const CLIENTS = 20;
@@ -85,74 +75,60 @@ async function load(clients: LoadClient[], url: string, seconds: number, maxRequ
 }
 
 export async function benchListLoad(): Promise<Record<string, string | number>> {
-  const base = loadConfig({ ...process.env, NODE_ENV: 'development' });
-  await recreateDatabase(base.db, LOAD_DB);
-  const db = { ...base.db, dbName: LOAD_DB };
-  const orm = await MikroORM.init(ormConfig(db));
-  const s3Folder = await mkdtemp(path.join(os.tmpdir(), 'tallyhood-load-s3-'));
-  const s3 = await startFakeS3({ directory: s3Folder });
-  const store = createObjectStore({ ...base.storage, endpoint: s3.endpoint });
-  const agent = new http.Agent({ keepAlive: true, maxSockets: CLIENTS });
-  let server: http.Server | undefined;
-  let running: ReturnType<typeof createApp> | undefined;
-  try {
-    await orm.getMigrator().up();
-    await store.ensureBucket();
-    const config = { ...base, db, clientDist: '/nonexistent' };
-    await seedDemo({ orm, store, config });
-    const build = await orm.em.fork().findOneOrFail(Build, { name: DEMO_BUILD.name });
-    // No job runs here: the seed reads its receipts itself, and the lists only read.
-    const queue = { readReceipt: async () => undefined, scheduleAlerts: async () => undefined, stop: async () => undefined } as unknown as JobQueue;
-    running = createApp({ orm, config, mailer: createMailer(config.smtp), store, queue });
-    server = await new Promise<http.Server>((resolve) => {
-      const listening = running!.app.listen(0, '127.0.0.1', () => resolve(listening));
-    });
-    const port = (server.address() as AddressInfo).port;
+  return withSeededDemo(LOAD_DB, async ({ orm, store, config, build }) => {
+    const agent = new http.Agent({ keepAlive: true, maxSockets: CLIENTS });
+    let server: http.Server | undefined;
+    let running: ReturnType<typeof createApp> | undefined;
+    try {
+      // No job runs here: the seed reads its receipts itself, and the lists only read.
+      const queue = { readReceipt: async () => undefined, scheduleAlerts: async () => undefined, stop: async () => undefined } as unknown as JobQueue;
+      running = createApp({ orm, config, mailer: createMailer(config.smtp), store, queue });
+      server = await new Promise<http.Server>((resolve) => {
+        const listening = running!.app.listen(0, '127.0.0.1', () => resolve(listening));
+      });
+      const port = (server.address() as AddressInfo).port;
 
-    const owner = DEMO_PEOPLE.find((person) => person.role === 'owner')!;
-    const clients = Array.from({ length: CLIENTS }, () => new LoadClient(port, agent));
-    for (const client of clients) {
-      await client.request('GET', '/api/auth/me');
-      const res = await client.request('POST', '/api/auth/sign-in', { email: owner.email, password: DEMO_PASSWORD });
-      if (res.status !== 200) throw new Error(`sign-in answered ${res.status}: ${res.text}`);
-    }
-    const routes: [string, string][] = [
-      ['health', '/api/health'],
-      ['parts list', `/api/builds/${build.id}/parts`],
-      ['receipts list', `/api/builds/${build.id}/receipts`],
-    ];
-    const figures: Record<string, string | number> = {};
-    const parts = JSON.parse((await clients[0].request('GET', routes[1][1])).text).parts.length;
-    const receipts = JSON.parse((await clients[0].request('GET', routes[2][1])).text).receipts.length;
-    figures['load: clients'] = CLIENTS;
-    figures['load: demo parts, receipts'] = `${parts}, ${receipts}`;
-    for (const [, url] of routes) await load(clients, url, SECONDS_PER_TURN, WARM_UP_REQUESTS);
-    const measured = routes.map(() => ({ latencies: [] as number[], seconds: 0 }));
-    for (let round = 0; round < ROUNDS; round += 1) {
-      for (const [index, [, url]] of routes.entries()) {
-        measured[index].seconds += await load(clients, url, SECONDS_PER_TURN, MAX_REQUESTS_PER_TURN, measured[index].latencies);
+      const owner = DEMO_PEOPLE.find((person) => person.role === 'owner')!;
+      const clients = Array.from({ length: CLIENTS }, () => new LoadClient(port, agent));
+      for (const client of clients) {
+        await client.request('GET', '/api/auth/me');
+        const res = await client.request('POST', '/api/auth/sign-in', { email: owner.email, password: DEMO_PASSWORD });
+        if (res.status !== 200) throw new Error(`sign-in answered ${res.status}: ${res.text}`);
       }
+      const routes: [string, string][] = [
+        ['health', '/api/health'],
+        ['parts list', `/api/builds/${build.id}/parts`],
+        ['receipts list', `/api/builds/${build.id}/receipts`],
+      ];
+      const figures: Record<string, string | number> = {};
+      const parts = JSON.parse((await clients[0].request('GET', routes[1][1])).text).parts.length;
+      const receipts = JSON.parse((await clients[0].request('GET', routes[2][1])).text).receipts.length;
+      figures['load: clients'] = CLIENTS;
+      figures['load: demo parts, receipts'] = `${parts}, ${receipts}`;
+      for (const [, url] of routes) await load(clients, url, SECONDS_PER_TURN, WARM_UP_REQUESTS);
+      const measured = routes.map(() => ({ latencies: [] as number[], seconds: 0 }));
+      for (let round = 0; round < ROUNDS; round += 1) {
+        for (const [index, [, url]] of routes.entries()) {
+          measured[index].seconds += await load(clients, url, SECONDS_PER_TURN, MAX_REQUESTS_PER_TURN, measured[index].latencies);
+        }
+      }
+      const healthRate = measured[0].latencies.length / measured[0].seconds;
+      for (const [index, [name]] of routes.entries()) {
+        const { latencies, seconds } = measured[index];
+        const rate = latencies.length / seconds;
+        figures[`load ${name}: requests`] = latencies.length;
+        figures[`load ${name}: req/s`] = rate.toFixed(0);
+        figures[`load ${name}: p50 ms`] = percentile(latencies, 50).toFixed(1);
+        figures[`load ${name}: p95 ms${index > 0 ? " (goal ≤ 150)" : ""}`] = percentile(latencies, 95).toFixed(1);
+        if (index > 0) figures[`load ${name}: rate / health (goal ≥ 0.70)`] = (rate / healthRate).toFixed(2);
+      }
+      return figures;
+    } finally {
+      agent.destroy();
+      if (server) await new Promise((resolve) => server!.close(resolve));
+      await running?.close();
     }
-    const healthRate = measured[0].latencies.length / measured[0].seconds;
-    for (const [index, [name]] of routes.entries()) {
-      const { latencies, seconds } = measured[index];
-      const rate = latencies.length / seconds;
-      figures[`load ${name}: requests`] = latencies.length;
-      figures[`load ${name}: req/s`] = rate.toFixed(0);
-      figures[`load ${name}: p50 ms`] = percentile(latencies, 50).toFixed(1);
-      figures[`load ${name}: p95 ms${index > 0 ? " (goal ≤ 150)" : ""}`] = percentile(latencies, 95).toFixed(1);
-      if (index > 0) figures[`load ${name}: rate / health (goal ≥ 0.70)`] = (rate / healthRate).toFixed(2);
-    }
-    return figures;
-  } finally {
-    agent.destroy();
-    if (server) await new Promise((resolve) => server!.close(resolve));
-    await running?.close();
-    store.close();
-    await s3.close();
-    await rm(s3Folder, { recursive: true, force: true });
-    await orm.close(true);
-  }
+  });
 }
 
 if (require.main === module) runSection(benchListLoad);

@@ -4,6 +4,7 @@ import { printFigures, type Figures } from './print-figures';
 import { benchListLoad } from './list-load';
 import { benchReadingAccuracy } from './reading-accuracy';
 import { benchRealReceipts } from './real-receipts';
+import { benchSuggestionQuality } from './suggestion-quality';
 
 async function main() {
   const sections: [string, () => Promise<Figures>][] = [
@@ -12,6 +13,7 @@ async function main() {
     ['Receipt reading (real receipts)', () => benchRealReceipts()],
     ['Ledger and exports (seeded builds)', benchLedger],
     ['List routes under load (demo build, 20 clients)', benchListLoad],
+    ['Line suggestions (demo build, leave one out)', benchSuggestionQuality],
   ];
   for (const [title, run] of sections) {
     console.log(`\n== ${title}`);

@@ -6,6 +6,7 @@ import type { Decimal } from '../../../shared/money';
 import { UNITS, type Unit } from '../../../shared/units';
 import { Build } from '../builds/build.entity';
 import { DecimalType } from '../db/decimal-type';
+import { partNumberKeySql } from '../suggestions/part-number-key';
 import { VehicleSystem } from '../systems/vehicle-system.entity';
 
 export class Part {
@@ -31,7 +32,13 @@ export class Part {
 
 export const PartSchema = new EntitySchema<Part>({
   class: Part,
-  indexes: [{ properties: ['build', 'system'] }, { properties: ['build', 'status'] }],
+  indexes: [
+    { properties: ['build', 'system'] },
+    { properties: ['build', 'status'] },
+    // For line suggestions (backend/src/suggestions): a name like a line's description, a part number in compared form.
+    { name: 'part_description_trgm', expression: 'create index "part_description_trgm" on "part" using gin ("description" gin_trgm_ops)' },
+    { name: 'part_part_number_key', expression: `create index "part_part_number_key" on "part" ("build_id", (${partNumberKeySql('"part_number"')}))` },
+  ],
   properties: {
     id: { type: 'uuid', primary: true },
     build: { kind: 'm:1', entity: () => Build, deleteRule: 'cascade' },

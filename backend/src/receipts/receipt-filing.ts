@@ -12,7 +12,7 @@ import type { Receipt } from './receipt.entity';
 import { assertEditable, moneySnapshot } from './receipts.service';
 
 /** Kinds that must land on a system; an unassigned fee or discount is spread over the other lines instead. */
-const NEEDS_SYSTEM = new Set(['part', 'return', 'core_charge', 'core_refund']);
+export const NEEDS_SYSTEM: ReadonlySet<string> = new Set(['part', 'return', 'core_charge', 'core_refund']);
 
 function addDays(isoDate: string, days: number): string {
   const date = new Date(`${isoDate}T00:00:00Z`);

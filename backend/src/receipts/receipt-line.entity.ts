@@ -6,6 +6,7 @@ import { Decimal } from '../../../shared/money';
 import { Build } from '../builds/build.entity';
 import { DecimalType } from '../db/decimal-type';
 import { Part } from '../parts/part.entity';
+import { partNumberKeySql } from '../suggestions/part-number-key';
 import { VehicleSystem } from '../systems/vehicle-system.entity';
 import { Receipt } from './receipt.entity';
 
@@ -49,7 +50,14 @@ export class ReceiptLine {
 
 export const ReceiptLineSchema = new EntitySchema<ReceiptLine>({
   class: ReceiptLine,
-  indexes: [{ properties: ['receipt', 'position'] }, { properties: ['build', 'system'] }, { properties: ['build', 'part'] }],
+  indexes: [
+    { properties: ['receipt', 'position'] },
+    { properties: ['build', 'system'] },
+    { properties: ['build', 'part'] },
+    // For line suggestions (backend/src/suggestions): earlier lines by description and by part number in compared form.
+    { name: 'receipt_line_description_trgm', expression: 'create index "receipt_line_description_trgm" on "receipt_line" using gin ("description" gin_trgm_ops)' },
+    { name: 'receipt_line_part_number_key', expression: `create index "receipt_line_part_number_key" on "receipt_line" ("build_id", (${partNumberKeySql('"part_number"')}))` },
+  ],
   properties: {
     id: { type: 'uuid', primary: true },
     build: { kind: 'm:1', entity: () => Build, deleteRule: 'cascade' },

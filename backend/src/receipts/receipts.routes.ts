@@ -25,6 +25,7 @@ import { listCores, updateCore } from './cores.service';
 import { listReturns } from './returns.service';
 import { searchLines } from './line-search';
 import { receiptDto, lineDto } from './receipt-dto';
+import { sendReceipt } from './send-receipt';
 import { fileReceipt, reopenReceipt } from './receipt-filing';
 import { addLine, deleteLine, mergeLines, splitLine, updateLine } from './receipt-lines.service';
 import { createReceipts, findReceipt, listReceipts, updateReceipt, type UploadedDocument } from './receipts.service';
@@ -42,12 +43,6 @@ function id(value: unknown, what: string): string {
 export function receiptsRoutes(deps: { store: ObjectStore; queue: JobQueue }): Router {
   const router = Router({ mergeParams: true });
   const receiptOf = async (res: Response, receiptId: unknown) => findReceipt(em(), membershipOf(res).build, id(receiptId, 'That receipt'));
-  const sendReceipt = async (res: Response, receiptId: string, status = 200) => {
-    const membership = membershipOf(res);
-    em().clear();
-    const receipt = await findReceipt(em(), membership.build, receiptId);
-    res.status(status).json(await receiptDto(em(), receipt, membership.role));
-  };
 
   router.get('/receipts', buildRole(...ANY_MEMBER), async (req, res) => {
     const state = req.query.state;
