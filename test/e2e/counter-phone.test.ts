@@ -95,7 +95,7 @@ it('files a five-line counter slip on a phone by touch in a handful of taps, wit
   const page = await newPage(browser, { phone: true, touch: true });
   await signIn(page, t.url, owner.email);
   await page.goto(`${t.url}/builds/${build.id}/receipts`);
-  await page.getByRole('heading', { name: 'Receipts' }).waitFor();
+  await page.getByRole('heading', { name: 'Receipts', exact: true, level: 1 }).waitFor();
 
   // Every tap and keystroke from here on is counted.
   let interactions = 0;
@@ -121,11 +121,12 @@ it('files a five-line counter slip on a phone by touch in a handful of taps, wit
   expect(await accessibilityViolations(page)).toEqual([]);
   await tap(acceptAll);
   const file = page.getByRole('button', { name: 'File receipt' });
-  await page.waitForFunction(`document.querySelector('.file-bar .cta')?.disabled === false`);
+  await page.locator('.file-bar .cta:not([disabled])').waitFor();
   // The file button stays in view above the bottom bar while the cards scroll.
   expect(await file.isVisible()).toBe(true);
   await tap(file);
-  await page.getByText(/^Filed\./).waitFor();
+  await page.locator('p.filed').waitFor();
+  await page.waitForLoadState('networkidle');
   await screenshot(page, 'counter-phone-filed');
 
   // Two for the camera, one to open the receipt, one to accept, one to file; nothing typed.
