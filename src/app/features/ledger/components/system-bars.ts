@@ -33,18 +33,20 @@ const LINKED: LedgerLineFigure[] = ['spent', 'netCost', 'coreDepositsOutstanding
     />
     <p class="hint">Select a net cost or forecast bar, or a figure in the table, to see the receipt lines behind it.</p>
     <div class="table-box" role="region" aria-label="Figures by system" tabindex="0">
-      <table class="systems">
+      <table class="systems stacks">
         <caption class="visually-hidden">Figures by system, in {{ ledger().currency }}</caption>
         <thead>
           <tr>
             <th scope="col">System</th>
             <th scope="col" class="number">Budget</th>
-            <th scope="col" class="number">Spent</th>
-            <th scope="col" class="number">Net cost</th>
+            @for (figure of linkedFirst; track figure) {
+              <th scope="col" class="number">{{ columns[figure] }}</th>
+            }
             <th scope="col" class="number">Forecast</th>
             <th scope="col" class="number">Variance</th>
-            <th scope="col" class="number">Cores out</th>
-            <th scope="col" class="number">Returns due</th>
+            @for (figure of linkedLast; track figure) {
+              <th scope="col" class="number">{{ columns[figure] }}</th>
+            }
           </tr>
         </thead>
         <tbody>
@@ -58,9 +60,9 @@ const LINKED: LedgerLineFigure[] = ['spent', 'netCost', 'coreDepositsOutstanding
                   <span class="visually-hidden"> (safety caution applies)</span>
                 }
               </th>
-              <td class="number tabular">{{ system.budget | money: ledger().currency : locale() }}</td>
+              <td class="number tabular" data-label="Budget">{{ system.budget | money: ledger().currency : locale() }}</td>
               @for (figure of linkedFirst; track figure) {
-                <td class="number tabular">
+                <td class="number tabular" [attr.data-label]="columns[figure]">
                   @if (isZero(system[figure])) {
                     {{ system[figure] | money: ledger().currency : locale() }}
                   } @else {
@@ -70,15 +72,15 @@ const LINKED: LedgerLineFigure[] = ['spent', 'netCost', 'coreDepositsOutstanding
                   }
                 </td>
               }
-              <td class="number tabular">{{ system.forecast | money: ledger().currency : locale() }}</td>
-              <td class="number tabular" [class.over]="!variance.under" [class.under]="variance.under">
+              <td class="number tabular" data-label="Forecast">{{ system.forecast | money: ledger().currency : locale() }}</td>
+              <td class="number tabular" data-label="Variance" [class.over]="!variance.under" [class.under]="variance.under">
                 <span class="variance">
                   <mat-icon inline aria-hidden="true">{{ variance.under ? 'check_circle' : 'warning' }}</mat-icon>
                   {{ variance.amount | money: ledger().currency : locale() }} {{ variance.under ? 'under' : 'over' }}
                 </span>
               </td>
               @for (figure of linkedLast; track figure) {
-                <td class="number tabular">
+                <td class="number tabular" [attr.data-label]="columns[figure]">
                   @if (isZero(system[figure])) {
                     {{ system[figure] | money: ledger().currency : locale() }}
                   } @else {
@@ -144,6 +146,13 @@ export class SystemBars {
   readonly open = output<LinesRequest>();
 
   protected readonly labels = FIGURE_LABELS;
+  /** Column heads, short enough for the table; on phones each figure's label in its stacked row. */
+  protected readonly columns: Record<LedgerLineFigure, string> = {
+    spent: 'Spent',
+    netCost: 'Net cost',
+    coreDepositsOutstanding: 'Cores out',
+    returnsAwaitingRefund: 'Returns due',
+  };
   protected readonly linkedFirst: LedgerLineFigure[] = LINKED.slice(0, 2);
   protected readonly linkedLast: LedgerLineFigure[] = LINKED.slice(2);
 
