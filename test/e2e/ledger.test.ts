@@ -66,7 +66,7 @@ it('shows the ledger of two filed receipts and the lines behind a figure', async
   await expect(forecast.innerText()).resolves.toBe('$540.78');
   // Cooling: 60.00 - 70.93 = 10.93 over its budget, said in words.
   await page.getByRole('row', { name: /^Cooling/ }).getByRole('cell', { name: '$10.93 over' }).waitFor();
-  await page.getByRole('note').filter({ hasText: "manufacturer's instructions" }).waitFor();
+  await page.getByRole('complementary', { name: 'Safety caution' }).filter({ hasText: "manufacturer's instructions" }).waitFor();
   await screenshot(page, 'ledger-desktop');
   expect(await accessibilityViolations(page)).toEqual([]);
 

@@ -88,7 +88,7 @@ it('reads an uploaded slip, checks and files it, and tracks its core deposit', a
   await assignSystem(page, 3, 'Brakes');
   await assignSystem(page, 4, 'Suspension');
   // Brakes carry the safety caution.
-  await page.getByRole('note').filter({ hasText: "manufacturer's instructions" }).waitFor();
+  await page.getByRole('complementary', { name: 'Safety caution' }).filter({ hasText: "manufacturer's instructions" }).waitFor();
   await screenshot(page, 'receipt-check-ready');
   expect(await accessibilityViolations(page)).toEqual([]);
 

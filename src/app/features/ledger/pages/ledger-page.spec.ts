@@ -119,7 +119,7 @@ describe('LedgerPage', () => {
     expect(screen.getByText('Same as the forecast until 5 bought parts have both an estimate and a cost (2 parts have so far).')).toBeTruthy();
     expect(screen.getByText('Systems; contingency $150.00 kept aside')).toBeTruthy();
     // Brakes carry the safety caution, named.
-    expect(screen.getByRole('note').textContent).toContain("Brakes: Tallyhood records costs only. Fuel, brake, steering, wiring and lifting work can injure people: follow the manufacturer's instructions");
+    expect(screen.getByRole('complementary', { name: 'Safety caution' }).textContent).toContain("Brakes: Tallyhood records costs only. Fuel, brake, steering, wiring and lifting work can injure people: follow the manufacturer's instructions");
   });
 
   it('lists every system with its figures, over budget in words and not by colour alone', async () => {

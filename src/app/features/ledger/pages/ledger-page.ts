@@ -9,7 +9,6 @@ import { RouterLink } from '@angular/router';
 import { forkJoin } from 'rxjs';
 import type { LedgerDto, LedgerLineFigure, SpendPeriod, SpendResponse, VendorSpendDto, VendorsResponse } from '../../../../../shared/api/ledger';
 import { toDecimal } from '../../../../../shared/money';
-import { SAFETY_CAUTION } from '../../../../../shared/safety';
 import { EmptyState } from '../../../ui/empty-state';
 import { MoneyPipe, moneyText } from '../../../ui/money';
 import { CurrentBuild } from '../../builds/services/current-build';
@@ -20,6 +19,7 @@ import { SystemBars, hasFigures } from '../components/system-bars';
 import { TotalsStrip } from '../components/totals-strip';
 import { FIGURE_LABELS, type LinesRequest } from '../models/ledger-words';
 import { LedgerApi } from '../services/ledger-api';
+import { SafetyNote } from '../../../ui/safety-note/safety-note';
 
 const MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
 
@@ -34,7 +34,7 @@ function periodWords(period: string, short: boolean): string {
 
 @Component({
   selector: 'th-ledger-page',
-  imports: [MatButtonToggleModule, MatIconModule, MatProgressBarModule, RouterLink, BarChart, EmptyState, MoneyPipe, SystemBars, TotalsStrip],
+  imports: [SafetyNote, MatButtonToggleModule, MatIconModule, MatProgressBarModule, RouterLink, BarChart, EmptyState, MoneyPipe, SystemBars, TotalsStrip],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     @if (loading()) {
@@ -70,10 +70,7 @@ function periodWords(period: string, short: boolean): string {
           </section>
 
           @if (hasCaution()) {
-            <p class="notice caution" role="note">
-              <mat-icon aria-hidden="true">health_and_safety</mat-icon>
-              <span>{{ cautionSystems() }}: {{ safetyCaution }}</span>
-            </p>
+            <th-safety-note [buildId]="buildId()" [systems]="cautionSystems()" />
           }
 
           <section aria-labelledby="systems-heading">
@@ -197,17 +194,6 @@ function periodWords(period: string, short: boolean): string {
       justify-content: space-between;
       gap: 8px 16px;
     }
-    .caution mat-icon {
-      flex: none;
-    }
-    .caution {
-      display: flex;
-      gap: 8px;
-      align-items: flex-start;
-      margin-top: 16px;
-      background: var(--mat-sys-tertiary-container);
-      color: var(--mat-sys-on-tertiary-container);
-    }
     .cta-link {
       display: inline-flex;
       align-items: center;
@@ -249,7 +235,6 @@ export class LedgerPage {
   /** Route parameter (inherited from the build), bound by the router. */
   readonly buildId = input.required<string>();
 
-  protected readonly safetyCaution = SAFETY_CAUTION;
   protected readonly labels = FIGURE_LABELS;
   protected readonly periodFigures = ['spent', 'netCost'] as const;
 
@@ -269,8 +254,7 @@ export class LedgerPage {
   protected readonly cautionSystems = computed(() =>
     (this.ledger()?.systems ?? [])
       .filter((system) => system.safetyCaution && hasFigures(system))
-      .map((system) => system.name)
-      .join(', '),
+      .map((system) => system.name),
   );
   protected readonly format = computed(() => {
     const currency = this.ledger()?.currency ?? '';

@@ -14,7 +14,6 @@ import { MatTooltipModule } from '@angular/material/tooltip';
 import { filter, forkJoin, switchMap } from 'rxjs';
 import { SystemDto, SystemsResponse, createSystemRequest, updateSystemRequest } from '../../../../../shared/api/parts';
 import { Decimal, MONEY_MESSAGES, minorUnits, parseMoney, sum, toWire } from '../../../../../shared/money';
-import { SAFETY_CAUTION } from '../../../../../shared/safety';
 import { applyFieldErrors, errorOf, validateWith } from '../../../core/forms/form-errors';
 import { toApiError } from '../../../core/http/api-error';
 import { confirmAction } from '../../../ui/confirm-dialog';
@@ -23,6 +22,7 @@ import { MoneyPipe } from '../../../ui/money';
 import { CurrentBuild } from '../../builds/services/current-build';
 import { BudgetStanding, amountOf, budgetStanding } from '../models/budget-math';
 import { SystemsApi } from '../services/systems-api';
+import { SafetyNote } from '../../../ui/safety-note/safety-note';
 
 const CONTINGENCY = 'contingency';
 
@@ -47,7 +47,7 @@ interface SystemLine {
 
 @Component({
   selector: 'th-budgets-page',
-  imports: [
+  imports: [SafetyNote, 
     ReactiveFormsModule,
     MatButtonModule,
     MatExpansionModule,
@@ -101,10 +101,7 @@ interface SystemLine {
         </section>
 
         @if (hasCaution()) {
-          <p class="notice caution" role="note">
-            <mat-icon aria-hidden="true">health_and_safety</mat-icon>
-            <span>{{ safetyCaution }}</span>
-          </p>
+          <th-safety-note [buildId]="buildId()" [systems]="cautionSystems()" />
         }
 
         <h2 class="section-heading">Systems</h2>
@@ -321,13 +318,6 @@ interface SystemLine {
       color: var(--mat-sys-error);
       font-weight: 600;
     }
-    .caution {
-      display: flex;
-      gap: 8px;
-      align-items: flex-start;
-      background: var(--mat-sys-tertiary-container);
-      color: var(--mat-sys-on-tertiary-container);
-    }
     .section-heading {
       font: var(--mat-sys-title-large);
       margin: 24px 0 12px;
@@ -504,7 +494,6 @@ export class BudgetsPage {
   readonly buildId = input.required<string>();
 
   protected readonly errorOf = errorOf;
-  protected readonly safetyCaution = SAFETY_CAUTION;
   protected readonly contingencyKey = CONTINGENCY;
 
   protected readonly systems = signal<SystemDto[]>([]);
@@ -557,6 +546,7 @@ export class BudgetsPage {
   protected readonly totalEstimate = computed(() => sum(this.systems().map((system) => amountOf(system.estimate))));
   protected readonly totalStanding = computed(() => budgetStanding(this.totalEstimate(), this.totalBudget()));
   protected readonly hasCaution = computed(() => this.activeLines().some((line) => line.system.safetyCaution));
+  protected readonly cautionSystems = computed(() => this.activeLines().filter((line) => line.system.safetyCaution).map((line) => line.system.name));
 
   constructor() {
     this.budgetForm.valueChanges.pipe(takeUntilDestroyed(this.destroyRef)).subscribe(() => this.typed.set(this.budgetForm.getRawValue()));

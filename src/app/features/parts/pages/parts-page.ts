@@ -18,7 +18,6 @@ import { forkJoin } from 'rxjs';
 import type { ImportResultDto, PartDto, SystemDto } from '../../../../../shared/api/parts';
 import { PART_STATUSES, PART_STATUS_LABELS, PartStatus } from '../../../../../shared/enums';
 import { Decimal } from '../../../../../shared/money';
-import { SAFETY_CAUTION } from '../../../../../shared/safety';
 import { toApiError } from '../../../core/http/api-error';
 import { EmptyState } from '../../../ui/empty-state';
 import { MoneyPipe } from '../../../ui/money';
@@ -29,6 +28,7 @@ import { PartFormData, PartFormDialog, PartFormResult } from '../components/part
 import { BudgetStanding, amountOf, budgetStanding, sumOf } from '../models/budget-math';
 import { PartsApi } from '../services/parts-api';
 import { SystemsApi } from '../services/systems-api';
+import { SafetyNote } from '../../../ui/safety-note/safety-note';
 
 /** A system as the table groups by it, with its estimate summed from the parts on screen. */
 interface SystemGroup {
@@ -55,7 +55,7 @@ const SORTERS: Record<string, (a: PartDto, b: PartDto) => number> = {
 
 @Component({
   selector: 'th-parts-page',
-  imports: [
+  imports: [SafetyNote, 
     MatButtonModule,
     MatCheckboxModule,
     MatFormFieldModule,
@@ -131,10 +131,7 @@ const SORTERS: Record<string, (a: PartDto, b: PartDto) => number> = {
         </div>
 
         @if (showCaution()) {
-          <p class="notice caution" role="note">
-            <mat-icon aria-hidden="true">health_and_safety</mat-icon>
-            <span>{{ safetyCaution }}</span>
-          </p>
+          <th-safety-note [buildId]="buildId()" [systems]="cautionSystems()" />
         }
 
         @if (canEdit() && selectedCount() > 0) {
@@ -325,13 +322,6 @@ const SORTERS: Record<string, (a: PartDto, b: PartDto) => number> = {
     .filter-system {
       flex: 0 1 260px;
     }
-    .caution {
-      display: flex;
-      gap: 8px;
-      align-items: flex-start;
-      background: var(--mat-sys-tertiary-container);
-      color: var(--mat-sys-on-tertiary-container);
-    }
     .bulk-bar {
       display: flex;
       flex-wrap: wrap;
@@ -468,7 +458,6 @@ export class PartsPage {
 
   protected readonly statuses = PART_STATUSES;
   protected readonly statusLabels = PART_STATUS_LABELS;
-  protected readonly safetyCaution = SAFETY_CAUTION;
 
   protected readonly parts = signal<PartDto[]>([]);
   protected readonly systems = signal<SystemDto[]>([]);
@@ -565,6 +554,12 @@ export class PartsPage {
     return rows;
   });
 
+  /** The risky systems the page lists, named in the caution. */
+  protected readonly cautionSystems = computed(() => {
+    const systemId = this.systemFilter();
+    if (systemId) return this.systems().filter((system) => system.id === systemId && system.safetyCaution).map((system) => system.name);
+    return this.rows().flatMap((row) => (row.kind === 'group' && row.group.system.safetyCaution ? [row.group.system.name] : []));
+  });
   protected readonly showCaution = computed(() => {
     const systemId = this.systemFilter();
     if (systemId) return this.systems().find((system) => system.id === systemId)?.safetyCaution ?? false;

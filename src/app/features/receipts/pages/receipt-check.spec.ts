@@ -117,7 +117,7 @@ describe('ReceiptCheck', () => {
   it('marks low-confidence fields, highlights the box of the line in focus and shows the safety caution for brakes', async () => {
     await renderAs('owner', receipt());
     expect(screen.getByText('Check this: read with low confidence')).toBeTruthy();
-    expect(screen.getByRole('note').textContent).toContain("manufacturer's instructions");
+    expect(screen.getByRole('complementary', { name: 'Safety caution' }).textContent).toContain("manufacturer's instructions");
     expect(document.querySelector('.box')).toBeNull();
     screen.getByRole('textbox', { name: 'Description, line 1' }).focus();
     await screen.findByRole('textbox', { name: 'Description, line 1' });

@@ -18,7 +18,6 @@ import type { FileReceiptRequest, ReceiptDto, ReceiptLineDto, UpdateLineRequest,
 import type { LineSuggestionDto } from '../../../../../shared/api/suggestions';
 import { RECEIPT_LINE_KINDS, RECEIPT_LINE_KIND_LABELS, RECEIPT_STATE_LABELS } from '../../../../../shared/enums';
 import { parseMoney } from '../../../../../shared/money';
-import { SAFETY_CAUTION } from '../../../../../shared/safety';
 import { ApiError, toApiError } from '../../../core/http/api-error';
 import { errorOf } from '../../../core/forms/form-errors';
 import { formatCalendarDate } from '../../../ui/dates';
@@ -36,6 +35,7 @@ import { LINE_FIELD_LABELS, LINE_TEXT_FIELDS, lineGroup, type LineAction, type L
 import { AssignPicker, type Assignment } from '../components/assign-picker/assign-picker';
 import { LineCard } from '../components/line-card/line-card';
 import { injectNarrowScreen } from '../../../ui/narrow-screen';
+import { SafetyNote } from '../../../ui/safety-note/safety-note';
 import { ReceiptsApi } from '../services/receipts-api';
 
 /** Below this reading confidence a field is marked "check this". */
@@ -86,6 +86,7 @@ function caretAtEdge(input: HTMLInputElement, edge: 'start' | 'end'): boolean {
     ReactiveFormsModule,
     AssignPicker,
     LineCard,
+    SafetyNote,
     MatButtonModule,
     MatCheckboxModule,
     MatFormFieldModule,
@@ -121,7 +122,6 @@ export class ReceiptCheck {
   protected readonly kinds = RECEIPT_LINE_KINDS;
   protected readonly kindLabels = RECEIPT_LINE_KIND_LABELS;
   protected readonly stateLabels = RECEIPT_STATE_LABELS;
-  protected readonly safetyCaution = SAFETY_CAUTION;
   protected readonly errorOf = errorOf;
 
   protected readonly receipt = signal<ReceiptDto | null>(null);
@@ -217,10 +217,12 @@ export class ReceiptCheck {
     return this.isOwner() && !!live?.ok && !live.result.reconciles && live.result.difference !== null && this.unassignedLines() === 0;
   });
 
-  protected readonly showCaution = computed(() => {
-    const flagged = new Set(this.systems().filter((system) => system.safetyCaution).map((system) => system.id));
-    return (this.receipt()?.lines ?? []).some((line) => line.systemId !== null && flagged.has(line.systemId));
+  /** The risky systems this receipt's lines went to, named in the caution. */
+  protected readonly cautionSystems = computed(() => {
+    const used = new Set((this.receipt()?.lines ?? []).map((line) => line.systemId));
+    return this.systems().filter((system) => system.safetyCaution && used.has(system.id)).map((system) => system.name);
   });
+  protected readonly showCaution = computed(() => this.cautionSystems().length > 0);
 
   constructor() {
     effect(() => {
