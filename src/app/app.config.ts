@@ -11,6 +11,7 @@ import { provideServiceWorker } from '@angular/service-worker';
 import { provideRouter, withComponentInputBinding, withInMemoryScrolling, withRouterConfig } from '@angular/router';
 import { routes } from './app.routes';
 import { Session } from './core/auth/session';
+import { CaptureQueue } from './features/receipts/services/capture-queue';
 import { provideApiHttp } from './core/http/provide-api-http';
 
 export const appConfig: ApplicationConfig = {
@@ -31,6 +32,8 @@ export const appConfig: ApplicationConfig = {
     // Start loading the signed-in person at once; guards and the top bar wait on the same request.
     provideAppInitializer(() => {
       void inject(Session).load();
+      // Captures left waiting by an earlier visit are sent as soon as the person is known, whatever page opens.
+      inject(CaptureQueue);
     }),
   ],
 };
