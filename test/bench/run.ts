@@ -1,4 +1,5 @@
 // `npm run bench`: speed, memory and accuracy figures, printed; targets live here, never in timed tests.
+import { benchCaptureTransfer } from './capture-transfer';
 import { benchLedger } from './ledger-bench';
 import { printFigures, type Figures } from './print-figures';
 import { benchListLoad } from './list-load';
@@ -12,6 +13,7 @@ async function main() {
     ['Receipt reading (real receipts)', () => benchRealReceipts()],
     ['Ledger and exports (seeded builds)', benchLedger],
     ['List routes under load (demo build, 20 clients)', benchListLoad],
+    ['Capture transfer (initial JavaScript, a downscaled phone photo)', benchCaptureTransfer],
   ];
   for (const [title, run] of sections) {
     console.log(`\n== ${title}`);
