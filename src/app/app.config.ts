@@ -2,6 +2,7 @@
 import {
   ApplicationConfig,
   inject,
+  Injector,
   isDevMode,
   provideAppInitializer,
   provideBrowserGlobalErrorListeners,
@@ -11,7 +12,6 @@ import { provideServiceWorker } from '@angular/service-worker';
 import { provideRouter, withComponentInputBinding, withInMemoryScrolling, withRouterConfig } from '@angular/router';
 import { routes } from './app.routes';
 import { Session } from './core/auth/session';
-import { CaptureQueue } from './features/receipts/services/capture-queue';
 import { provideApiHttp } from './core/http/provide-api-http';
 
 export const appConfig: ApplicationConfig = {
@@ -31,9 +31,12 @@ export const appConfig: ApplicationConfig = {
     provideServiceWorker('ngsw-worker.js', { enabled: !isDevMode(), registrationStrategy: 'registerWhenStable:30000' }),
     // Start loading the signed-in person at once; guards and the top bar wait on the same request.
     provideAppInitializer(() => {
-      void inject(Session).load();
-      // Captures left waiting by an earlier visit are sent as soon as the person is known, whatever page opens.
-      inject(CaptureQueue);
+      const injector = inject(Injector);
+      // Captures left waiting by an earlier visit are sent once someone is signed in, whatever page opens; the queue
+      // is loaded lazily so it adds nothing to the first screen's download.
+      void inject(Session)
+        .load()
+        .then((user) => user && import('./features/receipts/services/capture-queue').then(({ CaptureQueue }) => injector.get(CaptureQueue)));
     }),
   ],
 };
