@@ -10,7 +10,7 @@ module.exports = {
       displayName: 'client',
       preset: 'jest-preset-angular',
       testEnvironment: 'jest-preset-angular/environments/jest-jsdom-env',
-      setupFilesAfterEnv: ['<rootDir>/src/setup-jest.ts'],
+      setupFilesAfterEnv: ['<rootDir>/src/setup-jest.ts', '<rootDir>/test/support/browser-storage-for-jsdom.ts'],
       roots: ['<rootDir>/src'],
       testMatch: ['<rootDir>/src/**/*.spec.ts'],
       transform: {

@@ -416,7 +416,7 @@ function newestMtime(target) {
 /** Builds the client with `ng build` unless dist/ is newer than every source it comes from. */
 export async function ensureClientBuild() {
   const index = path.join(ROOT, 'dist/tallyhood/browser/index.html');
-  const sources = ['src', 'shared', 'public', 'angular.json', 'tsconfig.json', 'tsconfig.app.json'].map((name) => path.join(ROOT, name));
+  const sources = ['src', 'shared', 'public', 'angular.json', 'ngsw-config.json', 'tsconfig.json', 'tsconfig.app.json'].map((name) => path.join(ROOT, name));
   if (fs.existsSync(index) && fs.statSync(index).mtimeMs >= Math.max(...sources.map(newestMtime))) {
     return { built: false, ok: true };
   }

@@ -2,7 +2,6 @@
 import { Routes } from '@angular/router';
 import { authGuard } from './core/auth/auth-guard';
 import { authRoutes } from './features/auth/auth.routes';
-import { NotFound } from './not-found';
 
 export const routes: Routes = [
   { path: '', pathMatch: 'full', redirectTo: 'builds' },
@@ -17,5 +16,5 @@ export const routes: Routes = [
     title: 'Invite · Tallyhood',
     loadComponent: () => import('./features/crew/pages/invite-accept').then((m) => m.InviteAccept),
   },
-  { path: '**', title: 'Page not found · Tallyhood', component: NotFound },
+  { path: '**', title: 'Page not found · Tallyhood', loadComponent: () => import('./not-found').then((m) => m.NotFound) },
 ];

@@ -1,4 +1,5 @@
 // `npm run bench`: speed, memory and accuracy figures, printed; targets live here, never in timed tests.
+import { benchCaptureTransfer } from './capture-transfer';
 import { benchLedger } from './ledger-bench';
 import { printFigures, type Figures } from './print-figures';
 import { benchListLoad } from './list-load';
@@ -14,6 +15,7 @@ async function main() {
     ['Ledger and exports (seeded builds)', benchLedger],
     ['List routes under load (demo build, 20 clients)', benchListLoad],
     ['Line suggestions (demo build, leave one out)', benchSuggestionQuality],
+    ['Capture transfer (initial JavaScript, a downscaled phone photo)', benchCaptureTransfer],
   ];
   for (const [title, run] of sections) {
     console.log(`\n== ${title}`);

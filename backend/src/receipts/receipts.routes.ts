@@ -1,5 +1,6 @@
 // Receipts of a build: upload, list, view (with the document and page images), correct, assign lines, file.
 // Every member reads; owner and crew upload and edit (crew until filed); cores change state in one click; returns are listed.
+// An upload may carry an Idempotency-Key (upload-idempotency.ts): a repeated capture answers the receipts it made.
 import { Router, type Response } from 'express';
 import { pipeline } from 'node:stream/promises';
 import {
@@ -31,6 +32,8 @@ import { addLine, deleteLine, mergeLines, splitLine, updateLine } from './receip
 import { createReceipts, findReceipt, listReceipts, updateReceipt, type UploadedDocument } from './receipts.service';
 import { UnreadableDocumentError } from './reading/sniff';
 import { checkUpload } from './upload-check';
+import { claimUploadKey, idempotencyKeyOf, recordUploadReceipts, uploadContentSha256 } from './upload-idempotency';
+import type { Receipt } from './receipt.entity';
 
 const EDITORS = ['owner', 'crew'] as const;
 
@@ -70,6 +73,7 @@ export function receiptsRoutes(deps: { store: ObjectStore; queue: JobQueue }): R
       wrongField: `Send at most ${MAX_UPLOAD_FILES} files at once, in the field "files".`,
     }),
     async (req, res) => {
+      const idempotencyKey = idempotencyKeyOf(req);
       const files = (req.files as Express.Multer.File[] | undefined) ?? [];
       if (files.length === 0) throw new ValidationFailed({ files: 'Attach at least one photo or PDF of a receipt.' });
       const documents: UploadedDocument[] = [];
@@ -85,7 +89,18 @@ export function receiptsRoutes(deps: { store: ObjectStore; queue: JobQueue }): R
       // All or nothing, so a person never wonders which of their photos made it.
       if (Object.keys(fields).length) throw new ValidationFailed(fields, Object.values(fields).join(' '));
       const membership = membershipOf(res);
-      const receipts = await createReceipts(em(), deps, membership.build, req.user!, documents);
+      const claim = idempotencyKey
+        ? await claimUploadKey(em(), membership.build, req.user!, idempotencyKey, uploadContentSha256(files.map((file) => file.buffer)))
+        : undefined;
+      let receipts: Receipt[];
+      if (claim && !claim.claimed) {
+        // A repeat answers as the first request did (201, the same receipts as they are now) and stores nothing.
+        receipts = [];
+        for (const receiptId of claim.receiptIds) receipts.push(await findReceipt(em(), membership.build, receiptId));
+      } else {
+        receipts = await createReceipts(em(), deps, membership.build, req.user!, documents);
+        if (claim) await recordUploadReceipts(em(), claim.keyId, receipts.map((receipt) => receipt.id));
+      }
       const dtos = [];
       for (const receipt of receipts) dtos.push(await receiptDto(em(), receipt, membership.role));
       res.status(201).json({ receipts: dtos });

@@ -3,6 +3,7 @@ import { Injectable, computed, inject, signal } from '@angular/core';
 import { firstValueFrom } from 'rxjs';
 import type { UserDto } from '../../../../shared/api/auth';
 import { AuthApi } from '../../features/auth/services/auth-api';
+import { forgetCachedAnswers } from '../offline/cached-answers';
 
 @Injectable({ providedIn: 'root' })
 export class Session {
@@ -36,5 +37,6 @@ export class Session {
   clear(): void {
     this.currentUser.set(null);
     this.loading = Promise.resolve(null);
+    void forgetCachedAnswers();
   }
 }

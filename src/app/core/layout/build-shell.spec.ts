@@ -1,15 +1,18 @@
-// The build shell: the phone bar's camera button is there for those who add receipts, sends the photo at once
-// and opens Receipts, where its progress shows; a reviewer, who adds none, does not get it.
+// The build shell: the phone bar's camera button is there for those who add receipts, saves the photo on the device,
+// sends it at once and opens Receipts, where its progress shows; a chip counts captures still waiting; a reviewer, who adds none, does not get it.
 import { inputBinding } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { HttpTestingController } from '@angular/common/http/testing';
 import { Router } from '@angular/router';
-import { render, screen } from '@testing-library/angular/zoneless';
+import { render, screen, waitFor } from '@testing-library/angular/zoneless';
 import userEvent from '@testing-library/user-event';
 import type { BuildRole } from '../../../../shared/enums';
 import { apiTestProviders } from '../../../testing/api-test-providers';
 import { testBuild } from '../../../testing/build-fixtures';
+import { CAPTURE_DATABASE, CaptureQueue } from '../../features/receipts/services/capture-queue';
+import { clear, createStore } from 'idb-keyval';
 import { ReceiptUploads } from '../../features/receipts/services/receipt-uploads';
+import { Session } from '../auth/session';
 import { BuildShell } from './build-shell';
 
 async function renderAs(role: BuildRole) {
@@ -21,15 +24,32 @@ async function renderAs(role: BuildRole) {
 }
 
 describe('BuildShell', () => {
-  it('sends a photo from the bar at once and opens Receipts', async () => {
+  beforeEach(() => clear(createStore(CAPTURE_DATABASE.name, CAPTURE_DATABASE.store)));
+
+  it('saves a photo from the bar, sends it at once under its capture id and opens Receipts', async () => {
     const http = await renderAs('crew');
+    TestBed.inject(Session).setUser({ id: 'u-1', email: 'sam@example.test', displayName: 'Sam Ortolan' });
     const navigate = jest.spyOn(TestBed.inject(Router), 'navigate');
     await userEvent.setup().upload(screen.getByLabelText(/Add receipt/), new File(['png'], 'counter-slip.png', { type: 'image/png' }));
-    const upload = http.expectOne({ method: 'POST', url: '/api/builds/b-1/receipts' });
+    const upload = await waitFor(() => http.expectOne({ method: 'POST', url: '/api/builds/b-1/receipts' }));
     expect((upload.request.body as FormData).getAll('files').map((file) => (file as File).name)).toEqual(['counter-slip.png']);
+    const queued = TestBed.inject(CaptureQueue).waiting();
+    expect(upload.request.headers.get('Idempotency-Key')).toBe(`"${queued[0].id}"`);
     expect(navigate).toHaveBeenCalledWith(['/builds', 'b-1', 'receipts']);
     const rows = TestBed.inject(ReceiptUploads).rows();
     expect(rows.map((row) => [row.buildId, row.name, row.status])).toEqual([['b-1', 'counter-slip.png', 'sending']]);
+  });
+
+  it('shows how many captures wait to be sent', async () => {
+    await renderAs('crew');
+    Object.defineProperty(navigator, 'onLine', { configurable: true, get: () => false });
+    try {
+      TestBed.inject(Session).setUser({ id: 'u-1', email: 'sam@example.test', displayName: 'Sam Ortolan' });
+      await TestBed.inject(CaptureQueue).capture('b-1', [new File(['a'], 'a.jpg', { type: 'image/jpeg' }), new File(['b'], 'b.jpg', { type: 'image/jpeg' })]);
+      expect(await screen.findByRole('button', { name: 'Waiting to send (2)' })).toBeTruthy();
+    } finally {
+      delete (navigator as { onLine?: boolean }).onLine;
+    }
   });
 
   it('gives a reviewer no camera button', async () => {

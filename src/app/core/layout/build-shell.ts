@@ -5,7 +5,8 @@ import { MatMenuModule } from '@angular/material/menu';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { CurrentBuild } from '../../features/builds/services/current-build';
-import { ReceiptUploads } from '../../features/receipts/services/receipt-uploads';
+import { CaptureStatus } from '../../features/receipts/components/capture-status';
+import { CaptureQueue } from '../../features/receipts/services/capture-queue';
 
 export interface BuildSection {
   /** Relative to /builds/:buildId. */
@@ -38,7 +39,7 @@ export const BUILD_SECTIONS: readonly BuildSection[] = [
 
 @Component({
   selector: 'th-build-shell',
-  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatIconModule, MatMenuModule, MatProgressBarModule],
+  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatIconModule, MatMenuModule, MatProgressBarModule, CaptureStatus],
   providers: [CurrentBuild],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
@@ -91,10 +92,13 @@ export const BUILD_SECTIONS: readonly BuildSection[] = [
           <mat-progress-bar mode="indeterminate" aria-label="Loading the build" />
         }
         <div class="context">
-          <a routerLink="/builds">Your builds</a>
-          @if (current.build(); as build) {
-            <span aria-hidden="true"> / </span><span class="context-name">{{ build.name }}</span>
-          }
+          <span>
+            <a routerLink="/builds">Your builds</a>
+            @if (current.build(); as build) {
+              <span aria-hidden="true"> / </span><span class="context-name">{{ build.name }}</span>
+            }
+          </span>
+          <th-capture-status />
         </div>
         @if (current.problem()) {
           <div class="page">
@@ -174,10 +178,17 @@ export const BUILD_SECTIONS: readonly BuildSection[] = [
       padding: 12px 16px 0;
       font: var(--mat-sys-body-medium);
       color: var(--mat-sys-on-surface-variant);
+      /* The chip of captures waiting to be sent sits at the end of the line, or under it when the line is full. */
+      display: flex;
+      flex-wrap: wrap;
+      align-items: center;
+      justify-content: space-between;
+      gap: 8px;
     }
     .context-name {
       color: var(--mat-sys-on-surface);
     }
+
     /* Desktop and tablet: a side rail. */
     @media (min-width: 600px) {
       .sections {
@@ -262,7 +273,7 @@ export class BuildShell {
     return section.phoneBar !== false;
   }
 
-  private readonly uploads = inject(ReceiptUploads);
+  private readonly captures = inject(CaptureQueue);
   private readonly router = inject(Router);
 
   /** Route parameter, bound by the router. */
@@ -273,13 +284,16 @@ export class BuildShell {
     return role === 'owner' || role === 'crew';
   });
 
-  /** The photo goes up at once; Receipts shows its progress and then the receipt being read. */
+  /**
+   * The photo is saved on the device first, then sent (at once with signal, later without); Receipts shows its
+   * progress and then the receipt being read, the chip above what still waits.
+   */
   protected photographed(event: Event): void {
     const input = event.target as HTMLInputElement;
     const files = Array.from(input.files ?? []);
     input.value = '';
     if (files.length === 0) return;
-    this.uploads.send(this.buildId(), files);
+    void this.captures.capture(this.buildId(), files);
     void this.router.navigate(['/builds', this.buildId(), 'receipts']);
   }
 

@@ -12,6 +12,9 @@ export interface UploadRow {
   message: string;
 }
 
+/** How one capture's sending ended: arrived, still to send later, or refused for good (with the reason). */
+export type UploadOutcome = { kind: 'sent' } | { kind: 'waiting' } | { kind: 'refused'; message: string };
+
 @Injectable({ providedIn: 'root' })
 export class ReceiptUploads {
   private readonly receiptsApi = inject(ReceiptsApi);
@@ -26,28 +29,51 @@ export class ReceiptUploads {
 
   /** Sends each file on its own, so each has its own progress bar and a refused file leaves the others alone. */
   send(buildId: string, files: readonly File[]): void {
-    for (const file of files) this.sendOne(buildId, file);
+    for (const file of files) void this.sendOne(buildId, file);
   }
 
-  private sendOne(buildId: string, file: File): void {
+  /**
+   * Sends one queued capture under its Idempotency-Key. A failure that may pass (no signal, signed out, the server
+   * busy) drops its progress row, since the capture queue shows it as waiting; a refusal stays, with its reason.
+   */
+  sendCapture(buildId: string, file: File, idempotencyKey: string): Promise<UploadOutcome> {
+    return this.sendOne(buildId, file, idempotencyKey);
+  }
+
+  private sendOne(buildId: string, file: File, idempotencyKey?: string): Promise<UploadOutcome> {
     const key = ++this.nextKey;
     const patch = (change: Partial<UploadRow>) => this.rowsSignal.update((rows) => rows.map((row) => (row.key === key ? { ...row, ...change } : row)));
     this.rowsSignal.update((rows) => [...rows, { key, buildId, name: file.name, percent: 0, status: 'sending', message: '' }]);
-    // Not tied to a page's lifetime: leaving the page must not cancel a photo on its way up.
-    this.receiptsApi.upload(buildId, [file]).subscribe({
-      next: (progress) => {
-        if (progress.kind === 'progress') {
-          patch({ percent: progress.percent });
-        } else {
-          patch({ percent: 100, status: 'done' });
-          this.finishedSignal.update((count) => count + 1);
-        }
-      },
-      error: (error: unknown) => {
-        const apiError = toApiError(error);
-        // One file per request, so its problem is under files.0 (or files when the whole upload was refused).
-        patch({ status: 'refused', message: apiError.fields['files.0'] ?? apiError.fields['files'] ?? apiError.message });
-      },
+    return new Promise((resolve) => {
+      // Not tied to a page's lifetime: leaving the page must not cancel a photo on its way up.
+      this.receiptsApi.upload(buildId, [file], idempotencyKey).subscribe({
+        next: (progress) => {
+          if (progress.kind === 'progress') {
+            patch({ percent: progress.percent });
+          } else {
+            patch({ percent: 100, status: 'done' });
+            this.finishedSignal.update((count) => count + 1);
+            resolve({ kind: 'sent' });
+          }
+        },
+        error: (error: unknown) => {
+          const apiError = toApiError(error);
+          if (idempotencyKey !== undefined && mayPassLater(apiError.status)) {
+            this.rowsSignal.update((rows) => rows.filter((row) => row.key !== key));
+            resolve({ kind: 'waiting' });
+            return;
+          }
+          // One file per request, so its problem is under files.0 (or files when the whole upload was refused).
+          const message = apiError.fields['files.0'] ?? apiError.fields['files'] ?? apiError.message;
+          patch({ status: 'refused', message });
+          resolve({ kind: 'refused', message });
+        },
+      });
     });
   }
+}
+
+/** No answer, signed out, a conflict, too many requests or a server fault: the same capture may pass when sent again. */
+function mayPassLater(status: number): boolean {
+  return status === 0 || status === 401 || status === 408 || status === 409 || status === 425 || status === 429 || status >= 500;
 }

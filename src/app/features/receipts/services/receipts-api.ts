@@ -1,5 +1,5 @@
 // Calls for a build's receipts: upload with progress, list, check (header, lines, split, merge), file, reopen, line search, cores and returns.
-import { HttpClient, HttpContext, HttpEvent, HttpEventType, HttpParams } from '@angular/common/http';
+import { HttpClient, HttpContext, HttpEvent, HttpEventType, HttpHeaders, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, filter, map } from 'rxjs';
 import type {
@@ -24,6 +24,8 @@ const buildPath = (buildId: string) => `/api/builds/${encodeURIComponent(buildId
 const receiptPath = (buildId: string, receiptId: string) => `${buildPath(buildId)}/receipts/${encodeURIComponent(receiptId)}`;
 /** The page shows field and version problems itself (next to the file, the field, or as "reload"). */
 const handled = (statuses: number[]) => ({ context: new HttpContext().set(HANDLED_STATUSES, statuses) });
+/** A queued capture's failures show on its own chip (waiting, or not sent with the reason), never as a snack bar. */
+const CAPTURE_HANDLED_STATUSES = [0, 400, 403, 404, 408, 409, 413, 415, 422, 425, 429, 500, 502, 503, 504];
 
 export interface ReceiptsFilter {
   state?: ReceiptState;
@@ -40,12 +42,21 @@ export type UploadProgress = { kind: 'progress'; percent: number } | { kind: 'do
 export class ReceiptsApi {
   private readonly http = inject(HttpClient);
 
-  /** Sends files as the multipart field "files"; a refused file answers 400 with fields `files.N`, shown by the page. */
-  upload(buildId: string, files: readonly File[]): Observable<UploadProgress> {
+  /**
+   * Sends files as the multipart field "files"; a refused file answers 400 with fields `files.N`, shown by the page.
+   * A capture from the camera carries its client-made id as the Idempotency-Key (a structured-field string, as the
+   * IETF draft sends it), so sending it again answers the receipt already made; its queue shows every failure itself.
+   */
+  upload(buildId: string, files: readonly File[], idempotencyKey?: string): Observable<UploadProgress> {
     const form = new FormData();
     for (const file of files) form.append('files', file, file.name);
+    const capture = idempotencyKey === undefined ? {} : {
+      // ngsw-bypass: the upload goes straight to the network, not through the service worker, so its progress is real.
+      headers: new HttpHeaders({ 'Idempotency-Key': `"${idempotencyKey}"`, 'ngsw-bypass': 'true' }),
+      ...handled(CAPTURE_HANDLED_STATUSES),
+    };
     return this.http
-      .post<{ receipts: ReceiptDto[] }>(`${buildPath(buildId)}/receipts`, form, { reportProgress: true, observe: 'events', ...handled([400]) })
+      .post<{ receipts: ReceiptDto[] }>(`${buildPath(buildId)}/receipts`, form, { reportProgress: true, observe: 'events', ...handled([400]), ...capture })
       .pipe(
         map((event: HttpEvent<{ receipts: ReceiptDto[] }>): UploadProgress | null => {
           if (event.type === HttpEventType.UploadProgress) {
