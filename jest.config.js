@@ -28,6 +28,8 @@ module.exports = {
     {
       displayName: 'api',
       testEnvironment: 'node',
+      // Each file starts an app on the real database in beforeAll: on a loaded 2-core machine that passed 5 s.
+      testTimeout: 30_000,
       roots: ['<rootDir>/test/api'],
       testMatch: ['<rootDir>/test/api/**/*.test.ts'],
       transform: nodeTransform,

@@ -108,8 +108,23 @@ it('remembers a correction: the same shop’s same part number next time suggest
   expect((await owner.patch(url(first.id, `/lines/${line.id}`), { systemId: systems.Engine, version: line.version })).status).toBe(200);
   const next = await receiptWith('2026-04-02', [{ description: 'Thermo housing seal', partNumber: 'ts5', amount: '6.00' }]);
   const [top] = (await suggestionsOf(next.id, crew)).lines[0].suggestions;
-  // Same text, part number and shop: 0.70 + 0.20 × (0.35 + 0.40 + 0.20).
-  expect(top).toEqual({ partId: null, partName: null, systemId: systems.Engine, systemName: 'Engine', score: 0.89, source: 'history', reason: `went to Engine on the 12 Mar 2026 receipt from ${SHOP}` });
+  // Same text, part number and shop: a remembered choice, 0.99 + 0.01 × 1 (suggestion-scores.ts).
+  expect(top).toEqual({ partId: null, partName: null, systemId: systems.Engine, systemName: 'Engine', score: 1, source: 'history', reason: `went to Engine on the 12 Mar 2026 receipt from ${SHOP}` });
+});
+
+it('remembers a correction over the bill of materials: the part chosen instead of the one whose number matches comes first', async () => {
+  // RH-9 is the radiator hose kit's number; this shop's RH-9 is in fact a heater hose the person put on Interior.
+  const first = await receiptWith('2026-03-20', [{ description: 'Heater hose 5/8', partNumber: 'RH-9', amount: '14.00' }]);
+  const line = first.lines[0];
+  expect((await suggestionsOf(first.id)).lines[0].suggestions[0]).toMatchObject({ partId: parts['Radiator hose kit'], source: 'part-number' });
+  expect((await owner.patch(url(first.id, `/lines/${line.id}`), { partId: null, systemId: systems.Interior, version: line.version })).status).toBe(200);
+  const next = await receiptWith('2026-04-18', [{ description: 'Heater hose 5/8', partNumber: 'RH-9', amount: '14.00' }]);
+  const [top, second] = (await suggestionsOf(next.id)).lines[0].suggestions;
+  expect([top.systemName, top.source, top.score]).toEqual(['Interior', 'history', 1]);
+  expect([second.partId, second.source]).toEqual([parts['Radiator hose kit'], 'part-number']);
+  // "Accept all" takes the remembered choice.
+  const accepted = await owner.post(url(next.id, '/suggestions/accept'), {});
+  expect(accepted.body.lines.map((saved: Line) => [saved.partId, saved.systemId])).toEqual([[null, systems.Interior]]);
 });
 
 describe('accept all', () => {
