@@ -24,9 +24,13 @@ export async function launchBrowser(): Promise<Browser> {
   });
 }
 
-/** A desktop page, or a phone's (390 × 844 unless `width` says otherwise; `touch` for taps). */
-export async function newPage(browser: Browser, options: { phone?: boolean; width?: number; touch?: boolean } = {}): Promise<Page> {
+/**
+ * A desktop page, or a phone's (390 × 844 unless `width` says otherwise; `touch` for taps). The app's service worker
+ * is kept out unless `serviceWorker` asks for it: installing it prefetches every chunk, which only the offline test needs.
+ */
+export async function newPage(browser: Browser, options: { phone?: boolean; width?: number; touch?: boolean; serviceWorker?: boolean } = {}): Promise<Page> {
   const context = await browser.newContext({
+    serviceWorkers: options.serviceWorker ? 'allow' : 'block',
     reducedMotion: 'reduce',
     viewport: options.phone ? { width: options.width ?? 390, height: 844 } : { width: 1280, height: 860 },
     deviceScaleFactor: 1,
