@@ -52,7 +52,11 @@ export class CaptureQueue {
   /** Saves each photo (downscaled) before anything is sent, then sends it; from the save on, nothing is lost. */
   async capture(buildId: string, files: readonly File[]): Promise<void> {
     const userId = this.session.user()?.id;
-    if (!userId) return;
+    if (!userId) {
+      // Nobody known to keep them for (the session just ended): sent at once, so the refusal shows rather than a loss.
+      this.uploads.send(buildId, files);
+      return;
+    }
     for (const file of files) {
       const photo = await downscalePhoto(file);
       const capture: QueuedCapture = {
