@@ -11,8 +11,9 @@ import { CoreSchema } from '../receipts/core.entity';
 import { ReceiptLineSchema } from '../receipts/receipt-line.entity';
 import { ReceiptSchema } from '../receipts/receipt.entity';
 import { VendorSchema } from '../receipts/vendor.entity';
+import { NotDuplicateSchema } from '../receipts/not-duplicate.entity';
 import { CommentSchema } from '../review/comment.entity';
 import { AlertPreferenceSchema } from '../alerts/alert-preference.entity';
 import { AlertSentSchema } from '../alerts/alert-sent.entity';
 
-export const entities = [UserSchema, PasswordResetSchema, BuildSchema, MembershipSchema, InviteSchema, VehicleSystemSchema, PartSchema, VendorSchema, ReceiptSchema, ReceiptLineSchema, CoreSchema, AuditEventSchema, CommentSchema, AlertPreferenceSchema, AlertSentSchema];
+export const entities = [UserSchema, PasswordResetSchema, BuildSchema, MembershipSchema, InviteSchema, VehicleSystemSchema, PartSchema, VendorSchema, ReceiptSchema, ReceiptLineSchema, CoreSchema, NotDuplicateSchema, AuditEventSchema, CommentSchema, AlertPreferenceSchema, AlertSentSchema];

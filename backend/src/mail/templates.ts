@@ -46,6 +46,17 @@ export function commentMail(input: { to: string; author: string; receiptLabel: s
   };
 }
 
+/** To the reviewer who asked: the builder's reply, with the question it answers. */
+export function answerMail(input: { to: string; author: string; receiptLabel: string; question: string; body: string; link: string }): MailMessage {
+  const lines = [`${input.author} answered your question on ${input.receiptLabel}.`, `You asked: ${input.question}`, `Answer: ${input.body}`, 'The receipt is back in your review queue.'];
+  return {
+    to: input.to,
+    subject: `${input.author} answered your question on ${input.receiptLabel}`,
+    text: `${lines.join('\n\n')}\n\nReview it again: ${input.link}\n`,
+    html: html(lines, { href: input.link, label: 'Review it again' }),
+  };
+}
+
 // Mail alerts (budget, core deposit, return window, likely duplicate, reviewer digest). Amounts arrive formatted
 // in the build's currency and locale; each mail ends with where to change which alerts a person gets.
 

@@ -13,7 +13,7 @@ import {
   updateLineRequest,
   updateReceiptRequest,
 } from '../../../shared/api/receipts';
-import { RECEIPT_STATES, type ReceiptState } from '../../../shared/enums';
+import { RECEIPT_STATES, REVIEW_STATES, type ReceiptState, type ReviewState } from '../../../shared/enums';
 import { ANY_MEMBER, buildRole, em, isUuid, membershipOf } from '../http/build-access';
 import { NotFound, ValidationFailed } from '../http/errors';
 import { multipartUpload } from '../http/uploads';
@@ -30,6 +30,8 @@ import { addLine, deleteLine, mergeLines, splitLine, updateLine } from './receip
 import { createReceipts, findReceipt, listReceipts, updateReceipt, type UploadedDocument } from './receipts.service';
 import { UnreadableDocumentError } from './reading/sniff';
 import { checkUpload } from './upload-check';
+import { markNotDuplicate, NOT_DUPLICATE_ROLES } from './not-duplicate';
+import { notDuplicateRequest } from '../../../shared/api/review';
 
 const EDITORS = ['owner', 'crew'] as const;
 
@@ -52,6 +54,8 @@ export function receiptsRoutes(deps: { store: ObjectStore; queue: JobQueue }): R
   router.get('/receipts', buildRole(...ANY_MEMBER), async (req, res) => {
     const state = req.query.state;
     if (state !== undefined && !RECEIPT_STATES.includes(state as ReceiptState)) throw new ValidationFailed({ state: `Choose one of: ${RECEIPT_STATES.join(', ')}.` });
+    const review = req.query.review;
+    if (review !== undefined && !REVIEW_STATES.includes(review as ReviewState)) throw new ValidationFailed({ review: `Choose one of: ${REVIEW_STATES.join(', ')}.` });
     const systemId = req.query.systemId === undefined ? undefined : id(req.query.systemId, 'That system');
     const { from, to } = parseInput(dateRangeQuery, { from: req.query.from, to: req.query.to });
     const receipts = await listReceipts(em(), membershipOf(res).build, {
@@ -60,6 +64,7 @@ export function receiptsRoutes(deps: { store: ObjectStore; queue: JobQueue }): R
       from,
       to,
       systemId,
+      review: review as ReviewState | undefined,
     });
     res.json({ receipts });
   });
@@ -170,6 +175,13 @@ export function receiptsRoutes(deps: { store: ObjectStore; queue: JobQueue }): R
   router.post('/receipts/:receiptId/reopen', buildRole('owner'), async (req, res) => {
     const receipt = await receiptOf(res, req.params.receiptId);
     await reopenReceipt(em(), receipt, req.user!);
+    await sendReceipt(res, receipt.id);
+  });
+
+  router.post('/receipts/:receiptId/not-duplicate', buildRole(...NOT_DUPLICATE_ROLES), validBody(notDuplicateRequest), async (req, res) => {
+    const receipt = await receiptOf(res, req.params.receiptId);
+    const other = await receiptOf(res, req.body.otherReceiptId);
+    await markNotDuplicate(em(), receipt, other, req.user!, req.body.reason);
     await sendReceipt(res, receipt.id);
   });
 

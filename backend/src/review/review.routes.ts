@@ -18,8 +18,9 @@ export function reviewRoutes(deps: { mailer: Mailer; config: AppConfig }): Route
   };
 
   router.get('/review-queue', buildRole(...ANY_MEMBER), async (_req, res) => {
+    // Not reviewed yet, or answered since it was questioned: both wait for the reviewer.
     const filed = await listReceipts(em(), membershipOf(res).build, { state: 'filed' });
-    res.json({ receipts: filed.filter((r) => r.reviewState === 'none') });
+    res.json({ receipts: filed.filter((r) => r.reviewState === 'none' || r.reviewState === 'answered') });
   });
 
   router.post('/receipts/:receiptId/review', buildRole('owner', 'reviewer'), validBody(reviewRequest), async (req, res) => {
@@ -33,7 +34,7 @@ export function reviewRoutes(deps: { mailer: Mailer; config: AppConfig }): Route
   });
 
   router.post('/receipts/:receiptId/comments', buildRole(...ANY_MEMBER), validBody(commentRequest), async (req, res) => {
-    res.status(201).json(await comment(em(), deps, await receiptOf(res, req.params.receiptId), req.user!, req.body.body));
+    res.status(201).json(await comment(em(), deps, await receiptOf(res, req.params.receiptId), req.user!, membershipOf(res).role, req.body.body));
   });
 
   router.get('/receipts/:receiptId/audit', buildRole(...ANY_MEMBER), async (req, res) => {
