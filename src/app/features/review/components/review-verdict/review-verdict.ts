@@ -80,6 +80,7 @@ export class ReviewVerdict {
         this.busy.set(false);
         this.asking.set(false);
         this.question.reset();
+        this.questionError.set('');
         this.decided.emit({ ...result, verdict });
       },
       error: (error: unknown) => {
