@@ -42,6 +42,11 @@ it('clears the warning on both receipts of a pair, once, with the reason in both
 
   const marked = await partner.client.post(`${url(b.id)}/not-duplicate`, { otherReceiptId: a.id, reason: '  One kit for the fan circuit, one spare.  ' });
   expect([marked.status, marked.body.id, marked.body.duplicateOf]).toEqual([200, b.id, [c.id]]);
+  // Crew uploaded both: told once, with the reason.
+  const told = await t.mail.waitFor((m) => m.to.includes(crew.email) && m.subject.includes('not a duplicate'));
+  expect(told.subject).toBe('Kestrel Auto Spares of 2026-11-05 is not a duplicate');
+  expect(told.text).toContain('Reason: One kit for the fan circuit, one spare.');
+  expect(t.mail.messages.filter((m) => m.to.includes(crew.email) && m.subject.includes('not a duplicate'))).toHaveLength(1);
   // Both receipts lose the warning for each other, whichever of the two it was marked from; c still warns of both.
   expect((await owner.client.get(url(a.id))).body.duplicateOf).toEqual([c.id]);
   expect((await owner.client.get(url(c.id))).body.duplicateOf.sort()).toEqual([a.id, b.id].sort());

@@ -32,6 +32,8 @@ it('lets the reviewer approve one receipt and question another; the uploader is 
   expect(noReason.body.error.fields).toEqual({ comment: 'Say what the question is.' });
 
   expect((await partner.client.post(`/api/builds/${build.id}/receipts/${first.id}/review`, { verdict: 'approved', version: first.version })).body.reviewState).toBe('approved');
+  const approvedNews = await t.mail.waitFor((m) => m.to.includes(crew.email) && m.subject.includes('approved'));
+  expect(approvedNews.subject).toBe('Test review-reviewer approved Quayside Parts Counter of 2026-11-01');
   const questioned = await partner.client.post(`/api/builds/${build.id}/receipts/${second.id}/review`, { verdict: 'questioned', comment: 'Is this gauge for the race car?', version: second.version });
   expect(questioned.body.reviewState).toBe('questioned');
   const mail = await t.mail.waitFor((m) => m.to.includes(crew.email) && m.subject.includes('commented'));

@@ -30,8 +30,6 @@ import { addLine, deleteLine, mergeLines, splitLine, updateLine } from './receip
 import { createReceipts, findReceipt, listReceipts, updateReceipt, type UploadedDocument } from './receipts.service';
 import { UnreadableDocumentError } from './reading/sniff';
 import { checkUpload } from './upload-check';
-import { markNotDuplicate, NOT_DUPLICATE_ROLES } from './not-duplicate';
-import { notDuplicateRequest } from '../../../shared/api/review';
 
 const EDITORS = ['owner', 'crew'] as const;
 
@@ -175,13 +173,6 @@ export function receiptsRoutes(deps: { store: ObjectStore; queue: JobQueue }): R
   router.post('/receipts/:receiptId/reopen', buildRole('owner'), async (req, res) => {
     const receipt = await receiptOf(res, req.params.receiptId);
     await reopenReceipt(em(), receipt, req.user!);
-    await sendReceipt(res, receipt.id);
-  });
-
-  router.post('/receipts/:receiptId/not-duplicate', buildRole(...NOT_DUPLICATE_ROLES), validBody(notDuplicateRequest), async (req, res) => {
-    const receipt = await receiptOf(res, req.params.receiptId);
-    const other = await receiptOf(res, req.body.otherReceiptId);
-    await markNotDuplicate(em(), receipt, other, req.user!, req.body.reason);
     await sendReceipt(res, receipt.id);
   });
 

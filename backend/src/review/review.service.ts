@@ -10,7 +10,7 @@ import type { AppConfig } from '../config';
 import { StaleVersion, ValidationFailed } from '../http/errors';
 import { Membership } from '../builds/membership.entity';
 import type { Mailer } from '../mail/mailer';
-import { answerMail, commentMail } from '../mail/templates';
+import { answerMail, approvedMail, commentMail } from '../mail/templates';
 import type { BuildRole } from '../../../shared/enums';
 import { Receipt } from '../receipts/receipt.entity';
 import { Comment } from './comment.entity';
@@ -21,10 +21,10 @@ function commentDto(comment: Comment): CommentDto {
   return { id: comment.id, author: comment.author.displayName, body: comment.body, createdAt: comment.createdAt.toISOString() };
 }
 
-const receiptLabel = (receipt: Receipt) => `${receipt.vendor?.name ?? 'a receipt'}${receipt.purchaseDate ? ` of ${receipt.purchaseDate}` : ''}`;
+export const receiptLabel = (receipt: Receipt) => `${receipt.vendor?.name ?? 'a receipt'}${receipt.purchaseDate ? ` of ${receipt.purchaseDate}` : ''}`;
 
 /** A person who has left the build (or was removed) hears nothing more of it. */
-async function stillMember(em: EntityManager, receipt: Receipt, user: User): Promise<boolean> {
+export async function stillMember(em: EntityManager, receipt: Receipt, user: User): Promise<boolean> {
   return (await em.count(Membership, { build: receipt.build, user })) > 0;
 }
 
@@ -92,6 +92,15 @@ export async function review(
   recordAudit(em, { build: receipt.build, user: reviewer, entity: 'receipt', entityId: receipt.id, receiptId: receipt.id, action: 'review', before, after: { reviewState: input.verdict } });
   await em.flush();
   if (input.comment) await addComment(em, deps, receipt, reviewer, 'reviewer', input.comment);
+  else if (input.verdict === 'approved') await mailApproval(em, deps, receipt, reviewer);
+}
+
+/** An approval without words is still news to the uploader (an approval with words reaches them as a comment). */
+async function mailApproval(em: EntityManager, deps: { mailer: Mailer; config: AppConfig }, receipt: Receipt, reviewer: User): Promise<void> {
+  await em.populate(receipt, ['uploadedBy', 'vendor']);
+  if (receipt.uploadedBy.id === reviewer.id || !(await stillMember(em, receipt, receipt.uploadedBy))) return;
+  const mail = approvedMail({ to: receipt.uploadedBy.email, reviewer: reviewer.displayName, receiptLabel: receiptLabel(receipt), link: `${deps.config.appUrl}/builds/${receipt.build.id}/receipts/${receipt.id}` });
+  await afterCommit(em, () => deps.mailer.send(mail));
 }
 
 export async function comment(em: EntityManager, deps: { mailer: Mailer; config: AppConfig }, receipt: Receipt, author: User, role: BuildRole, body: string): Promise<CommentDto> {
