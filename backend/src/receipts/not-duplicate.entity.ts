@@ -21,6 +21,7 @@ export class NotDuplicate {
 export const NotDuplicateSchema = new EntitySchema<NotDuplicate>({
   class: NotDuplicate,
   uniques: [{ properties: ['first', 'second'] }],
+  checks: [{ name: 'not_duplicate_pair_in_order', expression: 'first_id < second_id' }],
   properties: {
     id: { type: 'uuid', primary: true },
     build: { kind: 'm:1', entity: () => Build, deleteRule: 'cascade' },

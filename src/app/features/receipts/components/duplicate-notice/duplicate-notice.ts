@@ -1,6 +1,6 @@
 // The likely-duplicate warning on a receipt, with "Not a duplicate" for the owner and the reviewer: a reason is
 // required, goes into both receipts' audit trails, and the warning then leaves both.
-import { ChangeDetectionStrategy, Component, effect, inject, input, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, output, signal } from '@angular/core';
 import { FormControl, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -36,9 +36,12 @@ export class DuplicateNotice {
   protected readonly problem = signal('');
   protected readonly reason = new FormControl('', { nonNullable: true });
 
+  /** Only a different receipt (not a new copy of the same one) resets the form. */
+  private readonly receiptId = computed(() => this.receipt().id);
+
   constructor() {
     effect(() => {
-      this.receipt().id;
+      this.receiptId();
       this.cancel();
     });
   }

@@ -1,6 +1,6 @@
 // Approve or question a filed receipt: the one set of verdict controls, on the Review screen and on the receipt's own
 // page, for the owner or a reviewer. A question needs words; the uploader is told by e-mail.
-import { ChangeDetectionStrategy, Component, effect, inject, input, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, output, signal } from '@angular/core';
 import { FormControl, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -36,10 +36,13 @@ export class ReviewVerdict {
   protected readonly questionError = signal('');
   protected readonly question = new FormControl('', { nonNullable: true });
 
+  /** Only a different receipt (not a new copy of the same one) resets the form. */
+  private readonly receiptId = computed(() => this.receipt().id);
+
   constructor() {
     // Another receipt starts with closed, empty controls.
     effect(() => {
-      this.receipt().id;
+      this.receiptId();
       this.asking.set(false);
       this.question.reset();
       this.questionError.set('');
