@@ -66,13 +66,15 @@ export const RECEIPT_STATE_LABELS: Record<ReceiptState, string> = {
   failed: 'Could not be read',
 };
 
-export const REVIEW_STATES = ['none', 'approved', 'questioned'] as const;
+/** "answered": a builder replied to a question, so the receipt is back in the reviewer's queue. */
+export const REVIEW_STATES = ['none', 'approved', 'questioned', 'answered'] as const;
 export type ReviewState = (typeof REVIEW_STATES)[number];
 
 export const REVIEW_STATE_LABELS: Record<ReviewState, string> = {
   none: 'Not reviewed',
   approved: 'Approved',
   questioned: 'Questioned',
+  answered: 'Answered',
 };
 
 export const CORE_STATES = ['owed', 'dropped_off', 'refunded', 'forfeited'] as const;

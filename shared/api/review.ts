@@ -32,3 +32,12 @@ export interface AuditEventDto {
   /** Names of the parts and systems the snapshots refer to by id, as they are called now. */
   names: Record<string, string>;
 }
+
+/** Marks a likely duplicate as a separate purchase; the reason goes into both receipts' audit trails. */
+export const notDuplicateRequest = z
+  .object({
+    otherReceiptId: z.uuid({ error: 'Choose the other receipt of the pair.' }),
+    reason: z.string({ error: 'Say why these are two purchases.' }).trim().min(1, 'Say why these are two purchases.').max(500, 'A reason is at most 500 characters.'),
+  })
+  .strict();
+export type NotDuplicateRequest = z.input<typeof notDuplicateRequest>;

@@ -244,6 +244,15 @@ const ROUTES: RouteCase[] = [
     call: async (f, a) => f.clients[a].post(`${(await receiptFor(f)).base}/comments`, { body: 'Which car is this for?' }),
     expected: { owner: 201, crew: 201, reviewer: 201, outsider: 404, anonymous: 401 },
   },
+  {
+    // Two uploads of the same slip are likely duplicates of each other.
+    name: 'POST /api/builds/:buildId/receipts/:receiptId/not-duplicate',
+    call: async (f, a) => {
+      const [one, two] = [await receiptFor(f), await receiptFor(f)];
+      return f.clients[a].post(`${one.base}/not-duplicate`, { otherReceiptId: two.id, reason: 'Two alternators: one for the spare engine.' });
+    },
+    expected: { owner: 200, crew: 403, reviewer: 200, outsider: 404, anonymous: 401 },
+  },
   { name: 'GET /api/builds/:buildId/receipts/:receiptId/audit', call: async (f, a) => f.clients[a].get(`${(await receiptFor(f)).base}/audit`), expected: readable },
   { name: 'GET /api/builds/:buildId/alert-preferences', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/alert-preferences`), expected: readable },
   {

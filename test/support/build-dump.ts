@@ -2,7 +2,7 @@
 // (nor the accounts and invites around it) changed, down to versions and timestamps.
 import type { MikroORM } from '@mikro-orm/postgresql';
 
-const BUILD_TABLES = ['vehicle_system', 'part', 'vendor', 'receipt', 'receipt_line', 'core', 'audit_event', 'comment', 'invite', 'membership', 'alert_sent'];
+const BUILD_TABLES = ['vehicle_system', 'part', 'vendor', 'receipt', 'receipt_line', 'core', 'audit_event', 'comment', 'not_duplicate', 'invite', 'membership', 'alert_sent'];
 
 export async function dumpBuild(orm: MikroORM, buildId: string): Promise<string> {
   const connection = orm.em.fork().getConnection();

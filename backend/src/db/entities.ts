@@ -12,8 +12,9 @@ import { ReceiptLineSchema } from '../receipts/receipt-line.entity';
 import { ReceiptSchema } from '../receipts/receipt.entity';
 import { UploadKeySchema } from '../receipts/upload-key.entity';
 import { VendorSchema } from '../receipts/vendor.entity';
+import { NotDuplicateSchema } from '../receipts/not-duplicate.entity';
 import { CommentSchema } from '../review/comment.entity';
 import { AlertPreferenceSchema } from '../alerts/alert-preference.entity';
 import { AlertSentSchema } from '../alerts/alert-sent.entity';
 
-export const entities = [UserSchema, PasswordResetSchema, BuildSchema, MembershipSchema, InviteSchema, VehicleSystemSchema, PartSchema, VendorSchema, ReceiptSchema, ReceiptLineSchema, CoreSchema, AuditEventSchema, CommentSchema, AlertPreferenceSchema, AlertSentSchema, UploadKeySchema];
+export const entities = [UserSchema, PasswordResetSchema, BuildSchema, MembershipSchema, InviteSchema, VehicleSystemSchema, PartSchema, VendorSchema, ReceiptSchema, ReceiptLineSchema, CoreSchema, NotDuplicateSchema, AuditEventSchema, CommentSchema, AlertPreferenceSchema, AlertSentSchema, UploadKeySchema];

@@ -46,6 +46,39 @@ export function commentMail(input: { to: string; author: string; receiptLabel: s
   };
 }
 
+/** To the reviewer who asked: the builder's reply, with the question it answers. */
+export function answerMail(input: { to: string; author: string; receiptLabel: string; question: string; body: string; link: string }): MailMessage {
+  const lines = [`${input.author} answered your question on ${input.receiptLabel}.`, `You asked: ${input.question}`, `Answer: ${input.body}`, 'The receipt is back in your review queue.'];
+  return {
+    to: input.to,
+    subject: `${input.author} answered your question on ${input.receiptLabel}`,
+    text: `${lines.join('\n\n')}\n\nReview it again: ${input.link}\n`,
+    html: html(lines, { href: input.link, label: 'Review it again' }),
+  };
+}
+
+/** To the uploader: the reviewer approved their receipt. */
+export function approvedMail(input: { to: string; reviewer: string; receiptLabel: string; link: string }): MailMessage {
+  const lines = [`${input.reviewer} approved ${input.receiptLabel}.`, 'Nothing more is needed for it.'];
+  return {
+    to: input.to,
+    subject: `${input.reviewer} approved ${input.receiptLabel}`,
+    text: `${lines.join('\n\n')}\n\nOpen the receipt: ${input.link}\n`,
+    html: html(lines, { href: input.link, label: 'Open the receipt' }),
+  };
+}
+
+/** To an uploader of either receipt of a pair: it is no longer flagged as a likely duplicate, and why. */
+export function notDuplicateMail(input: { to: string; author: string; receiptLabel: string; reason: string; link: string }): MailMessage {
+  const lines = [`${input.author} marked ${input.receiptLabel} and the receipt it resembled as two purchases, not a duplicate.`, `Reason: ${input.reason}`];
+  return {
+    to: input.to,
+    subject: `${input.receiptLabel} is not a duplicate`,
+    text: `${lines.join('\n\n')}\n\nOpen the receipt: ${input.link}\n`,
+    html: html(lines, { href: input.link, label: 'Open the receipt' }),
+  };
+}
+
 // Mail alerts (budget, core deposit, return window, likely duplicate, reviewer digest). Amounts arrive formatted
 // in the build's currency and locale; each mail ends with where to change which alerts a person gets.
 

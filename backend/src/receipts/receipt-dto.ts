@@ -34,7 +34,10 @@ export function lineDto(line: ReceiptLine, currency: string): ReceiptLineDto {
   };
 }
 
-/** Other receipts of the same build with the same document, or the same shop, date and total. */
+/**
+ * Other receipts of the same build with the same document, or the same shop, date and total, less the pairs someone
+ * marked as two purchases (stored in id order, hence least/greatest).
+ */
 export async function findDuplicates(em: EntityManager, buildId: string, receiptIds: string[]): Promise<Map<string, string[]>> {
   const result = new Map<string, string[]>(receiptIds.map((id) => [id, []]));
   if (receiptIds.length === 0) return result;
@@ -45,6 +48,7 @@ export async function findDuplicates(em: EntityManager, buildId: string, receipt
       where r.build_id = ? and r.id = any(?::uuid[])
         and (o.sha256 = r.sha256
              or (r.vendor_id is not null and o.vendor_id = r.vendor_id and o.purchase_date = r.purchase_date and o.total = r.total))
+        and not exists (select 1 from not_duplicate d where d.first_id = least(r.id, o.id) and d.second_id = greatest(r.id, o.id))
       order by o.created_at`,
     [buildId, `{${receiptIds.join(',')}}`],
   );

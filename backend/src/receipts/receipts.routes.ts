@@ -14,7 +14,7 @@ import {
   updateLineRequest,
   updateReceiptRequest,
 } from '../../../shared/api/receipts';
-import { RECEIPT_STATES, type ReceiptState } from '../../../shared/enums';
+import { RECEIPT_STATES, REVIEW_STATES, type ReceiptState, type ReviewState } from '../../../shared/enums';
 import { ANY_MEMBER, buildRole, em, isUuid, membershipOf } from '../http/build-access';
 import { NotFound, ValidationFailed } from '../http/errors';
 import { multipartUpload } from '../http/uploads';
@@ -50,6 +50,8 @@ export function receiptsRoutes(deps: { store: ObjectStore; queue: JobQueue }): R
   router.get('/receipts', buildRole(...ANY_MEMBER), async (req, res) => {
     const state = req.query.state;
     if (state !== undefined && !RECEIPT_STATES.includes(state as ReceiptState)) throw new ValidationFailed({ state: `Choose one of: ${RECEIPT_STATES.join(', ')}.` });
+    const review = req.query.review;
+    if (review !== undefined && !REVIEW_STATES.includes(review as ReviewState)) throw new ValidationFailed({ review: `Choose one of: ${REVIEW_STATES.join(', ')}.` });
     const systemId = req.query.systemId === undefined ? undefined : id(req.query.systemId, 'That system');
     const { from, to } = parseInput(dateRangeQuery, { from: req.query.from, to: req.query.to });
     const receipts = await listReceipts(em(), membershipOf(res).build, {
@@ -58,6 +60,7 @@ export function receiptsRoutes(deps: { store: ObjectStore; queue: JobQueue }): R
       from,
       to,
       systemId,
+      review: review as ReviewState | undefined,
     });
     res.json({ receipts });
   });

@@ -3,7 +3,7 @@ import { afterCommit } from '../http/request-transaction';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { createHash, randomUUID } from 'node:crypto';
 import type { ReceiptSummaryDto, UpdateReceiptRequest } from '../../../shared/api/receipts';
-import type { ReceiptState } from '../../../shared/enums';
+import type { ReceiptState, ReviewState } from '../../../shared/enums';
 import { type Decimal, fitsMinorUnits, minorUnits, toDecimal } from '../../../shared/money';
 import type { User } from '../auth/user.entity';
 import type { Build } from '../builds/build.entity';
@@ -65,6 +65,7 @@ export interface ReceiptFilter {
   from?: string;
   to?: string;
   systemId?: string;
+  review?: ReviewState;
 }
 
 interface ReceiptSummaryRow {
@@ -95,6 +96,7 @@ export async function listReceipts(em: EntityManager, build: Build, filter: Rece
     params.push(value);
   };
   if (filter.state) and('r.state = ?', filter.state);
+  if (filter.review) and('r.review_state = ?', filter.review);
   if (filter.vendor) and('v.normalized_name like ?', `%${normalizeVendorName(filter.vendor)}%`);
   if (filter.from) and('r.purchase_date >= ?', filter.from);
   if (filter.to) and('r.purchase_date <= ?', filter.to);

@@ -161,8 +161,12 @@ async function seedReceipt(context: HistoryContext, history: HistoryReceipt): Pr
   await em.nativeUpdate(AuditEvent, { receiptId: receipt.id, action: 'review' }, { createdAt: reviewedAt });
   await em.nativeUpdate(Comment, { receipt: receipt.id }, { createdAt: reviewedAt });
   if (history.review.reply) {
-    const reply = await comment(em, reviewDeps, receipt, uploader, history.review.reply);
-    await em.nativeUpdate(Comment, { id: reply.id }, { createdAt: at(dayAfter(history.review.on), '18:15:00') });
+    // The uploader's reply answers the question, as it does in the app: the receipt is back in the partner's queue.
+    await em.refresh(receipt); // the back-dating above moved its version on
+    const reply = await comment(em, reviewDeps, receipt, uploader, uploaderRole, history.review.reply);
+    const repliedAt = at(dayAfter(history.review.on), '18:15:00');
+    await em.nativeUpdate(Comment, { id: reply.id }, { createdAt: repliedAt });
+    await em.nativeUpdate(AuditEvent, { receiptId: receipt.id, action: 'answer' }, { createdAt: repliedAt });
   }
 }
 

@@ -11,7 +11,9 @@ const ICONS: Record<AttentionItem['kind'], string> = {
   to_check: 'fact_check',
   reading: 'hourglass_top',
   failed: 'error',
+  questions: 'help',
   review: 'rate_review',
+  answers: 'forum',
   cores: 'autorenew',
   over_budget: 'warning',
   duplicates: 'content_copy',
@@ -21,7 +23,9 @@ const LINKS: Record<AttentionItem['kind'], string> = {
   to_check: 'receipts',
   reading: 'receipts',
   failed: 'receipts',
+  questions: 'receipts',
   review: 'review',
+  answers: 'review',
   cores: 'cores',
   over_budget: 'ledger',
   duplicates: 'receipts',
@@ -34,6 +38,7 @@ const LINKS: Record<AttentionItem['kind'], string> = {
 const QUERIES: Partial<Record<AttentionItem['kind'], Record<string, string>>> = {
   to_check: { state: 'to_check' },
   failed: { state: 'failed' },
+  questions: { review: 'questioned' },
   duplicates: { duplicates: 'only' },
 };
 
@@ -41,126 +46,8 @@ const QUERIES: Partial<Record<AttentionItem['kind'], Record<string, string>>> = 
   selector: 'th-attention-list',
   imports: [MatIconModule, RouterLink, MoneyPipe],
   changeDetection: ChangeDetectionStrategy.OnPush,
-  template: `
-    <h2 id="attention-heading" class="card-heading">Needs attention</h2>
-    @if (items().length > 0) {
-      <ul class="items">
-        @for (item of items(); track item.kind) {
-          <li [class.urgent]="item.kind === 'failed' || item.kind === 'over_budget' || (item.kind === 'cores' && item.overdue > 0)">
-            <mat-icon aria-hidden="true">{{ icons[item.kind] }}</mat-icon>
-            <div class="text">
-              @switch (item.kind) {
-                @case ('to_check') {
-                  <a [routerLink]="links.to_check" [queryParams]="queries.to_check">{{ receipts(item.count) }} ready to check</a>
-                  <span class="detail">Read into lines; they count in the ledger once checked and filed.</span>
-                }
-                @case ('reading') {
-                  <a [routerLink]="links.reading">{{ receipts(item.count) }} being read</a>
-                  <span class="detail">Usually a few seconds each; they then wait to be checked.</span>
-                }
-                @case ('failed') {
-                  <a [routerLink]="links.failed" [queryParams]="queries.failed">{{ receipts(item.count) }} could not be read</a>
-                  <span class="detail">Try a sharper photo in good light, or add the lines by hand.</span>
-                }
-                @case ('review') {
-                  <a [routerLink]="links.review">{{ receipts(item.count) }} waiting for {{ role() === 'reviewer' ? 'your review' : 'review' }}</a>
-                  <span class="detail">Filed, not yet approved or questioned.</span>
-                }
-                @case ('cores') {
-                  <a [routerLink]="links.cores"
-                    >{{ item.count }} core {{ item.count === 1 ? 'deposit' : 'deposits' }} owed,
-                    <span class="tabular">{{ item.amount | money: currency() : locale() }}</span></a
-                  >
-                  @if (item.overdue > 0) {
-                    <span class="detail overdue">
-                      <strong>{{ item.overdue === item.count ? 'Overdue' : item.overdue + ' overdue' }}:</strong>
-                      the earliest was due {{ dateText(item.nearestDue) }}. Hand the old parts back to get the deposits refunded.
-                    </span>
-                  } @else {
-                    <span class="detail">Next one due {{ dateText(item.nearestDue) }}: hand the old part back to get the deposit refunded.</span>
-                  }
-                }
-                @case ('over_budget') {
-                  <a [routerLink]="links.over_budget">{{ item.count }} {{ item.count === 1 ? 'system' : 'systems' }} over budget</a>
-                  <span class="detail">{{ item.systems.join(', ') }}: net cost already past the budget.</span>
-                }
-                @case ('duplicates') {
-                  <a [routerLink]="links.duplicates" [queryParams]="queries.duplicates">{{ receipts(item.count) }} may be duplicates</a>
-                  <span class="detail">Same shop, date and total as another receipt, or the same file.</span>
-                }
-              }
-            </div>
-          </li>
-        }
-      </ul>
-    } @else if (complete()) {
-      <p class="calm">
-        <mat-icon aria-hidden="true">check_circle</mat-icon>
-        <span>Nothing needs attention: every receipt is checked and reviewed, no core deposit is owed and no system is over its budget.</span>
-      </p>
-    }
-    @if (!complete()) {
-      <p class="notice notice-error" role="alert">Part of this overview could not be loaded. Reload the page to try again.</p>
-    }
-  `,
-  styles: `
-    .card-heading {
-      font: var(--mat-sys-title-large);
-      margin: 0 0 8px;
-    }
-    .items {
-      list-style: none;
-      margin: 0;
-      padding: 0;
-    }
-    li {
-      display: flex;
-      gap: 12px;
-      align-items: flex-start;
-      padding: 10px 0;
-      border-bottom: 1px solid var(--mat-sys-outline-variant);
-    }
-    li:last-child {
-      border-bottom: none;
-    }
-    li mat-icon {
-      flex: none;
-      color: var(--mat-sys-primary);
-    }
-    li.urgent mat-icon {
-      color: var(--mat-sys-error);
-    }
-    .text {
-      display: flex;
-      flex-direction: column;
-      gap: 2px;
-      min-width: 0;
-    }
-    a {
-      font: var(--mat-sys-title-small);
-      color: var(--mat-sys-primary);
-      /* A thumb-sized target on a phone. */
-      min-height: 24px;
-      overflow-wrap: anywhere;
-    }
-    .detail {
-      font: var(--mat-sys-body-small);
-      color: var(--mat-sys-on-surface-variant);
-    }
-    .overdue {
-      color: var(--mat-sys-error);
-    }
-    .calm {
-      display: flex;
-      gap: 12px;
-      align-items: flex-start;
-      margin: 0;
-    }
-    .calm mat-icon {
-      flex: none;
-      color: var(--mat-sys-primary);
-    }
-  `,
+  templateUrl: './attention-list.html',
+  styleUrl: './attention-list.css',
 })
 export class AttentionList {
   readonly items = input.required<AttentionItem[]>();

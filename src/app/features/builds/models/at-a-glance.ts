@@ -27,7 +27,7 @@ export function budgetUse(ledger: LedgerDto): BudgetUse {
 }
 
 export type AttentionItem =
-  | { kind: 'to_check' | 'reading' | 'failed' | 'review' | 'duplicates'; count: number }
+  | { kind: 'to_check' | 'reading' | 'failed' | 'questions' | 'review' | 'answers' | 'duplicates'; count: number }
   | { kind: 'cores'; count: number; amount: string; nearestDue: string; overdue: number }
   | { kind: 'over_budget'; count: number; systems: string[] };
 
@@ -42,7 +42,17 @@ export interface AttentionSources {
   today: string;
 }
 
-/** Only the lines with something in them; the reviewer's own work first, otherwise the checking that blocks the ledger first. */
+/**
+ * What a role can act on. The reviewer reviews (and may say a likely duplicate is two purchases): checking, cores and
+ * budgets are the builders' work, so they are no task of the reviewer's. Crew give no verdicts, so the queue is none of theirs.
+ */
+const TASKS: Record<BuildRole, ReadonlySet<AttentionItem['kind']>> = {
+  owner: new Set(['to_check', 'reading', 'failed', 'questions', 'review', 'answers', 'cores', 'over_budget', 'duplicates']),
+  crew: new Set(['to_check', 'reading', 'failed', 'questions', 'cores', 'over_budget', 'duplicates']),
+  reviewer: new Set(['review', 'answers', 'duplicates']),
+};
+
+/** Only the lines with something in them that this role can act on; the reviewing first for a reviewer, otherwise the checking that blocks the ledger. */
 export function attentionItems(sources: AttentionSources): AttentionItem[] {
   const count = (test: (receipt: ReceiptSummaryDto) => boolean) => sources.receipts.filter(test).length;
   const owed = sources.cores.filter((core) => core.state === 'owed');
@@ -52,12 +62,15 @@ export function attentionItems(sources: AttentionSources): AttentionItem[] {
     return budget.greaterThan(0) && amountOf(system.netCost).greaterThan(budget);
   });
 
-  const review: AttentionItem = { kind: 'review', count: sources.reviewQueue.length };
+  const review: AttentionItem = { kind: 'review', count: sources.reviewQueue.filter((receipt) => receipt.reviewState === 'none').length };
+  const answers: AttentionItem = { kind: 'answers', count: sources.reviewQueue.filter((receipt) => receipt.reviewState === 'answered').length };
   const items: AttentionItem[] = [
     { kind: 'to_check', count: count((receipt) => receipt.state === 'to_check') },
     { kind: 'reading', count: count((receipt) => receipt.state === 'queued' || receipt.state === 'reading') },
     { kind: 'failed', count: count((receipt) => receipt.state === 'failed') },
+    { kind: 'questions', count: count((receipt) => receipt.state === 'filed' && receipt.reviewState === 'questioned') },
     review,
+    answers,
     {
       kind: 'cores',
       count: owed.length,
@@ -69,8 +82,8 @@ export function attentionItems(sources: AttentionSources): AttentionItem[] {
     { kind: 'over_budget', count: overBudget.length, systems: overBudget.map((system) => system.name) },
     { kind: 'duplicates', count: count((receipt) => receipt.duplicateOf.length > 0) },
   ];
-  const ordered = sources.role === 'reviewer' ? [review, ...items.filter((item) => item !== review)] : items;
-  return ordered.filter((item) => item.count > 0);
+  const ordered = sources.role === 'reviewer' ? [review, answers, ...items.filter((item) => item !== review && item !== answers)] : items;
+  return ordered.filter((item) => item.count > 0 && TASKS[sources.role].has(item.kind));
 }
 
 /** Today as YYYY-MM-DD in the person's own time zone, to compare with calendar due dates. */

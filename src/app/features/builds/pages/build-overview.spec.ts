@@ -117,13 +117,26 @@ interface Answers {
   systems: SystemsResponse;
 }
 
-/** Two to check, one being read, one not read, three filed and unreviewed (two of them look alike), one reviewed. */
+/**
+ * Two to check, one being read, one not read, three filed and unreviewed (two of them look alike), one approved, one
+ * questioned and one answered.
+ */
 function busyBuild(): Answers {
   const filed = [receipt('filed', { duplicateOf: ['r-x'] }), receipt('filed', { duplicateOf: ['r-y'] }), receipt('filed')];
+  const answered = receipt('filed', { reviewState: 'answered' });
   return {
     ledger: ledger(),
-    receipts: [receipt('to_check'), receipt('to_check'), receipt('reading'), receipt('failed'), ...filed, receipt('filed', { reviewState: 'approved' })],
-    reviewQueue: filed,
+    receipts: [
+      receipt('to_check'),
+      receipt('to_check'),
+      receipt('reading'),
+      receipt('failed'),
+      ...filed,
+      receipt('filed', { reviewState: 'approved' }),
+      receipt('filed', { reviewState: 'questioned' }),
+      answered,
+    ],
+    reviewQueue: [...filed, answered],
     // Owed 30.00 + 40.00 = 70.00; the one handed in is no longer owed. 2020 is long past, 2099 far ahead.
     cores: [core('c-1', 'owed', '2099-03-01', '30.00'), core('c-2', 'owed', '2020-01-15', '40.00'), core('c-3', 'dropped_off', '2019-06-01', '25.00')],
     systems: systemsWith(4),
@@ -195,7 +208,9 @@ describe('BuildOverview', () => {
       { link: '2 receipts ready to check', href: '/receipts?state=to_check', detail: 'Read into lines; they count in the ledger once checked and filed.' },
       { link: '1 receipt being read', href: '/receipts', detail: 'Usually a few seconds each; they then wait to be checked.' },
       { link: '1 receipt could not be read', href: '/receipts?state=failed', detail: 'Try a sharper photo in good light, or add the lines by hand.' },
-      { link: '3 receipts waiting for review', href: '/review', detail: 'Filed, not yet approved or questioned.' },
+      { link: '1 question to answer', href: '/receipts?review=questioned', detail: 'The reviewer asked about a receipt: reply in a comment on each, and it goes back for review.' },
+      { link: '3 receipts to review', href: '/review', detail: 'Filed, not yet approved or questioned.' },
+      { link: '1 answer to read', href: '/review', detail: 'A builder replied to a question: approve the receipt, or ask again.' },
       {
         link: '2 core deposits owed, $70.00',
         href: '/cores',
@@ -214,20 +229,13 @@ describe('BuildOverview', () => {
     expect(screen.getByRole('button', { name: 'Archive build' })).toBeTruthy();
   });
 
-  it('puts "waiting for your review" first for a reviewer, says over budget in words, and shows no owner buttons', async () => {
+  it('shows a reviewer only what they act on, reviewing first, says over budget in words, and shows no owner buttons', async () => {
     // Net cost 3,584.00 of 3,200.00 is 112 % used, 384.00 over; the forecast 3,700.00 is 500.00 over.
     const answers = { ...busyBuild(), ledger: ledger({ netCost: '3584.00', forecast: '3700.00', variance: '-500.00' }) };
     await renderAs('reviewer', answers);
 
-    expect(attentionLines().map((line) => line.link)).toEqual([
-      '3 receipts waiting for your review',
-      '2 receipts ready to check',
-      '1 receipt being read',
-      '1 receipt could not be read',
-      '2 core deposits owed, $70.00',
-      '1 system over budget',
-      '2 receipts may be duplicates',
-    ]);
+    // Checking, cores and budgets are the builders' work: no task of the reviewer's.
+    expect(attentionLines().map((line) => line.link)).toEqual(['3 receipts to review', '1 answer to read', '2 receipts may be duplicates']);
     const money = screen.getByRole('region', { name: 'Money' });
     expect(text(money)).toContain('warning Over budget: 112% used, $384.00 over');
     expect(text(money)).toContain('$3,700.00 warning $500.00 over budget');
@@ -239,7 +247,7 @@ describe('BuildOverview', () => {
     await renderAs('crew', {
       // Net cost 1,600.00 of 3,200.00: 50 % used; the forecast 2,000.00 is 1,200.00 under budget.
       ledger: ledger({ netCost: '1600.00', forecast: '2000.00', variance: '1200.00', remainingEstimate: '400.00' }, [ledgerSystem('s-engine', 'Engine', '2000.00', '1600.00')]),
-      receipts: [receipt('filed', { reviewState: 'approved' }), receipt('filed', { reviewState: 'questioned' })],
+      receipts: [receipt('filed', { reviewState: 'approved' }), receipt('filed', { reviewState: 'approved' })],
       reviewQueue: [],
       cores: [core('c-1', 'refunded', '2020-01-15', '30.00'), core('c-2', 'forfeited', '2020-02-15', '20.00')],
       systems: systemsWith(3),

@@ -26,6 +26,8 @@ import { CurrentBuild } from '../../builds/services/current-build';
 import { PartsApi } from '../../parts/services/parts-api';
 import { SystemsApi } from '../../parts/services/systems-api';
 import { ReviewPanel } from '../../review/components/review-panel';
+import { ReviewVerdict } from '../../review/components/review-verdict/review-verdict';
+import { DuplicateNotice } from '../components/duplicate-notice/duplicate-notice';
 import { AcceptDifferenceData, AcceptDifferenceDialog } from '../components/accept-difference-dialog';
 import { ReceiptPages } from '../components/receipt-pages';
 import { ReturnLinkData, ReturnLinkDialog } from '../components/return-link-dialog';
@@ -98,6 +100,8 @@ function caretAtEdge(input: HTMLInputElement, edge: 'start' | 'end'): boolean {
     RouterLink,
     ReceiptPages,
     ReviewPanel,
+    ReviewVerdict,
+    DuplicateNotice,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './receipt-check.html',
@@ -164,6 +168,8 @@ export class ReceiptCheck {
   protected readonly locale = computed(() => this.receipt()?.locale ?? this.current.build()?.locale ?? 'en-US');
   protected readonly editable = computed(() => this.receipt()?.editable ?? false);
   protected readonly isOwner = computed(() => this.current.build()?.role === 'owner');
+  /** The owner and the reviewer give verdicts and may say a likely duplicate is two purchases. */
+  protected readonly canReview = computed(() => this.isOwner() || this.current.build()?.role === 'reviewer');
   protected readonly documentUrl = computed(() => this.receiptsApi.documentUrl(this.buildId(), this.receiptId()));
 
   protected readonly activeBox = computed(() => this.receipt()?.lines.find((line) => line.id === this.activeLineId())?.box ?? null);
@@ -582,7 +588,7 @@ export class ReceiptCheck {
     this.bump();
   }
 
-  private reload(): void {
+  protected reload(): void {
     this.receiptsApi.get(this.buildId(), this.receiptId()).subscribe({ next: (receipt) => this.show(receipt), error: (error: unknown) => this.problem.set(toApiError(error).message) });
   }
 
@@ -601,7 +607,7 @@ export class ReceiptCheck {
       });
   }
 
-  private show(receipt: ReceiptDto): void {
+  protected show(receipt: ReceiptDto): void {
     this.receipt.set(receipt);
     this.header.setValue(
       {

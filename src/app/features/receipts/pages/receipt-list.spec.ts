@@ -150,6 +150,36 @@ describe('ReceiptList filters in the URL', () => {
     http.verify();
   });
 
+  it('shows the review state of each filed receipt as an icon and a word, and filters by it through the URL', async () => {
+    const http = await openAt('/builds/b-1/receipts?review=answered');
+    http.expectOne('/api/builds/b-1/receipts?review=answered').flush({
+      receipts: [summary('r-1', { state: 'filed', reviewState: 'answered' }), summary('r-2', { state: 'filed', reviewState: 'questioned', vendorName: 'Copperline Supply' }), summary('r-3', { state: 'to_check' })],
+    });
+    http.expectOne('/api/builds/b-1/systems').flush(systems);
+    const reviewShown = () => screen.getByRole('combobox', { name: 'Review' }).textContent?.trim();
+    await waitFor(() => expect(reviewShown()).toBe('Answered'));
+    const rows = Array.from((await screen.findByRole('list', { name: 'Receipts' })).querySelectorAll('li'));
+    // The icon and the word, never a colour alone; a receipt not filed yet has no review to show.
+    const review = (row: Element) => row.querySelector('.review');
+    expect(rows.map((row) => review(row)?.querySelector('mat-icon')?.textContent?.trim() ?? null)).toEqual(['forum', 'help', null]);
+    expect(rows.map((row) => review(row)?.textContent?.replace(review(row)!.querySelector('mat-icon')!.textContent!, '').trim() ?? null)).toEqual(['Review: Answered', 'Review: Questioned', null]);
+
+    const user = userEvent.setup();
+    await user.click(screen.getByRole('combobox', { name: 'Review' }));
+    await user.click(await screen.findByRole('option', { name: 'Questioned' }));
+    (await nextRequest(http, '/api/builds/b-1/receipts?review=questioned')).flush({ receipts: [] });
+    expect(TestBed.inject(Router).url).toBe('/builds/b-1/receipts?review=questioned');
+    http.verify();
+  });
+
+  it('leaves out a review state from the URL that the server would refuse', async () => {
+    const http = await openAt('/builds/b-1/receipts?review=maybe');
+    http.expectOne('/api/builds/b-1/receipts').flush({ receipts: [summary('r-1')] });
+    http.expectOne('/api/builds/b-1/systems').flush(systems);
+    await waitFor(() => expect(screen.getByRole('combobox', { name: 'Review' }).textContent?.trim()).toBe('Any review'));
+    http.verify();
+  });
+
   it('narrows the list to likely duplicates from the URL without asking the server again, and widens it again', async () => {
     const http = await openAt('/builds/b-1/receipts?duplicates=only');
     // The server is asked for every receipt: it flags duplicates on each, and the list keeps the flagged ones.

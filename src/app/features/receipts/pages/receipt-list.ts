@@ -12,7 +12,8 @@ import { ActivatedRoute, ParamMap, Router, RouterLink } from '@angular/router';
 import { Subject, Subscription, debounceTime, timer } from 'rxjs';
 import type { SystemDto } from '../../../../../shared/api/parts';
 import { ACCEPTED_UPLOAD_LABEL, MAX_UPLOAD_BYTES, ReceiptSummaryDto } from '../../../../../shared/api/receipts';
-import { RECEIPT_STATES, RECEIPT_STATE_LABELS, ReceiptState } from '../../../../../shared/enums';
+import { RECEIPT_STATES, RECEIPT_STATE_LABELS, REVIEW_STATES, REVIEW_STATE_LABELS, ReceiptState, ReviewState } from '../../../../../shared/enums';
+import { REVIEW_STATE_ICONS } from '../../review/models/review-state';
 import { formatCalendarDate } from '../../../ui/dates';
 import { EmptyState } from '../../../ui/empty-state';
 import { MoneyPipe } from '../../../ui/money';
@@ -22,17 +23,19 @@ import { SystemsApi } from '../../parts/services/systems-api';
 import { ReceiptsApi, ReceiptsFilter } from '../services/receipts-api';
 import { ReceiptUploads } from '../services/receipt-uploads';
 
-const FILTER_KEYS = ['state', 'vendor', 'systemId', 'from', 'to'] as const;
+const FILTER_KEYS = ['state', 'vendor', 'systemId', 'from', 'to', 'review'] as const;
 const CALENDAR_DATE = /^\d{4}-\d{2}-\d{2}$/;
 
 /**
- * The filters a URL asks for (?state=filed&vendor=ridge&systemId=…&from=2026-01-01&to=2026-03-31). A state or date the
+ * The filters a URL asks for (?state=filed&vendor=ridge&systemId=…&from=2026-01-01&to=2026-03-31&review=questioned). A state or date the
  * server would refuse (an old bookmark, a hand-typed URL) is left out, so the list still shows instead of an error.
  */
 function filterFromQuery(query: ParamMap): ReceiptsFilter {
   const filter: ReceiptsFilter = {};
   const state = query.get('state');
   if (state && (RECEIPT_STATES as readonly string[]).includes(state)) filter.state = state as ReceiptState;
+  const review = query.get('review');
+  if (review && (REVIEW_STATES as readonly string[]).includes(review)) filter.review = review as ReviewState;
   const vendor = query.get('vendor')?.trim();
   if (vendor) filter.vendor = vendor;
   const systemId = query.get('systemId');
@@ -73,6 +76,9 @@ export class ReceiptList {
   protected readonly states = RECEIPT_STATES;
   protected readonly stateLabels = RECEIPT_STATE_LABELS;
   protected readonly stateIcons = STATE_ICONS;
+  protected readonly reviewStates = REVIEW_STATES;
+  protected readonly reviewLabels = REVIEW_STATE_LABELS;
+  protected readonly reviewIcons = REVIEW_STATE_ICONS;
   protected readonly acceptedLabel = ACCEPTED_UPLOAD_LABEL;
   protected readonly maxMegabytes = MAX_UPLOAD_BYTES / 1024 / 1024;
 

@@ -17,8 +17,9 @@ import type {
   UpdateReceiptRequest,
 } from '../../../../../shared/api/receipts';
 import type { AcceptSuggestionsRequest, ReceiptSuggestionsDto } from '../../../../../shared/api/suggestions';
-import type { ReceiptState } from '../../../../../shared/enums';
+import type { ReceiptState, ReviewState } from '../../../../../shared/enums';
 import { HANDLED_STATUSES } from '../../../core/http/api-error';
+import type { NotDuplicateRequest } from '../../../../../shared/api/review';
 
 const buildPath = (buildId: string) => `/api/builds/${encodeURIComponent(buildId)}`;
 const receiptPath = (buildId: string, receiptId: string) => `${buildPath(buildId)}/receipts/${encodeURIComponent(receiptId)}`;
@@ -33,6 +34,8 @@ export interface ReceiptsFilter {
   from?: string;
   to?: string;
   systemId?: string;
+  /** The partner's review state: none, approved, questioned or answered. */
+  review?: ReviewState;
 }
 
 /** One upload's progress (0..100) while it is sent, then the receipts the server made of it. */
@@ -73,7 +76,7 @@ export class ReceiptsApi {
 
   list(buildId: string, filter: ReceiptsFilter = {}): Observable<ReceiptSummaryDto[]> {
     let params = new HttpParams();
-    for (const key of ['state', 'vendor', 'from', 'to', 'systemId'] as const) {
+    for (const key of ['state', 'vendor', 'from', 'to', 'systemId', 'review'] as const) {
       const value = filter[key]?.trim();
       if (value) params = params.set(key, value);
     }
@@ -124,6 +127,11 @@ export class ReceiptsApi {
 
   reopen(buildId: string, receiptId: string): Observable<ReceiptDto> {
     return this.http.post<ReceiptDto>(`${receiptPath(buildId, receiptId)}/reopen`, {});
+  }
+
+  /** Says a likely duplicate is a separate purchase; answers the receipt as saved (its warning gone for that pair). */
+  notDuplicate(buildId: string, receiptId: string, request: NotDuplicateRequest): Observable<ReceiptDto> {
+    return this.http.post<ReceiptDto>(`${receiptPath(buildId, receiptId)}/not-duplicate`, request, handled([400]));
   }
 
   /** The reader's proposals for every line that takes a part or a system, best first, with reasons. */

@@ -1,6 +1,6 @@
 // A filed receipt's review in one panel: its state in words and icon, the comment thread, and the audit trail of
 // every money change (who, when, before → after); used on the Review screen and on the check screen.
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, output, signal, untracked } from '@angular/core';
 import { FormControl, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -13,12 +13,14 @@ import type { ReviewState } from '../../../../../shared/enums';
 import { toApiError } from '../../../core/http/api-error';
 import { MoneyPipe } from '../../../ui/money';
 import { auditEntry } from '../models/audit-text';
+import { REVIEW_STATE_ICONS } from '../models/review-state';
 import { ReviewApi } from '../services/review-api';
 
-const STATE_TEXT: Record<ReviewState, { icon: string; text: string }> = {
-  none: { icon: 'hourglass_empty', text: 'Not reviewed yet' },
-  approved: { icon: 'verified', text: 'Approved' },
-  questioned: { icon: 'help', text: 'Questioned' },
+const STATE_TEXT: Record<ReviewState, string> = {
+  none: 'Not reviewed yet',
+  approved: 'Approved',
+  questioned: 'Questioned',
+  answered: 'Answered, back for review',
 };
 
 /** When something happened, in the reader's own time zone and language. */
@@ -42,7 +44,7 @@ export function momentText(iso: string, locale: string): string {
       @let state = stateText();
       <p class="review-state" [class]="'review-state state-' + receipt().reviewState" role="status">
         <mat-icon aria-hidden="true">{{ state.icon }}</mat-icon>
-        @if (receipt().reviewState === 'questioned' && receipt().reviewComment) {
+        @if ((receipt().reviewState === 'questioned' || receipt().reviewState === 'answered') && receipt().reviewComment) {
           <span class="state-words"><strong>{{ state.text }}:</strong> {{ receipt().reviewComment }}</span>
         } @else {
           <span class="state-words"><strong>{{ state.text }}</strong></span>
@@ -54,7 +56,7 @@ export function momentText(iso: string, locale: string): string {
         <p class="notice notice-error" role="alert">{{ problem() }}</p>
       }
       @if (comments().length === 0) {
-        <p class="muted">No comments yet. Ask about a line or explain one below; whoever uploaded the receipt is told by e-mail.</p>
+        <p class="muted">No comments yet. Ask about a line or explain one below; whoever uploaded the receipt is told by e-mail, and a reply to a question sends it back for review.</p>
       } @else {
         <ol class="thread" aria-label="Comments">
           @for (comment of comments(); track comment.id) {
@@ -217,6 +219,8 @@ export class ReviewPanel {
   readonly receipt = input.required<ReceiptDto>();
   /** The build's systems, to name a line's system in the trail. */
   readonly systems = input<readonly SystemDto[]>([]);
+  /** A comment was posted: it may have answered a question, so the receipt's review state may have moved. */
+  readonly commented = output<void>();
 
   protected readonly comments = signal<CommentDto[]>([]);
   protected readonly events = signal<AuditEventDto[]>([]);
@@ -227,7 +231,7 @@ export class ReviewPanel {
 
   protected readonly currency = computed(() => this.receipt().currency);
   protected readonly locale = computed(() => this.receipt().locale || 'en-US');
-  protected readonly stateText = computed(() => STATE_TEXT[this.receipt().reviewState]);
+  protected readonly stateText = computed(() => ({ icon: REVIEW_STATE_ICONS[this.receipt().reviewState], text: STATE_TEXT[this.receipt().reviewState] }));
   /** Changes only with the receipt, its version or its verdict: a string, so an equal one does not reload. */
   private readonly loadKey = computed(() => {
     const receipt = this.receipt();
@@ -269,6 +273,7 @@ export class ReviewPanel {
         this.comments.update((comments) => [...comments, comment]);
         this.draft.reset();
         this.sending.set(false);
+        this.commented.emit();
       },
       error: (error: unknown) => {
         const apiError = toApiError(error);

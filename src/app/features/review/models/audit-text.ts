@@ -9,6 +9,8 @@ const ACTION_LABELS: Record<string, string> = {
   'receipt:file': 'Filed the receipt',
   'receipt:reopen': 'Reopened the receipt to change it',
   'receipt:review': 'Reviewed the receipt',
+  'receipt:answer': 'Answered the question',
+  'receipt:not_duplicate': 'Marked not a duplicate',
   'receipt_line:add': 'Added a line',
   'receipt_line:edit': 'Changed a line',
   'receipt_line:delete': 'Deleted a line',
@@ -37,6 +39,8 @@ const FIELD_LABELS: Record<string, string> = {
   dueDate: 'Due',
   shares: 'Shares',
   lines: 'Lines',
+  otherReceiptId: 'Of',
+  reason: 'Reason',
 };
 
 /** Fields in the order a receipt is read: the line, where it went, then the figures from subtotal down to total. */
@@ -96,6 +100,7 @@ function textOf(field: string, value: unknown, names: Record<string, string>, sy
   const text = String(value);
   if (field === 'systemId') return names[text] ?? systemName(text);
   if (field === 'partId') return names[text] ?? 'A part';
+  if (field === 'otherReceiptId') return names[text] ?? 'Another receipt';
   if (field === 'kind') return RECEIPT_LINE_KIND_LABELS[text as keyof typeof RECEIPT_LINE_KIND_LABELS] ?? text;
   if (field === 'reviewState') return REVIEW_STATE_LABELS[text as keyof typeof REVIEW_STATE_LABELS] ?? text;
   if (field === 'state') return CORE_STATE_LABELS[text as keyof typeof CORE_STATE_LABELS] ?? text;

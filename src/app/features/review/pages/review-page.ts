@@ -23,9 +23,10 @@ import { SystemsApi } from '../../parts/services/systems-api';
 import { ReceiptPages } from '../../receipts/components/receipt-pages';
 import { ReceiptsApi } from '../../receipts/services/receipts-api';
 import { ReviewPanel } from '../components/review-panel';
-import { ReviewApi } from '../services/review-api';
+import { ReviewApi, type ReviewResult } from '../services/review-api';
+import { ReviewVerdict, type Verdict } from '../components/review-verdict/review-verdict';
+import { REVIEW_STATE_ICONS } from '../models/review-state';
 
-const STATE_ICONS: Record<ReviewState, string> = { none: 'hourglass_empty', approved: 'verified', questioned: 'help' };
 
 @Component({
   selector: 'th-review-page',
@@ -42,6 +43,7 @@ const STATE_ICONS: Record<ReviewState, string> = { none: 'hourglass_empty', appr
     MoneyPipe,
     ReceiptPages,
     ReviewPanel,
+    ReviewVerdict,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
@@ -135,30 +137,7 @@ const STATE_ICONS: Record<ReviewState, string> = { none: 'hourglass_empty', appr
               }
 
               @if (canReview() && receipt.state === 'filed') {
-                <div class="verdict" role="group" aria-label="Verdict">
-                  <button mat-flat-button class="cta" type="button" (click)="approve()" [disabled]="busy()">
-                    <mat-icon aria-hidden="true">verified</mat-icon> Approve
-                  </button>
-                  <button mat-stroked-button type="button" (click)="startQuestion()" [disabled]="busy()" [attr.aria-expanded]="asking()">
-                    <mat-icon aria-hidden="true">help</mat-icon> Question
-                  </button>
-                </div>
-                @if (asking()) {
-                  <form class="question" (submit)="sendQuestion($event)" novalidate>
-                    <mat-form-field subscriptSizing="dynamic" class="question-field">
-                      <mat-label>What is the question?</mat-label>
-                      <textarea matInput [formControl]="question" rows="3" required></textarea>
-                      <mat-hint>Whoever uploaded the receipt is told by e-mail.</mat-hint>
-                      @if (questionError()) {
-                        <mat-error>{{ questionError() }}</mat-error>
-                      }
-                    </mat-form-field>
-                    <div class="form-actions">
-                      <button mat-flat-button type="submit" [disabled]="busy()">Send question</button>
-                      <button mat-button type="button" (click)="asking.set(false)">Cancel</button>
-                    </div>
-                  </form>
-                }
+                <th-review-verdict [buildId]="buildId()" [receipt]="receipt" (decided)="decided(receipt, $event)" (stale)="stale(receipt.id)" />
               }
 
               <div class="receipt-body">
@@ -368,18 +347,6 @@ const STATE_ICONS: Record<ReviewState, string> = { none: 'hourglass_empty', appr
     .figures .total {
       font-weight: 700;
     }
-    .verdict {
-      display: flex;
-      flex-wrap: wrap;
-      gap: 12px;
-      margin-bottom: 16px;
-    }
-    .question {
-      margin-bottom: 16px;
-    }
-    .question-field {
-      width: 100%;
-    }
     /* The lines come first (they are what is reviewed); the slip sits beside them only where both fit. */
     .receipt-body {
       display: grid;
@@ -484,7 +451,7 @@ export class ReviewPage {
 
   protected readonly kindLabels = RECEIPT_LINE_KIND_LABELS;
   protected readonly reviewLabels = REVIEW_STATE_LABELS;
-  protected readonly stateIcons = STATE_ICONS;
+  protected readonly stateIcons = REVIEW_STATE_ICONS;
 
   protected readonly queue = signal<ReceiptSummaryDto[]>([]);
   protected readonly systems = signal<SystemDto[]>([]);
@@ -493,14 +460,10 @@ export class ReviewPage {
   protected readonly showReviewed = signal(false);
   protected readonly loading = signal(false);
   protected readonly loaded = signal(false);
-  protected readonly busy = signal(false);
-  protected readonly asking = signal(false);
   protected readonly problem = signal('');
   protected readonly message = signal('');
-  protected readonly questionError = signal('');
   protected readonly activeLineId = signal<string | null>(null);
   protected readonly noImage = signal<ReadonlySet<string>>(new Set());
-  protected readonly question = new FormControl('', { nonNullable: true });
 
   protected readonly currency = computed(() => this.receipt()?.currency ?? this.current.build()?.currency ?? '');
   protected readonly locale = computed(() => this.receipt()?.locale ?? this.current.build()?.locale ?? 'en-US');
@@ -549,9 +512,6 @@ export class ReviewPage {
 
   protected select(receiptId: string): void {
     this.selectedId.set(receiptId);
-    this.asking.set(false);
-    this.question.reset();
-    this.questionError.set('');
     this.activeLineId.set(null);
     this.receipt.set(null);
     this.receiptsApi.get(this.buildId(), receiptId).subscribe({
@@ -562,61 +522,15 @@ export class ReviewPage {
     });
   }
 
-  protected approve(): void {
-    this.message.set('');
-    this.verdict('approved', '');
+  protected decided(receipt: ReceiptDto, result: ReviewResult & { verdict: Verdict }): void {
+    const name = receipt.vendorName || receipt.originalFilename;
+    this.message.set(`${result.verdict === 'approved' ? 'Approved' : 'Questioned'}: ${name}${receipt.purchaseDate ? ' of ' + this.dateText(receipt.purchaseDate) : ''}.`);
+    this.afterVerdict(receipt.id, result.reviewState, result.version);
   }
 
-  protected startQuestion(): void {
-    this.message.set('');
-    this.asking.set(true);
-  }
-
-  protected sendQuestion(event: Event): void {
-    event.preventDefault();
-    const receipt = this.receipt();
-    if (!receipt) return;
-    const parsed = reviewRequest.safeParse({ verdict: 'questioned', comment: this.question.value, version: receipt.version });
-    if (!parsed.success) {
-      this.showQuestionError(parsed.error.issues[0]?.message ?? 'Say what the question is.');
-      return;
-    }
-    this.verdict('questioned', parsed.data.comment);
-  }
-
-  private showQuestionError(message: string): void {
-    this.questionError.set(message);
-    this.question.setErrors({ message });
-    this.question.markAsTouched();
-  }
-
-  private verdict(verdict: 'approved' | 'questioned', comment: string): void {
-    const receipt = this.receipt();
-    if (!receipt) return;
-    this.busy.set(true);
-    this.problem.set('');
-    this.reviewApi.review(this.buildId(), receipt.id, { verdict, comment, version: receipt.version }).subscribe({
-      next: (result) => {
-        this.busy.set(false);
-        this.asking.set(false);
-        this.question.reset();
-        const name = receipt.vendorName || receipt.originalFilename;
-        this.message.set(`${verdict === 'approved' ? 'Approved' : 'Questioned'}: ${name}${receipt.purchaseDate ? ' of ' + this.dateText(receipt.purchaseDate) : ''}.`);
-        this.afterVerdict(receipt.id, result.reviewState, result.version);
-      },
-      error: (error: unknown) => {
-        this.busy.set(false);
-        const apiError = toApiError(error);
-        if (apiError.status === 409) {
-          this.problem.set('Someone changed this receipt meanwhile. It is shown as saved now: look at it again before you decide.');
-          this.loadQueue(receipt.id);
-        } else if (apiError.status === 400 && apiError.fields['comment']) {
-          this.showQuestionError(apiError.fields['comment']);
-        } else {
-          this.problem.set(Object.values(apiError.fields)[0] ?? apiError.message);
-        }
-      },
-    });
+  protected stale(receiptId: string): void {
+    this.problem.set('Someone changed this receipt meanwhile. It is shown as saved now: look at it again before you decide.');
+    this.loadQueue(receiptId);
   }
 
   /** The receipt leaves the queue (or shows its new state among the reviewed) and the next one opens. */
@@ -627,7 +541,7 @@ export class ReviewPage {
       ? list.map((item) => (item.id === receiptId ? { ...item, reviewState, version } : item))
       : list.filter((item) => item.id !== receiptId);
     this.queue.set(remaining);
-    const waiting = remaining.filter((item) => item.reviewState === 'none');
+    const waiting = remaining.filter((item) => item.reviewState === 'none' || item.reviewState === 'answered');
     const next = waiting.find((item) => remaining.indexOf(item) >= index) ?? waiting[0];
     if (next) this.select(next.id);
     else if (this.showReviewed()) this.select(receiptId);
