@@ -99,6 +99,8 @@ whenPresent('20 real scans read end to end (tesseract.js, the image preparation,
   });
 });
 
-// Measured on the sample (receipts 000, 010, ... 190): 17 totals and 15 dates right; see the bench's real-receipt section for the whole set.
-const TOTAL_FLOOR = 17;
-const DATE_FLOOR = 15;
+// Measured on the sample (receipts 000, 010, ... 190): 16 totals and 18 dates right (with the straightened picture and
+// the summary-band second look; before them 17 and 15, while the whole set went from 81.5 % to 85 % of totals); see
+// the bench's real-receipt section for the whole set.
+const TOTAL_FLOOR = 16;
+const DATE_FLOOR = 18;

@@ -18,6 +18,14 @@ describe('readAmount', () => {
   });
 
   it.each([
+    ['51..75', '51.75'],
+    ['12,,50', '12.50'],
+    ['$9..80', '9.80'],
+  ])('reads a doubled decimal point in %s as one, a little less sure', (token, value) => {
+    expect(readAmount(token)).toEqual(expect.objectContaining({ value, confidence: 0.8 }));
+  });
+
+  it.each([
     ['1,234.56', '1234.56'],
     ['$1,234,567.89', '1234567.89'],
     ['1.234,56', '1234.56'],

@@ -152,6 +152,11 @@ export function readAmount(token: string, options: AmountOptions = {}): ReadAmou
   const allDigits = (fixed.match(/[0-9]/g) ?? []).length;
   if (realDigits * 2 < allDigits) return null;
 
+  // A point read twice before the decimals ("51..75", "12,,50"): one separator, a little less sure.
+  if (/[0-9]([.,])\1[0-9]+$/.test(fixed)) {
+    fixed = fixed.replace(/([.,])\1(?=[0-9]+$)/, '$1');
+    confidence = Math.min(confidence, 0.8);
+  }
   const digits = normaliseSeparators(fixed, requireDecimals, minorUnits, options.decimalComma ?? false);
   if (digits === null) return null;
   if (digits.commaDecimal && !options.decimalComma) confidence = Math.min(confidence, 0.85);

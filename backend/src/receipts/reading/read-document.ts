@@ -5,6 +5,7 @@ import { minorUnits } from '../../../../shared/money';
 import { OcrPool, modelFor } from './ocr';
 import { parseReceipt } from './parse-receipt';
 import { readPdfPages } from './pdf-text';
+import { rereadSummaryBand } from './second-look';
 import { sniffReceiptType } from './sniff';
 import type { TextPage } from './text-lines';
 
@@ -61,12 +62,14 @@ export interface DocumentRead {
   images: Array<NormalisedImage | null>;
 }
 
-/** Row height of the print for the second look: larger than the first, which is what small faint print needs. */
-const SECOND_LOOK_ROW_HEIGHT = 44;
-
 /** A reading is consistent when the receipt's own arithmetic agreed on its total. */
 function consistent(reading: ReadReceipt): boolean {
   return reading.total.value !== null && (reading.agreements ?? []).some((fact) => !fact.startsWith('it is printed'));
+}
+
+/** The item lines add up to the subtotal or the total. */
+function linesAddUp(reading: ReadReceipt): boolean {
+  return (reading.agreements ?? []).some((fact) => fact.startsWith('the lines'));
 }
 
 export async function readDocument(bytes: Buffer, options: ReadOptions = {}): Promise<ReadReceipt> {
@@ -104,9 +107,12 @@ export async function readDocumentWithImages(bytes: Buffer, options: ReadOptions
   const first = await pool.read(image.png, 0);
   const page = (lines: TextPage['lines']): TextPage => ({ width: image.width, height: image.height, source: 'ocr', lines });
   const reading = parseReceipt([page(first.lines)], parseOptions);
-  if (consistent(reading)) return { reading, images: [image] };
-  // A second look, only when the first reading's figures do not agree: the print larger, read as one column.
-  const larger = await normaliseImage(bytes, type, { rowHeight: SECOND_LOOK_ROW_HEIGHT });
-  const second = parseReceipt([{ width: larger.width, height: larger.height, source: 'ocr', lines: (await pool.read(larger.png, 0, true)).lines }], parseOptions);
-  return consistent(second) ? { reading: second, images: [larger] } : { reading, images: [image] };
+  if (consistent(reading) && linesAddUp(reading)) return { reading, images: [image] };
+  // A second look, only when the first reading's figures do not agree: the band of summary lines read again, larger
+  // (from the first item line when the lines did not add up). Taken only when it agrees better.
+  const lines = await rereadSummaryBand(pool, image, first.lines, !linesAddUp(reading));
+  if (!lines) return { reading, images: [image] };
+  const second = parseReceipt([page(lines)], parseOptions);
+  const better = consistent(second) && (!consistent(reading) || linesAddUp(second));
+  return { reading: better ? second : reading, images: [image] };
 }

@@ -14,9 +14,12 @@ export interface VendorLine {
   hasAmount: boolean;
 }
 
-/** Legal-form suffixes of businesses (common practice for en/ms; memory for the others). */
+/**
+ * Legal-form suffixes of businesses (common practice for en/ms; memory for the others). "SDN BHD" is also matched as
+ * OCR misreads it in receipt print, B as 8 and D as O ("SDN 8HD", "SON BHD"): common OCR confusions.
+ */
 const BUSINESS_SUFFIX =
-  /(?:^|[\s(.,])(SDN\.?\s*BHD|S\/B|S\.?\s?B\.?$|BHD|BERHAD|ENTERPRISE|TRADING|INC|LLC|L\.L\.C|LTD|LIMITED|PLC|CORP|CORPORATION|CO\.|COMPANY|PTY|GMBH|AG|KG|OHG|E\.K|S\.A\.?|S\.A\.S|SAS|SARL|S\.L\.?|S\.R\.L\.?|SRL|S\.P\.A\.?|SPA|SNC|B\.V\.?|BV|N\.V\.?|V\.O\.F|LDA|LTDA|SDN)(?=$|[\s).,])/i;
+  /(?:^|[\s(.,])(S[DO0]N\.?\s*[B8]HD|S\/B|S\.?\s?B\.?$|[B8]HD|BERHAD|ENTERPRISE|TRADING|INC|LLC|L\.L\.C|LTD|LIMITED|PLC|CORP|CORPORATION|CO\.|COMPANY|PTY|GMBH|AG|KG|OHG|E\.K|S\.A\.?|S\.A\.S|SAS|SARL|S\.L\.?|S\.R\.L\.?|SRL|S\.P\.A\.?|SPA|SNC|B\.V\.?|BV|N\.V\.?|V\.O\.F|LDA|LTDA|SDN)(?=$|[\s).,])/i;
 /** Words of addresses, phones, tax ids and receipt headings: such a line is not the shop's name (common practice / memory). */
 const NOT_A_NAME_WORDS = [
   'JALAN', 'JLN', 'LORONG', 'TAMAN', 'LOT', 'ROAD', 'STREET', 'AVENUE', 'LANE', 'DRIVE', 'SUITE', 'FLOOR', 'BLOCK', 'UNIT', 'STRASSE', 'STR', 'PLATZ', 'RUE', 'AVENIDA', 'CALLE', 'PLAZA', 'VIA', 'VIALE', 'PIAZZA', 'STRAAT', 'PLEIN', 'RUA', 'TRAVESSA',

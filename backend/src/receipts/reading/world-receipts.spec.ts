@@ -156,6 +156,25 @@ describe('amounts as printed around the world', () => {
     const receipt = read(['KEDAI SETIA', 'FIUS 10A  64.13', 'TOTAL RM 64 13'], 'en-MY');
     expect(receipt.total.value).toBe('64.13');
   });
+
+  it.each([
+    ['SDN 8HD', 'KEDAI SETIA SDN 8HD'],
+    ['8HD', 'KEDAI SETIA 8HD'],
+  ])('knows the legal form "SDN BHD" as OCR misreads it (%s), so the name beats a handwritten line above it', (_, name) => {
+    const receipt = read(['ali bin abu', `${name} (12345-X)`, 'NO 5 JALAN MAWAR', 'TOTAL RM 9.00'], 'en-MY');
+    expect(receipt.vendor.value).toBe(name);
+  });
+
+  it('joins a decimal point OCR read but parted from its decimals, even beside a unit price ("17.25  51.. 75")', () => {
+    const receipt = read(['HOSE SHOP', 'UPPER HOSE  3  17.25  51.. 75', 'LOWER HOSE  1  12.00  12. 00', 'TOTAL  63.75'], 'en-US');
+    expect(parts(receipt)).toEqual(['51.75', '12.00']);
+    expect(receipt.total.value).toBe('63.75');
+  });
+
+  it('leaves two bare numbers beside a well-read amount apart: a quantity and a code, not lost decimals', () => {
+    const receipt = read(['HOSE SHOP', 'CLAMP 12.00  3 15', 'TOTAL  12.00'], 'en-US');
+    expect(parts(receipt)).toEqual(['12.00']);
+  });
 });
 
 describe('dates that can be true', () => {
