@@ -79,20 +79,22 @@ function tokenize(line: TextLine, options: AmountOptions): Token[] {
 /**
  * OCR often reads a faint decimal point as a space: "RM 64 13", "14 00" at the end of a line are 64.13 and 14.00.
  * Only a whole number followed by the currency's exact count of decimals, ending the line, is joined, a little less sure.
- * A point that was read but split from its decimals ("51.. 75", "51. 75") is joined even beside other amounts.
+ * A point that was read but split from its number ("51.. 75", "51. 75", "27 .99-") is joined even beside other amounts.
  */
 function joinLostDecimalPoint(tokens: Token[], options: AmountOptions): Token[] {
   const decimals = options.minorUnits ?? 2;
   const last = tokens.length - 1;
   if (decimals === 0 || last < 1) return tokens;
   const [whole, fraction] = [tokens[last - 1], tokens[last]];
-  if (whole.amount || !new RegExp(`^[0-9]{${decimals}}$`).test(fraction.text)) return tokens;
+  // The decimals, with the point when it was read before them (" .99-"), and a trailing minus or marker kept.
+  const tail = new RegExp(`^([.,]?)([0-9]{${decimals}})([-~_]*)$`).exec(fraction.text);
+  if (whole.amount || !tail) return tokens;
   const mark = /^(.*?)([0-9]{1,4})([.,]{0,2})$/.exec(whole.text);
   if (!mark || (mark[1] !== '' && !currencyMark(mark[1]))) return tokens;
   // With no point read, only where the line has no other amount: beside a well-read one, two numbers are more likely
   // something else (a quantity and a code).
-  if (mark[3] === '' && tokens.some((token) => token.amount)) return tokens;
-  const joined = makeToken(`${mark[1]}${mark[2]}.${fraction.text}`, [...whole.words, ...fraction.words], options);
+  if (mark[3] === '' && tail[1] === '' && tokens.some((token) => token.amount)) return tokens;
+  const joined = makeToken(`${mark[1]}${mark[2]}.${tail[2]}${tail[3]}`, [...whole.words, ...fraction.words], options);
   if (!joined.amount) return tokens;
   joined.amount = { ...joined.amount, confidence: Math.min(joined.amount.confidence, 0.6) };
   return [...tokens.slice(0, last - 1), joined];

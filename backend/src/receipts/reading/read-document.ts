@@ -5,7 +5,7 @@ import { minorUnits } from '../../../../shared/money';
 import { OcrPool, modelFor } from './ocr';
 import { parseReceipt } from './parse-receipt';
 import { readPdfPages } from './pdf-text';
-import { rereadSummaryBand } from './second-look';
+import { BAND_SCALES, rereadSummaryBand } from './second-look';
 import { sniffReceiptType } from './sniff';
 import type { TextPage } from './text-lines';
 
@@ -108,11 +108,13 @@ export async function readDocumentWithImages(bytes: Buffer, options: ReadOptions
   const page = (lines: TextPage['lines']): TextPage => ({ width: image.width, height: image.height, source: 'ocr', lines });
   const reading = parseReceipt([page(first.lines)], parseOptions);
   if (consistent(reading) && linesAddUp(reading)) return { reading, images: [image] };
-  // A second look, only when the first reading's figures do not agree: the band of summary lines read again, larger
-  // (from the first item line when the lines did not add up). Taken only when it agrees better.
-  const lines = await rereadSummaryBand(pool, image, first.lines, !linesAddUp(reading));
-  if (!lines) return { reading, images: [image] };
-  const second = parseReceipt([page(lines)], parseOptions);
-  const better = consistent(second) && (!consistent(reading) || linesAddUp(second));
-  return { reading: better ? second : reading, images: [image] };
+  // A second look, only when the first reading's figures do not agree: the band of summary lines read again at
+  // another size (from the first item line when the lines did not add up). Taken only when it agrees better.
+  for (const scale of BAND_SCALES) {
+    const lines = await rereadSummaryBand(pool, image, first.lines, !linesAddUp(reading), scale);
+    if (!lines) break;
+    const second = parseReceipt([page(lines)], parseOptions);
+    if (consistent(second) && (!consistent(reading) || linesAddUp(second))) return { reading: second, images: [image] };
+  }
+  return { reading, images: [image] };
 }

@@ -8,8 +8,11 @@ import type { NormalisedImage } from './normalise';
 import type { OcrPool } from './ocr';
 import type { TextLine } from './text-lines';
 
-/** How much larger the band is read than the page: small faint points and digits need the extra pixels. */
-const BAND_SCALE = 1.5;
+/**
+ * The sizes the band is read at, relative to the page, in turn until one agrees: larger first (small faint points
+ * and digits need the pixels), then a little smaller (noisy print breaks up less), which gives other OCR errors.
+ */
+export const BAND_SCALES = [1.5, 0.875];
 
 /** Lines whose words before any digit read as a summary label. */
 function summaryLines(lines: TextLine[]): TextLine[] {
@@ -27,7 +30,7 @@ function summaryLines(lines: TextLine[]): TextLine[] {
 }
 
 /** The page's lines with those of its summary band read again; null when no line reads as a summary label. */
-export async function rereadSummaryBand(pool: OcrPool, image: NormalisedImage, lines: TextLine[], withItems: boolean): Promise<TextLine[] | null> {
+export async function rereadSummaryBand(pool: OcrPool, image: NormalisedImage, lines: TextLine[], withItems: boolean, scale: number): Promise<TextLine[] | null> {
   const sums = summaryLines(lines);
   if (sums.length === 0) return null;
   const rowHeight = Math.max(...sums.map((line) => line.box.h));
@@ -38,12 +41,12 @@ export async function rereadSummaryBand(pool: OcrPool, image: NormalisedImage, l
   if (bottom - top < rowHeight) return null;
   const band = await sharp(image.png)
     .extract({ left: 0, top, width: image.width, height: bottom - top })
-    .resize({ width: Math.round(image.width * BAND_SCALE), kernel: 'lanczos3' })
+    .resize({ width: Math.round(image.width * scale), kernel: 'lanczos3' })
     .png({ compressionLevel: 1 })
     .toBuffer();
   const reread = (await pool.read(band, 0)).lines.map((line) => ({
-    words: line.words.map((word) => ({ ...word, box: { ...word.box, x: Math.round(word.box.x / BAND_SCALE), y: Math.round(word.box.y / BAND_SCALE) + top, w: Math.round(word.box.w / BAND_SCALE), h: Math.round(word.box.h / BAND_SCALE) } })),
-    box: { ...line.box, x: Math.round(line.box.x / BAND_SCALE), y: Math.round(line.box.y / BAND_SCALE) + top, w: Math.round(line.box.w / BAND_SCALE), h: Math.round(line.box.h / BAND_SCALE) },
+    words: line.words.map((word) => ({ ...word, box: { ...word.box, x: Math.round(word.box.x / scale), y: Math.round(word.box.y / scale) + top, w: Math.round(word.box.w / scale), h: Math.round(word.box.h / scale) } })),
+    box: { ...line.box, x: Math.round(line.box.x / scale), y: Math.round(line.box.y / scale) + top, w: Math.round(line.box.w / scale), h: Math.round(line.box.h / scale) },
   }));
   const middle = (line: TextLine) => line.box.y + line.box.h / 2;
   const outside = lines.filter((line) => middle(line) < top || middle(line) > bottom);
