@@ -23,7 +23,7 @@ beforeAll(async () => {
   // Counts what reaches the object store, so a refused or repeated upload is seen to store no document.
   stored = jest.spyOn(t.store, 'put');
 });
-afterAll(() => t.close());
+afterAll(() => t?.close());
 beforeEach(() => stored.mockClear());
 
 function upload(client: ApiClient, buildId: string, key: string | undefined, bytes = SLIP) {
