@@ -59,7 +59,7 @@ it('keeps two photos taken without signal through a reload and sends each once w
   const receiptsUrl = `${t.url}/builds/${build.id}/receipts`;
   const bigPhoto = await phonePhoto();
 
-  const page = await newPage(browser, { phone: true });
+  const page = await newPage(browser, { phone: true, serviceWorkers: true });
   await signIn(page, t.url, owner.email);
   await page.goto(receiptsUrl);
   await page.getByRole('heading', { name: 'No receipts yet' }).waitFor();

@@ -24,8 +24,13 @@ export async function launchBrowser(): Promise<Browser> {
   });
 }
 
-export async function newPage(browser: Browser, options: { phone?: boolean } = {}): Promise<Page> {
+/**
+ * `serviceWorkers: true` lets the app's service worker install (the offline tests). Otherwise it is blocked: each fresh
+ * context would download and hash every chunk for it, which slows the other tests on a busy machine and is not theirs.
+ */
+export async function newPage(browser: Browser, options: { phone?: boolean; serviceWorkers?: boolean } = {}): Promise<Page> {
   const context = await browser.newContext({
+    serviceWorkers: options.serviceWorkers ? 'allow' : 'block',
     reducedMotion: 'reduce',
     viewport: options.phone ? { width: 390, height: 844 } : { width: 1280, height: 860 },
     deviceScaleFactor: 1,
