@@ -9,6 +9,9 @@ import { UploadKey } from '../../backend/src/receipts/upload-key.entity';
 import { NEW_BUILD, signedUpClient, type ApiClient } from '../support/api-client';
 import { startTestApp, type TestApp } from '../support/test-app';
 
+// Starting the app (PostgreSQL, the S3 fake, the queue) takes longer than jest's 5 s when the machine is busy.
+jest.setTimeout(60_000);
+
 const FIXTURES = path.resolve(__dirname, '../fixtures/receipts/generated');
 const SLIP = readFileSync(path.join(FIXTURES, 'counter-1.png'));
 const OTHER_SLIP = readFileSync(path.join(FIXTURES, 'core-1.png'));
@@ -20,7 +23,7 @@ beforeAll(async () => {
   // Counts what reaches the object store, so a refused or repeated upload is seen to store no document.
   stored = jest.spyOn(t.store, 'put');
 });
-afterAll(() => t.close());
+afterAll(() => t?.close());
 beforeEach(() => stored.mockClear());
 
 function upload(client: ApiClient, buildId: string, key: string | undefined, bytes = SLIP) {
