@@ -4,7 +4,7 @@
 // Every step that tells someone arrives as mail through the fake SMTP server.
 import type { Browser, Page } from 'playwright-core';
 import { NEW_BUILD, signedUpClient } from '../support/api-client';
-import { accessibilityViolations, launchBrowser, newPage, screenshot, signIn } from '../support/browser';
+import { accessibilityViolations, launchBrowser, newPage, screenshot, sidewaysScroll, signIn } from '../support/browser';
 import { joinByInvite } from '../support/crew';
 import { filedReceipt } from '../support/receipts';
 import { startTestApp, type TestApp } from '../support/test-app';
@@ -53,12 +53,16 @@ it('closes the loop: approve and question on the receipt page, answer, the answe
   await reviewState(partnerPage).filter({ hasText: 'Questioned: Is this thermostat the 82 °C one?' }).waitFor();
   expect((await mailTo(crew.email, 'commented')).text).toContain('Is this thermostat the 82 °C one?');
 
-  // The builder's Overview lists the question as a task; it opens the receipts filtered to it, and a comment answers it.
-  const builderPage = await newPage(browser);
+  // The builder, on a phone: the Overview lists the question as a task; it opens the receipts filtered to it (the review
+  // state in an icon and a word, nothing scrolling sideways), and a comment answers it.
+  const builderPage = await newPage(browser, { phone: true });
   await signIn(builderPage, t.url, crew.email);
   await builderPage.goto(`${t.url}/builds/${build.id}`);
   await builderPage.getByRole('link', { name: '1 question to answer' }).click();
   await builderPage.waitForURL(/\/receipts\?review=questioned$/);
+  await builderPage.locator('.review').filter({ hasText: 'Questioned' }).waitFor();
+  await expect(sidewaysScroll(builderPage)).resolves.toEqual({ page: false, regions: [] });
+  await screenshot(builderPage, 'review-loop-questions-phone');
   await builderPage.getByRole('link', { name: /Quayside Parts Counter/ }).click();
   await builderPage.getByRole('textbox', { name: 'Add a comment' }).fill('Yes: the 82 °C one, for the stock radiator.');
   await builderPage.getByRole('button', { name: 'Post comment' }).click();
