@@ -30,8 +30,11 @@ afterAll(async () => {
 
 async function assignSystem(page: Page, lineNumber: number, system: string) {
   const saved = page.waitForResponse((response) => response.request().method() === 'PATCH' && response.url().includes('/lines/'));
-  await page.getByRole('combobox', { name: `System for line ${lineNumber}` }).click();
-  await page.getByRole('option', { name: system, exact: true }).click();
+  // One assign field per line: typing the system's name narrows the list to it under "A system only".
+  const field = page.getByRole('combobox', { name: `Assign line ${lineNumber}: type a part, a part number or a system` });
+  await field.click();
+  await field.fill(system);
+  await page.getByRole('group', { name: 'A system only' }).getByRole('option', { name: system, exact: true }).click();
   expect((await saved).status()).toBe(200);
 }
 
