@@ -6,6 +6,7 @@ import path from 'node:path';
 import type { Agent } from 'supertest';
 import { Receipt } from '../../backend/src/receipts/receipt.entity';
 import { UploadKey } from '../../backend/src/receipts/upload-key.entity';
+import { KEY_LIFETIME_HOURS } from '../../backend/src/receipts/upload-idempotency';
 import { NEW_BUILD, signedUpClient, type ApiClient } from '../support/api-client';
 import { startTestApp, type TestApp } from '../support/test-app';
 
@@ -113,6 +114,19 @@ it.each([
   expect(await receiptsOf(buildId)).toBe(0);
   expect(await keysOf(buildId)).toBe(0);
   expect(stored).not.toHaveBeenCalled();
+});
+
+it('forgets a key after its lifetime: the same key then starts afresh, even with another file', async () => {
+  const { client, buildId } = await ownerWithBuild('key-expiry');
+  const first = await upload(client, buildId, 'capture-expiry-1');
+  expect(first.status).toBe(201);
+  // Made older than the lifetime (KEY_LIFETIME_HOURS) by moving its creation back.
+  await t.orm.em.fork().getConnection().execute(`update upload_key set created_at = now() - make_interval(hours => ?) where build_id = ?`, [KEY_LIFETIME_HOURS + 1, buildId]);
+  const later = await upload(client, buildId, 'capture-expiry-1', OTHER_SLIP);
+  expect(later.status).toBe(201);
+  expect(later.body.receipts[0].id).not.toBe(first.body.receipts[0].id);
+  expect(await receiptsOf(buildId)).toBe(2);
+  expect(await keysOf(buildId)).toBe(1);
 });
 
 it('takes a key of exactly 255 printable characters', async () => {

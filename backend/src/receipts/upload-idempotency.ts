@@ -10,6 +10,12 @@ import { AppError, ValidationFailed } from '../http/errors';
 
 export const IDEMPOTENCY_HEADER = 'Idempotency-Key';
 const MAX_KEY_LENGTH = 255;
+/**
+ * A key is kept this long (the draft leaves the expiry to the server and suggests a day or so): long enough for a
+ * phone to come back into signal after a day at a junkyard, short enough that the table stays small. After it, the
+ * same key starts afresh.
+ */
+export const KEY_LIFETIME_HOURS = 72;
 
 /**
  * The key of the request, or undefined when it has none (an upload without a key works as before). The draft sends
@@ -43,6 +49,8 @@ export type UploadClaim = { claimed: true; keyId: string } | { claimed: false; r
  */
 export async function claimUploadKey(em: EntityManager, build: Build, user: User, key: string, contentSha256: string): Promise<UploadClaim> {
   const keyId = randomUUID();
+  // The person's expired keys go first (their own rows only, so two people never wait on each other here).
+  await em.execute(`delete from upload_key where user_id = ? and created_at < now() - make_interval(hours => ?)`, [user.id, KEY_LIFETIME_HOURS]);
   const inserted: unknown[] = await em.execute(
     `insert into upload_key (id, build_id, user_id, key, content_sha256) values (?, ?, ?, ?, ?)
      on conflict (build_id, user_id, key) do nothing returning id`,
