@@ -58,6 +58,18 @@ describe('BuildForm', () => {
     TestBed.inject(HttpTestingController).verify();
   });
 
+  it('picks the language and region from a list named in each language, and says how amounts will look', async () => {
+    await render(BuildForm, { providers });
+    const user = userEvent.setup();
+    const locale = screen.getByRole('combobox', { name: 'Language and region' });
+    expect(describedText(locale)).toBe('American English: dates and amounts are shown this way');
+    await user.clear(locale);
+    await user.type(locale, 'brasil');
+    await user.click(await screen.findByRole('option', { name: 'pt-BR · português (Brasil)' }));
+    expect((locale as HTMLInputElement).value).toBe('pt-BR');
+    expect(describedText(locale)).toBe('português (Brasil): dates and amounts are shown this way');
+  });
+
   it('creates a build, sending the dates typed in as YYYY-MM-DD', async () => {
     await render(BuildForm, { providers });
     const user = userEvent.setup();

@@ -17,6 +17,7 @@ import { BUILD_STATUSES, BUILD_STATUS_LABELS, BuildStatus } from '../../../../..
 import { applyFieldErrors, errorOf, validateWith } from '../../../core/forms/form-errors';
 import { toApiError } from '../../../core/http/api-error';
 import { currencyName, filterCurrencies } from '../models/currencies';
+import { filterLocales, localeName, localeOptions } from '../models/locales';
 import { BuildsApi } from '../services/builds-api';
 import { CurrentBuild } from '../services/current-build';
 
@@ -74,8 +75,13 @@ import { CurrentBuild } from '../services/current-build';
 
         <mat-form-field subscriptSizing="dynamic">
           <mat-label>Language and region</mat-label>
-          <input matInput formControlName="locale" autocomplete="off" />
-          <mat-hint>For dates and amounts, such as en-US or en-GB</mat-hint>
+          <input matInput formControlName="locale" [matAutocomplete]="localePicker" autocomplete="off" />
+          <mat-autocomplete #localePicker="matAutocomplete">
+            @for (option of localeChoices(); track option.tag) {
+              <mat-option [value]="option.tag">{{ option.tag }} · {{ option.name }}</mat-option>
+            }
+          </mat-autocomplete>
+          <mat-hint>{{ localeHint() }}</mat-hint>
           <mat-error>{{ errorOf(form.controls.locale) }}</mat-error>
         </mat-form-field>
 
@@ -193,6 +199,20 @@ export class BuildForm {
     const code = (this.currencyTyped() ?? '').trim().toUpperCase();
     const name = currencyName(code);
     return name !== code ? name : 'ISO 4217 code, such as USD or EUR';
+  });
+
+  /** The person's own browser languages first. */
+  private readonly locales = localeOptions(typeof navigator === 'undefined' ? [] : navigator.languages);
+  private readonly localeTyped = toSignal(this.form.controls.locale.valueChanges, { initialValue: 'en-US' });
+  protected readonly localeChoices = computed(() => {
+    const typed = (this.localeTyped() ?? '').trim();
+    // A whole known tag in the field offers the full list again, as the currency does.
+    return filterLocales(this.locales, this.locales.some((option) => option.tag === typed) ? '' : typed);
+  });
+  protected readonly localeHint = computed(() => {
+    const typed = (this.localeTyped() ?? '').trim();
+    const name = typed ? localeName(typed) : typed;
+    return name && name !== typed ? `${name}: dates and amounts are shown this way` : 'For dates and amounts, such as en-US or en-GB';
   });
 
   constructor() {
