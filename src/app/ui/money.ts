@@ -21,6 +21,18 @@ export function moneyText(amount: string | Decimal | null | undefined, currency:
   }
 }
 
+/** The currency's sign in this locale ("$", "€", "RM"...) and whether the locale writes it before the figure. */
+export function currencySign(currency: string, locale: string): { sign: string; before: boolean } {
+  try {
+    const parts = new Intl.NumberFormat(locale || 'en-US', { style: 'currency', currency }).formatToParts(1);
+    const at = parts.findIndex((part) => part.type === 'currency');
+    const number = parts.findIndex((part) => part.type === 'integer');
+    return { sign: parts[at]?.value ?? currency, before: at < number };
+  } catch {
+    return { sign: currency, before: false };
+  }
+}
+
 @Pipe({ name: 'money' })
 export class MoneyPipe implements PipeTransform {
   transform(amount: string | Decimal | null | undefined, currency: string, locale: string, maxDecimals?: number): string {

@@ -18,7 +18,7 @@ import { applyFieldErrors, errorOf, validateWith } from '../../../core/forms/for
 import { toApiError } from '../../../core/http/api-error';
 import { confirmAction } from '../../../ui/confirm-dialog';
 import { Meter } from '../../../ui/meter';
-import { MoneyPipe } from '../../../ui/money';
+import { MoneyPipe, currencySign } from '../../../ui/money';
 import { CurrentBuild } from '../../builds/services/current-build';
 import { BudgetStanding, amountOf, budgetStanding } from '../models/budget-math';
 import { SystemsApi } from '../services/systems-api';
@@ -151,7 +151,11 @@ interface SystemLine {
                       (blur)="saveBudget(line.system)"
                       (keydown.enter)="saveBudget(line.system)"
                     />
-                    <span matTextSuffix class="currency-suffix">{{ currency() }}</span>
+                    @if (sign().before) {
+                      <span matTextPrefix class="currency-prefix">{{ sign().sign }}</span>
+                    } @else {
+                      <span matTextSuffix class="currency-suffix">{{ sign().sign }}</span>
+                    }
                     <mat-error>{{ errorOf(control(line.system.id)) }}</mat-error>
                   </mat-form-field>
                 } @else {
@@ -228,7 +232,11 @@ interface SystemLine {
                     (blur)="saveContingency()"
                     (keydown.enter)="saveContingency()"
                   />
-                  <span matTextSuffix class="currency-suffix">{{ currency() }}</span>
+                  @if (sign().before) {
+                      <span matTextPrefix class="currency-prefix">{{ sign().sign }}</span>
+                    } @else {
+                      <span matTextSuffix class="currency-suffix">{{ sign().sign }}</span>
+                    }
                   <mat-error>{{ errorOf(control(contingencyKey)) }}</mat-error>
                 </mat-form-field>
               } @else {
@@ -251,7 +259,11 @@ interface SystemLine {
             <mat-form-field subscriptSizing="dynamic" class="money-field">
               <mat-label>Budget</mat-label>
               <input matInput formControlName="budget" inputmode="decimal" autocomplete="off" class="tabular" />
-              <span matTextSuffix class="currency-suffix">{{ currency() }}</span>
+              @if (sign().before) {
+                      <span matTextPrefix class="currency-prefix">{{ sign().sign }}</span>
+                    } @else {
+                      <span matTextSuffix class="currency-suffix">{{ sign().sign }}</span>
+                    }
               <mat-hint>Optional</mat-hint>
               <mat-error>{{ errorOf(addForm.controls.budget) }}</mat-error>
             </mat-form-field>
@@ -435,6 +447,9 @@ interface SystemLine {
     .currency-suffix {
       padding-left: 6px;
     }
+    .currency-prefix {
+      padding-right: 4px;
+    }
     .system-standing {
       display: flex;
       flex-direction: column;
@@ -517,6 +532,8 @@ export class BudgetsPage {
 
   protected readonly locale = computed(() => this.current.build()?.locale ?? 'en-US');
   protected readonly isOwner = computed(() => this.current.build()?.role === 'owner');
+  /** Budgets are typed beside the build's currency sign, where its locale writes it ($ 5400.00, 5400,00 €). */
+  protected readonly sign = computed(() => currencySign(this.currency(), this.locale()));
   private readonly places = computed(() => (this.currency() ? minorUnits(this.currency()) : 2));
 
   /** A typed amount while it is valid, otherwise the saved one: the totals never show a half-typed figure. */
