@@ -21,6 +21,15 @@ export function moneyText(amount: string | Decimal | null | undefined, currency:
   }
 }
 
+/** An axis figure in whole currency units ("$3,500", "3.500 €"): a chart's scale needs no cents. */
+export function wholeMoneyText(value: number, currency: string, locale: string): string {
+  try {
+    return new Intl.NumberFormat(locale || 'en-US', { style: 'currency', currency, minimumFractionDigits: 0, maximumFractionDigits: 0 }).format(value);
+  } catch {
+    return String(Math.round(value));
+  }
+}
+
 /** The currency's sign in this locale ("$", "€", "RM"...) and whether the locale writes it before the figure. */
 export function currencySign(currency: string, locale: string): { sign: string; before: boolean } {
   try {

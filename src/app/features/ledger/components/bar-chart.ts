@@ -49,6 +49,8 @@ export class BarChart {
   /** What the chart shows in words, for screen readers; the table beside it carries the figures. */
   readonly summary = input.required<string>();
   readonly format = input.required<(amount: string) => string>();
+  /** The value axis's labels: whole currency units (see wholeMoneyText); the bars' own figures keep their cents. */
+  readonly axisFormat = input.required<(value: number) => string>();
   readonly barClick = output<BarClick>();
 
   private readonly canvas = viewChild.required<ElementRef<HTMLCanvasElement>>('canvas');
@@ -66,6 +68,7 @@ export class BarChart {
     const categories = [...this.categories()];
     const series = this.series();
     const format = this.format();
+    const axisFormat = this.axisFormat();
     const horizontal = this.horizontal();
     const datasets = series.map((one) => ({
       label: one.label,
@@ -107,7 +110,7 @@ export class BarChart {
         scales: {
           [horizontal ? 'x' : 'y']: {
             beginAtZero: true,
-            ticks: { color: '#4b4641', maxRotation: 0, autoSkipPadding: 16, callback: (value) => format(String(value)) },
+            ticks: { color: '#4b4641', maxRotation: 0, autoSkipPadding: 16, callback: (value) => axisFormat(Number(value)) },
             grid: { color: '#e8e1db' },
           },
           [horizontal ? 'y' : 'x']: { ticks: { color: '#1d1b19' }, grid: { display: false } },

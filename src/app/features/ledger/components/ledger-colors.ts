@@ -7,5 +7,4 @@ export const LEDGER_COLORS = {
   netCost: '#1d4c5d',
   /** Brass, tertiary tone 60. */
   forecast: '#b8892b',
-  spent: '#b8892b',
 } as const;

@@ -4,7 +4,7 @@ import { ChangeDetectionStrategy, Component, computed, input, output } from '@an
 import { MatIconModule } from '@angular/material/icon';
 import type { LedgerDto, LedgerLineFigure, LedgerSystemDto } from '../../../../../shared/api/ledger';
 import { toDecimal } from '../../../../../shared/money';
-import { moneyText, MoneyPipe } from '../../../ui/money';
+import { moneyText, MoneyPipe, wholeMoneyText } from '../../../ui/money';
 import { FIGURE_LABELS, absolute, varianceWords, type LinesRequest } from '../models/ledger-words';
 import { BarChart, type BarClick, type ChartSeries } from './bar-chart';
 import { LEDGER_COLORS } from './ledger-colors';
@@ -28,6 +28,7 @@ const LINKED: LedgerLineFigure[] = ['spent', 'netCost', 'coreDepositsOutstanding
       [horizontal]="true"
       [height]="chartHeight()"
       [format]="format()"
+      [axisFormat]="axisFormat()"
       [summary]="'Bar chart of budget, net cost and forecast for each system; the table below lists the same figures.'"
       (barClick)="clicked($event)"
     />
@@ -173,6 +174,11 @@ export class SystemBars {
     const currency = this.ledger().currency;
     const locale = this.locale();
     return (amount: string) => moneyText(amount, currency, locale);
+  });
+  protected readonly axisFormat = computed(() => {
+    const currency = this.ledger().currency;
+    const locale = this.locale();
+    return (value: number) => wholeMoneyText(value, currency, locale);
   });
 
   protected varianceOf(system: LedgerSystemDto): { under: boolean; amount: string } {

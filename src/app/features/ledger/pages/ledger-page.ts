@@ -10,7 +10,7 @@ import { forkJoin } from 'rxjs';
 import type { LedgerDto, LedgerLineFigure, SpendPeriod, SpendResponse, VendorSpendDto, VendorsResponse } from '../../../../../shared/api/ledger';
 import { toDecimal } from '../../../../../shared/money';
 import { EmptyState } from '../../../ui/empty-state';
-import { MoneyPipe, moneyText } from '../../../ui/money';
+import { MoneyPipe, moneyText, wholeMoneyText } from '../../../ui/money';
 import { CurrentBuild } from '../../builds/services/current-build';
 import { BarChart, type BarClick, type ChartSeries } from '../components/bar-chart';
 import { LEDGER_COLORS } from '../components/ledger-colors';
@@ -91,7 +91,8 @@ function periodWords(period: string, short: boolean): string {
                 [categories]="periodLabels()"
                 [series]="spendSeries()"
                 [format]="format()"
-                [summary]="'Bar chart of money spent and net cost ' + (by() === 'month' ? 'per month' : 'per week') + '; the table below lists the same figures.'"
+                [axisFormat]="axisFormat()"
+                [summary]="'Bar chart of the net cost ' + (by() === 'month' ? 'per month' : 'per week') + '; the table below lists it with the money spent.'"
                 (barClick)="periodClicked($event)"
               />
               <details class="figures-table">
@@ -138,6 +139,7 @@ function periodWords(period: string, short: boolean): string {
                 [horizontal]="true"
                 [height]="64 + vendors.vendors.length * 40"
                 [format]="format()"
+                [axisFormat]="axisFormat()"
                 [summary]="'Bar chart of net cost per shop, largest first; the table below lists the same figures.'"
                 (barClick)="vendorClicked($event)"
               />
@@ -261,13 +263,17 @@ export class LedgerPage {
     const locale = this.locale();
     return (amount: string) => moneyText(amount, currency, locale);
   });
+  protected readonly axisFormat = computed(() => {
+    const currency = this.ledger()?.currency ?? '';
+    const locale = this.locale();
+    return (value: number) => wholeMoneyText(value, currency, locale);
+  });
   protected readonly periodLabels = computed(() => (this.spend()?.periods ?? []).map((row) => periodWords(row.period, true)));
   protected readonly spendSeries = computed<ChartSeries[]>(() => {
     const periods = this.spend()?.periods ?? [];
-    return [
-      { label: 'Spent', values: periods.map((row) => row.spent), color: LEDGER_COLORS.spent },
-      { label: 'Net cost', values: periods.map((row) => row.netCost), color: LEDGER_COLORS.netCost },
-    ];
+    // One series: spent and net cost differ only by deposits and refunds, so two bars per period mostly repeated each
+    // other; the table under the chart keeps both figures.
+    return [{ label: 'Net cost', values: periods.map((row) => row.netCost), color: LEDGER_COLORS.netCost }];
   });
   protected readonly vendorNames = computed(() => (this.vendors()?.vendors ?? []).map((vendor) => this.vendorName(vendor)));
   protected readonly vendorSeries = computed<ChartSeries[]>(() => [
@@ -312,7 +318,7 @@ export class LedgerPage {
 
   protected periodClicked(click: BarClick): void {
     const row = this.spend()?.periods[click.index];
-    if (row) this.openPeriod(row.period, click.seriesIndex === 0 ? 'spent' : 'netCost');
+    if (row) this.openPeriod(row.period, 'netCost');
   }
 
   protected vendorClicked(click: BarClick): void {
