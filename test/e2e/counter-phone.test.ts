@@ -155,6 +155,7 @@ function routes(buildId: string, receiptId: string, role: 'owner' | 'crew' | 're
     [`${base}/exports/build-sheet`, 'Build sheet: Slate roadster swap'],
     [`${base}/crew`, 'Crew'],
     [`${base}/alerts`, 'Mail alerts'],
+    [`${base}/settings`, 'Settings'],
   ];
   if (role === 'owner') all.push(['/builds/new', 'New build'], [`${base}/edit`, 'Edit build']);
   if (role === 'reviewer') all.push([`${base}/review`, 'Review']);

@@ -34,7 +34,12 @@ it('takes a reviewer from invite mail to a read-only view of the build', async (
   expect(await accessibilityViolations(page)).toEqual([]);
   await expect(page.getByRole('button', { name: 'Edit build' }).or(page.getByRole('link', { name: 'Edit build' })).count()).resolves.toBe(1);
 
-  await page.getByRole('link', { name: 'Crew' }).first().click();
+  // Crew is under Settings, with the build's details and the mail alerts.
+  await page.getByRole('link', { name: 'Settings' }).first().click();
+  await page.getByRole('heading', { name: 'Settings', level: 1 }).waitFor();
+  await screenshot(page, 'settings-owner');
+  expect(await accessibilityViolations(page)).toEqual([]);
+  await page.getByRole('link', { name: /^Crew/ }).click();
   const reviewerEmail = uniqueEmail('e2e-reviewer');
   await page.getByLabel('E-mail', { exact: true }).fill(reviewerEmail);
   await page.getByRole('combobox', { name: 'Role', exact: true }).click();
@@ -64,9 +69,10 @@ it('takes a reviewer from invite mail to a read-only view of the build', async (
   expect(await reviewer.getByRole('button', { name: 'Edit build' }).count()).toBe(0);
   expect(await reviewer.getByRole('link', { name: 'Edit build' }).count()).toBe(0);
 
-  // On a phone Crew sits in the bottom bar's "More" menu.
+  // On a phone Settings sits in the bottom bar's "More" menu, and Crew under it.
   await reviewer.getByRole('button', { name: 'More' }).click();
-  await reviewer.getByRole('menuitem', { name: 'Crew' }).click();
+  await reviewer.getByRole('menuitem', { name: 'Settings' }).click();
+  await reviewer.getByRole('link', { name: /^Crew/ }).click();
   await reviewer.getByText('Pat Reviewer').first().waitFor();
   expect(await reviewer.getByRole('button', { name: 'Send invite' }).count()).toBe(0);
   expect(await reviewer.getByRole('combobox', { name: /Role for/ }).count()).toBe(0);

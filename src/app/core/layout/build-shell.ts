@@ -33,8 +33,8 @@ export const BUILD_SECTIONS: readonly BuildSection[] = [
   { path: 'cores', label: 'Cores and returns', icon: 'autorenew', phoneBar: false },
   { path: 'review', label: 'Review', icon: 'fact_check', phoneBar: false, reviewerPhoneBar: true },
   { path: 'exports', label: 'Exports', icon: 'file_download', phoneBar: false },
-  { path: 'crew', label: 'Crew', icon: 'group', phoneBar: false },
-  { path: 'alerts', label: 'Mail alerts', icon: 'notifications', phoneBar: false },
+  // Crew, mail alerts and the build's details sit under Settings, so the rail keeps to the daily work.
+  { path: 'settings', label: 'Settings', icon: 'settings', phoneBar: false },
 ];
 
 @Component({

@@ -26,6 +26,7 @@ export const buildsRoutes: Routes = [
           { path: 'exports', loadChildren: () => import('../exports/exports.routes').then((m) => m.exportsRoutes) },
           { path: 'ledger', loadChildren: () => import('../ledger/ledger.routes').then((m) => m.ledgerRoutes) },
           { path: 'alerts', loadChildren: () => import('../alerts/alerts.routes').then((m) => m.alertsRoutes) },
+          { path: 'settings', loadChildren: () => import('../settings/settings.routes').then((m) => m.settingsRoutes) },
           // Parts, Budgets and Inventory share one lazy chunk; listed last so other sections never load it.
           { path: '', loadChildren: () => import('../parts/parts.routes').then((m) => m.partsRoutes) },
         ],
