@@ -117,7 +117,16 @@ timings.push(`typecheck ${((performance.now() - typecheckStarted) / 1000).toFixe
 // pdf.js into the worker's main context, whose polyfills (a global Iterator on Node 20) break jsdom in the same
 // worker. Each run's normal report streams to the console; the numbers come from its JSON.
 const userArgs = process.argv.slice(2);
-const runs = userArgs.length > 0 ? [['all', userArgs]] : [['client', ['--selectProjects', 'client']], ['server', ['--selectProjects', 'unit', 'api', 'e2e']]];
+// The server run takes two workers on this 2-core machine (jest's default is cores − 1 = 1): most of its files wait on
+// PostgreSQL, the browser or the reading worker, so two at once fill the idle time (every file makes its own
+// accounts and builds, so files never share rows).
+const runs =
+  userArgs.length > 0
+    ? [['all', userArgs]]
+    : [
+        ['client', ['--selectProjects', 'client']],
+        ['server', ['--maxWorkers=2', '--selectProjects', 'unit', 'api', 'e2e']],
+      ];
 for (const [name, args] of runs) {
   const jestStarted = performance.now();
   const reportFile = JEST_REPORT.replace(/\.json$/, `-${name}.json`);
