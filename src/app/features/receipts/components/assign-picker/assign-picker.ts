@@ -91,7 +91,11 @@ export class AssignPicker {
     this.assign.emit(event.option.value as Assignment);
   }
 
-  /** Leaving the field without picking puts back what the line is assigned to. */
+  /**
+   * The list closing without a pick (Escape, a click elsewhere, Tab) puts back what the line is assigned to. Done on
+   * the list's close, not the field's blur: a pointer press on an option blurs the field first, and resetting the
+   * filter then would redraw the options under the pointer and lose the click.
+   */
   protected restore(input: HTMLInputElement): void {
     this.query.set('');
     input.value = this.label();
