@@ -8,7 +8,6 @@ import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { MatMenuModule } from '@angular/material/menu';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
@@ -36,6 +35,7 @@ import { liveReconciliation } from '../models/live-reconciliation';
 import { LINE_FIELD_LABELS, LINE_TEXT_FIELDS, lineGroup, type LineAction, type LineField, type LineGroup } from '../models/line-form';
 import { AssignPicker, type Assignment } from '../components/assign-picker/assign-picker';
 import { LineCard } from '../components/line-card/line-card';
+import { LineMenu } from '../components/line-menu/line-menu';
 import { injectNarrowScreen } from '../../../ui/narrow-screen';
 import { SafetyNote } from '../../../ui/safety-note/safety-note';
 import { ReceiptsApi } from '../services/receipts-api';
@@ -88,13 +88,13 @@ function caretAtEdge(input: HTMLInputElement, edge: 'start' | 'end'): boolean {
     ReactiveFormsModule,
     AssignPicker,
     LineCard,
+    LineMenu,
     SafetyNote,
     MatButtonModule,
     MatCheckboxModule,
     MatFormFieldModule,
     MatIconModule,
     MatInputModule,
-    MatMenuModule,
     MatProgressBarModule,
     MatSelectModule,
     RouterLink,

@@ -6,7 +6,6 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { MatMenuModule } from '@angular/material/menu';
 import { MatSelectModule } from '@angular/material/select';
 import type { PartDto, SystemDto } from '../../../../../../shared/api/parts';
 import type { ReceiptLineDto } from '../../../../../../shared/api/receipts';
@@ -16,10 +15,11 @@ import { errorOf } from '../../../../core/forms/form-errors';
 import { moneyText } from '../../../../ui/money';
 import { LINE_FIELD_LABELS, LINE_TEXT_FIELDS, type LineAction, type LineField, type LineGroup } from '../../models/line-form';
 import { AssignPicker, type Assignment } from '../assign-picker/assign-picker';
+import { LineMenu } from '../line-menu/line-menu';
 
 @Component({
   selector: 'th-line-card',
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatMenuModule, MatSelectModule, AssignPicker],
+  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, AssignPicker, LineMenu],
   templateUrl: './line-card.html',
   styleUrl: './line-card.css',
   changeDetection: ChangeDetectionStrategy.OnPush,
