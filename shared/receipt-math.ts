@@ -72,3 +72,8 @@ export function allocateCharges(lines: readonly MathLine[], charges: ReceiptChar
   const discount = spread(charges.discount, lines, (line) => line.kind === 'part' || line.kind === 'fee', currency);
   return lines.map((_, index) => ({ tax: tax[index], shipping: shipping[index], discount: discount[index] }));
 }
+
+/** What a filed line cost: its amount with its share of tax and shipping, less its share of the discount (SQL: LINE_TOTAL). */
+export function linePaid(line: { amount: Decimal; allocatedTax: Decimal; allocatedShipping: Decimal; allocatedDiscount: Decimal }): Decimal {
+  return subtract(sum([line.amount, line.allocatedTax, line.allocatedShipping]), line.allocatedDiscount);
+}

@@ -1,32 +1,14 @@
 // Response types of the ledger: budget against money spent, per system and for the whole build; its spend over time,
 // by vendor, and the query of the lines behind any figure.
 import { z } from 'zod';
+import type { SystemFigures } from '../build-figures';
 import type { ReceiptLineKind } from '../enums';
 
 /** The overrun factor is only trusted once this many bought parts have both an estimate and a cost (common practice, our choice). */
 export const OVERRUN_MIN_SAMPLE = 5;
 
-export interface LedgerFigures {
-  budget: string;
-  /** Sum of the parts' estimates. */
-  estimate: string;
-  /** Net cash out on filed receipts: purchases, deposits and fees with their tax and shipping, less money back. */
-  spent: string;
-  /** What the system has cost: purchases with their tax, shipping and fees, less discounts and refunded returns, plus forfeited cores. */
-  netCost: string;
-  /** Core deposits paid and not yet refunded or forfeited. */
-  coreDepositsOutstanding: string;
-  /** Parts sent back whose refund has not been filed yet (what was paid for them). */
-  returnsAwaitingRefund: string;
-  /** Estimates of the parts not bought yet. */
-  remainingEstimate: string;
-  /** Budget less the plain forecast: positive is under budget. */
-  variance: string;
-  /** Net cost plus the remaining estimate. */
-  forecast: string;
-  /** Net cost plus the remaining estimate times the build's own overrun factor. */
-  forecastAdjusted: string;
-}
+/** A system's or the whole build's figures: named and defined once in shared/build-figures.ts. */
+export type LedgerFigures = SystemFigures;
 
 export interface LedgerSystemDto extends LedgerFigures {
   systemId: string;
@@ -39,7 +21,10 @@ export interface LedgerDto {
   systems: LedgerSystemDto[];
   /** The same figures for the whole build: the systems add up to it to the cent. */
   total: LedgerFigures;
+  /** Kept apart from the systems' budgets. */
   contingencyBudget: string;
+  /** The systems' budget plus the contingency. */
+  budgetWithContingency: string;
   /** Actual over estimate for parts already bought, as a decimal string; "1" until enough parts are bought. */
   overrunFactor: string;
   /** How many bought parts with an estimate the factor is based on. */

@@ -46,9 +46,10 @@ export interface SystemsResponse {
   currency: string;
   systems: SystemDto[];
   contingencyBudget: string;
-  /** The systems' budgets plus the contingency. */
-  totalBudget: string;
-  totalEstimate: string;
+  /** The ledger's figures of the same names (shared/build-figures.ts): the systems' budgets plus the contingency. */
+  budgetWithContingency: string;
+  /** Every part on the bill of materials at its estimate, as the ledger counts it. */
+  planned: string;
   buildVersion: number;
 }
 

@@ -188,6 +188,7 @@ export interface CoreDto {
   id: string;
   state: CoreState;
   dueDate: string;
+  /** The deposit as paid: the line with its share of tax and shipping, as the ledger counts it. */
   amount: string;
   /** The part the deposit is for when the line is assigned to one (the slip often just says "core charge"), else the line's text. */
   description: string;

@@ -31,7 +31,7 @@ export function testSystem(id: string, name: string, overrides: Partial<SystemDt
 
 /** GET /systems with these systems and, unless overridden, no budgets or estimates. */
 export function testSystemsResponse(systems: SystemDto[], overrides: Partial<SystemsResponse> = {}): SystemsResponse {
-  return { currency: 'USD', systems, contingencyBudget: '0', totalBudget: '0', totalEstimate: '0', buildVersion: 2, ...overrides };
+  return { currency: 'USD', systems, contingencyBudget: '0', budgetWithContingency: '0', planned: '0', buildVersion: 2, ...overrides };
 }
 
 /** A planned part of the bill of materials: two brake pads at 64.50, 129.00 in all. */

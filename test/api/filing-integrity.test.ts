@@ -140,7 +140,7 @@ describe('amounts too large for a build', () => {
     const expected = `${cents / 100n}.${String(cents % 100n).padStart(2, '0')}`;
     const ledger = await client.get(`/api/builds/${buildId}/ledger`);
     expect(ledger.status).toBe(200);
-    expect(ledger.body.total.estimate).toBe(expected);
+    expect(ledger.body.total.planned).toBe(expected);
     expect((await client.get(`/api/builds/${buildId}/exports/build-sheet`)).status).toBe(200);
     const csv = await client.get(`/api/builds/${buildId}/exports/build-sheet.csv`);
     expect(csv.status).toBe(200);

@@ -29,7 +29,7 @@ describe('systems and budgets', () => {
     const { overview } = await newBuild();
     expect(overview.systems.map((s: { name: string }) => s.name)).toEqual([...DEFAULT_SYSTEMS]);
     expect(overview.systems.every((s: { budget: string }) => s.budget === '0.00')).toBe(true);
-    expect(overview.totalBudget).toBe('0.00');
+    expect(overview.budgetWithContingency).toBe('0.00');
   });
 
   it('marks fuel, brakes and the wiring harness with the safety caution, and not cooling (DESIGN §9)', async () => {
@@ -47,7 +47,7 @@ describe('systems and budgets', () => {
     const res = await client.send('put', `/api/builds/${build.id}/contingency`, { contingencyBudget: '0.30', version: build.version });
     expect(res.status).toBe(200);
     // 1200.10 + 850.20 + 0.30 = 2050.60 exactly (in binary floating point 1200.1 + 850.2 + 0.3 is 2050.6000000000004).
-    expect(res.body.totalBudget).toBe('2050.60');
+    expect(res.body.budgetWithContingency).toBe('2050.60');
     expect(res.body.contingencyBudget).toBe('0.30');
   });
 
@@ -70,7 +70,7 @@ describe('systems and budgets', () => {
     await client.patch(`/api/builds/${build.id}/systems/${steering.id}`, { archived: true, version: 2 });
     const active = (await client.get(`/api/builds/${build.id}/systems`)).body;
     expect(active.systems.map((s: { id: string }) => s.id)).not.toContain(steering.id);
-    expect(active.totalBudget).toBe('0.00');
+    expect(active.budgetWithContingency).toBe('0.00');
     const all = (await client.get(`/api/builds/${build.id}/systems?archived=true`)).body;
     expect(all.systems.find((s: { id: string }) => s.id === steering.id)).toMatchObject({ archived: true, partCount: 1 });
   });
@@ -112,7 +112,7 @@ describe('parts', () => {
     const overview = (await client.get(`/api/builds/${build.id}/systems`)).body;
     // 0.005 -> 0.01 ; 3 x 0.3333 = 0.9999 -> 1.00 ; total 1.01
     expect(overview.systems.find((s: { name: string }) => s.name === 'Cooling').estimate).toBe('1.01');
-    expect(overview.totalEstimate).toBe('1.01');
+    expect(overview.planned).toBe('1.01');
   });
 
   it.each([

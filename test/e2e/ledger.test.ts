@@ -61,9 +61,10 @@ it('shows the ledger of two filed receipts and the lines behind a figure', async
   await expect(netCost.getAttribute('class')).resolves.toBe('figure-button');
   await expect(netCost.innerText()).resolves.toBe(`${usd(ledger.total.netCost)}\n(show the lines behind the net cost)`);
   expect(usd(ledger.total.netCost)).toBe('$241.78');
-  const forecast = page.locator('dt', { hasText: /^Forecast$/ }).locator('xpath=following-sibling::dd[1]');
-  // 241.78 + 299.00 = 540.78.
+  const forecast = page.locator('dt', { hasText: /^Forecast at completion$/ }).locator('xpath=following-sibling::dd[1]');
+  // 241.78 + 299.00 = 540.78, shown as the API's figure.
   await expect(forecast.innerText()).resolves.toBe('$540.78');
+  await expect(forecast.getAttribute('data-value')).resolves.toBe(ledger.total.forecast);
   // Cooling: 60.00 - 70.93 = 10.93 over its budget, said in words.
   await page.getByRole('row', { name: /^Cooling/ }).getByRole('cell', { name: '$10.93 over' }).waitFor();
   await page.getByRole('complementary', { name: 'Safety caution' }).filter({ hasText: "manufacturer's instructions" }).waitFor();

@@ -133,7 +133,7 @@ it('budgets two systems, adds and imports parts, and shows each system against i
   await dialog.getByRole('button', { name: 'Add part' }).click();
   await dialog.waitFor({ state: 'detached' });
   // Brakes: 2 × 64.50 + 189.99 = 318.99 of 1,200.00.
-  await expect(totalsRows(page)).resolves.toEqual(['Brakes: estimate against budget | $318.99 | of $1,200.00 budget $881.01 left']);
+  await expect(totalsRows(page)).resolves.toEqual(['Brakes: planned against budget | $318.99 | of $1,200.00 budget planned $881.01 under budget']);
 
   // Import: the preview flags the bad row; nothing imports until it is left out.
   await page.getByRole('button', { name: 'Import CSV' }).click();
@@ -158,8 +158,8 @@ it('budgets two systems, adds and imports parts, and shows each system against i
   await expect(page.locator('tr.part-row').count()).resolves.toBe(52);
   // Engine: 2,262.50 against 2,000.00 is 262.50 over. Brakes: 318.99 + 299.85 + 3.80 = 622.64 against 1,200.00, 577.36 left.
   await expect(totalsRows(page)).resolves.toEqual([
-    'Engine: estimate against budget | $2,262.50 | of $2,000.00 budget Over budget by $262.50',
-    'Brakes: estimate against budget | $622.64 | of $1,200.00 budget $577.36 left',
+    'Engine: planned against budget | $2,262.50 | of $2,000.00 budget planned $262.50 over budget',
+    'Brakes: planned against budget | $622.64 | of $1,200.00 budget planned $577.36 under budget',
   ]);
   // Brakes are safety-critical: the caution shows.
   await page.getByText(/Tallyhood records costs only\./).waitFor();
@@ -172,17 +172,18 @@ it('budgets two systems, adds and imports parts, and shows each system against i
   // The filter narrows to matching parts and the totals stay the whole system's.
   await page.getByLabel('Filter parts').fill('BL-3');
   await expect(page.locator('tr.part-row').count()).resolves.toBe(10);
-  await expect(totalsRows(page)).resolves.toEqual(['Brakes: estimate against budget | $622.64 | of $1,200.00 budget $577.36 left']);
+  await expect(totalsRows(page)).resolves.toEqual(['Brakes: planned against budget | $622.64 | of $1,200.00 budget planned $577.36 under budget']);
   await page.getByLabel('Filter parts').fill('');
 
   // The Budgets screen agrees with the Parts screen.
   await page.getByRole('link', { name: 'Budgets' }).first().click();
   await page.getByRole('textbox', { name: 'Budget for Engine' }).waitFor();
-  await page.getByText('Over by $262.50').first().waitFor();
-  await page.getByText('$577.36 left').first().waitFor();
-  // Build budget 2,000.00 + 1,200.00 + 150.00 = 3,350.00; estimate 2,262.50 + 622.64 = 2,885.14; 464.86 left.
-  await page.getByText('$2,885.14').first().waitFor();
-  await page.getByText('$464.86 left').first().waitFor();
+  await page.getByText('planned $262.50 over budget').first().waitFor();
+  await page.getByText('planned $577.36 under budget').first().waitFor();
+  // Budget with contingency 2,000.00 + 1,200.00 + 150.00 = 3,350.00; planned 2,262.50 + 622.64 = 2,885.14; 464.86 under.
+  await expect(page.locator('[data-figure="budgetWithContingency"]').getAttribute('data-value')).resolves.toBe('3350.00');
+  await expect(page.locator('[data-figure="planned"]').getAttribute('data-value')).resolves.toBe('2885.14');
+  await page.getByText('planned $464.86 under budget').first().waitFor();
   await screenshot(page, 'budgets-after-import');
 
   // Inventory: 15 caliper bolt kits on the shelf in Bin 1, Bin 2 and no location (last).

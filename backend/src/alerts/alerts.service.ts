@@ -3,11 +3,12 @@
 import type { EntityManager, MikroORM } from '@mikro-orm/postgresql';
 import { randomUUID } from 'node:crypto';
 import { ALERT_KINDS, DEFAULT_ALERT_PREFERENCES, type AlertKind, type AlertPreferences } from '../../../shared/api/alerts';
+import { percentOfBudget } from '../../../shared/build-figures';
 import { Decimal, formatMoney, sum, toDecimal } from '../../../shared/money';
 import type { Build } from '../builds/build.entity';
 import { Membership } from '../builds/membership.entity';
 import type { AppConfig } from '../config';
-import { buildLedger } from '../ledger/ledger.service';
+import { LINE_TOTAL, buildLedger } from '../ledger/ledger.service';
 import type { MailMessage, Mailer } from '../mail/mailer';
 import { budgetAlertMail, coreDueMail, duplicateReceiptMail, returnWindowMail, reviewDigestMail } from '../mail/templates';
 import { findDuplicates } from '../receipts/receipt-dto';
@@ -106,8 +107,8 @@ async function budgetAlerts(em: EntityManager, ctx: BuildContext): Promise<DueAl
     const percentOf = (share: number) => netCost.times(100).greaterThanOrEqualTo(budget.times(share));
     const threshold = percentOf(100) ? 100 : percentOf(90) ? 90 : null;
     if (!threshold) continue;
-    // A ratio shown in whole percent, rounded down, so the mail never claims more than was reached.
-    const percent = netCost.times(100).dividedBy(budget).toDecimalPlaces(0, Decimal.ROUND_DOWN).toString();
+    // Whole percent, rounded as on every screen (the threshold itself is compared exactly above).
+    const percent = percentOfBudget(system.netCost, system.budget) ?? '0';
     alerts.push({
       kind: 'budget',
       keys: [`budget:${system.systemId}:${threshold}`],
@@ -133,7 +134,7 @@ async function coreDueAlerts(em: EntityManager, ctx: BuildContext): Promise<DueA
   // Still owed (the old part not handed in) and due within the week, or already late; on filed receipts only.
   const rows = await em.getConnection().execute<{ id: string; due_date: string; description: string; amount: string; vendor_name: string | null }[]>(
     // The part the deposit is for names it better than the slip's line, which often just says "core charge".
-    `select c.id, c.due_date, coalesce(p.description, l.description) as description, l.amount, v.name as vendor_name
+    `select c.id, c.due_date, coalesce(p.description, l.description) as description, ${LINE_TOTAL} as amount, v.name as vendor_name
        from core c
        join receipt_line l on l.id = c.charge_line_id
        left join part p on p.id = l.part_id
@@ -174,7 +175,7 @@ async function returnWindowAlerts(em: EntityManager, ctx: BuildContext): Promise
   const rows = await em.getConnection().execute<
     { id: string; receipt_id: string; description: string; amount: string; purchase_date: string; returnable_until: string; vendor_name: string | null }[]
   >(
-    `select l.id, l.receipt_id, l.description, l.amount, r.purchase_date,
+    `select l.id, l.receipt_id, l.description, ${LINE_TOTAL} as amount, r.purchase_date,
             ${RETURNABLE_UNTIL}::text as returnable_until, v.name as vendor_name
        from receipt_line l
        join receipt r on r.id = l.receipt_id

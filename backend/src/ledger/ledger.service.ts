@@ -1,8 +1,9 @@
 // The ledger: budget, estimate and money spent per system, aggregated in SQL; rounding and the forecast through
 // the shared money module, so the systems always add up to the build total to the cent.
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { OVERRUN_MIN_SAMPLE, type LedgerDto, type LedgerFigures, type LedgerLineFigure } from '../../../shared/api/ledger';
-import { Decimal, minorUnits, multiply, roundHalfUp, sum, subtract, toDecimal, toWire } from '../../../shared/money';
+import { OVERRUN_MIN_SAMPLE, type LedgerDto, type LedgerLineFigure } from '../../../shared/api/ledger';
+import { addSystemFigures, budgetWithContingency, systemFigures } from '../../../shared/build-figures';
+import { Decimal, minorUnits, roundHalfUp, toDecimal, toWire } from '../../../shared/money';
 import { needsSafetyCaution } from '../../../shared/safety';
 import type { Build } from '../builds/build.entity';
 
@@ -72,7 +73,9 @@ const SYSTEM_FIGURES = `
       ${filedLines()}
      group by l.system_id
   )
-  select s.id, s.name, s.budget,
+  select s.id, s.name,
+         -- An archived system's budget has left the build's budget; its parts and money stay in the figures.
+         case when s.archived_at is null then s.budget else 0 end as budget,
          coalesce(parts.estimate, 0) as estimate, coalesce(parts.remaining_estimate, 0) as remaining_estimate,
          coalesce(lines.spent, 0) as spent, coalesce(lines.net_cost, 0) as net_cost,
          coalesce(lines.cores_outstanding, 0) as cores_outstanding, coalesce(lines.returns_awaiting, 0) as returns_awaiting
@@ -108,54 +111,37 @@ export async function overrunFactor(em: EntityManager, build: Build): Promise<Ov
   return { factor: roundHalfUp(toDecimal(String(row.actual)).dividedBy(estimate), 4), sample };
 }
 
-export function addFigures(rows: LedgerFigures[], places: number): LedgerFigures {
-  const total = (key: keyof LedgerFigures) => toWire(sum(rows.map((row) => toDecimal(row[key]))), places);
-  return {
-    budget: total('budget'),
-    estimate: total('estimate'),
-    spent: total('spent'),
-    netCost: total('netCost'),
-    coreDepositsOutstanding: total('coreDepositsOutstanding'),
-    returnsAwaitingRefund: total('returnsAwaitingRefund'),
-    remainingEstimate: total('remainingEstimate'),
-    variance: total('variance'),
-    forecast: total('forecast'),
-    forecastAdjusted: total('forecastAdjusted'),
-  };
-}
-
 export async function buildLedger(em: EntityManager, build: Build): Promise<LedgerDto> {
   const places = minorUnits(build.currency);
   const rows = await em.execute<SystemRow[]>(SYSTEM_FIGURES, [places, places, build.id, build.id, build.id]);
   const { factor, sample } = await overrunFactor(em, build);
-  const money = (value: string | Decimal) => roundHalfUp(typeof value === 'string' ? toDecimal(String(value)) : value, places);
-  const systems = rows.map((row) => {
-    const netCost = money(row.net_cost);
-    const remaining = money(row.remaining_estimate);
-    const forecast = sum([netCost, remaining]);
-    const budget = money(row.budget);
-    return {
-      systemId: row.id,
-      name: row.name,
-      safetyCaution: needsSafetyCaution(row.name),
-      budget: toWire(budget, places),
-      estimate: toWire(money(row.estimate), places),
-      spent: toWire(money(row.spent), places),
-      netCost: toWire(netCost, places),
-      coreDepositsOutstanding: toWire(money(row.cores_outstanding), places),
-      returnsAwaitingRefund: toWire(money(row.returns_awaiting), places),
-      remainingEstimate: toWire(remaining, places),
-      variance: toWire(subtract(budget, forecast), places),
-      forecast: toWire(forecast, places),
-      // Rounded per system, so the build's total is exactly the sum of what each system shows.
-      forecastAdjusted: toWire(sum([netCost, money(multiply(remaining, factor))]), places),
-    };
-  });
+  const money = (value: string) => roundHalfUp(toDecimal(String(value)), places);
+  const systems = rows.map((row) => ({
+    systemId: row.id,
+    name: row.name,
+    safetyCaution: needsSafetyCaution(row.name),
+    ...systemFigures(
+      {
+        budget: money(row.budget),
+        planned: money(row.estimate),
+        remainingEstimate: money(row.remaining_estimate),
+        spent: money(row.spent),
+        netCost: money(row.net_cost),
+        coreDepositsOutstanding: money(row.cores_outstanding),
+        returnsAwaitingRefund: money(row.returns_awaiting),
+      },
+      factor,
+      places,
+    ),
+  }));
+  const total = addSystemFigures(systems, places);
+  const contingencyBudget = toWire(money(String(build.contingencyBudget)), places);
   return {
     currency: build.currency,
     systems,
-    total: addFigures(systems, places),
-    contingencyBudget: toWire(money(build.contingencyBudget), places),
+    total,
+    contingencyBudget,
+    budgetWithContingency: budgetWithContingency(total.budget, contingencyBudget, places),
     overrunFactor: factor.toString(),
     overrunSample: sample,
   };

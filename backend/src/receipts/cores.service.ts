@@ -3,6 +3,7 @@ import type { EntityManager } from '@mikro-orm/postgresql';
 import type { CoreDto } from '../../../shared/api/receipts';
 import type { CoreState } from '../../../shared/enums';
 import { minorUnits, toWire } from '../../../shared/money';
+import { linePaid } from '../../../shared/receipt-math';
 import type { User } from '../auth/user.entity';
 import type { Build } from '../builds/build.entity';
 import { recordAudit } from '../audit/audit';
@@ -15,7 +16,8 @@ export function coreDto(core: Core, currency: string): CoreDto {
     id: core.id,
     state: core.state,
     dueDate: core.dueDate,
-    amount: toWire(line.amount, minorUnits(currency)),
+    // The deposit as paid, with its sales tax and share of shipping: the figure the ledger counts.
+    amount: toWire(linePaid(line), minorUnits(currency)),
     // The part names the deposit better than the slip's line, which often just says "core charge".
     description: line.part?.description ?? line.description,
     partNumber: line.partNumber,

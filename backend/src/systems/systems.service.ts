@@ -6,6 +6,7 @@ import { Decimal, fitsMinorUnits, minorUnits, multiply, roundToMinor, sum, toWir
 import { needsSafetyCaution } from '../../../shared/safety';
 import type { Build } from '../builds/build.entity';
 import { NotFound, StaleVersion, ValidationFailed } from '../http/errors';
+import { buildLedger } from '../ledger/ledger.service';
 import { Part } from '../parts/part.entity';
 import { VehicleSystem } from './vehicle-system.entity';
 
@@ -55,14 +56,14 @@ export async function systemsOverview(em: EntityManager, build: Build, includeAr
     safetyCaution: needsSafetyCaution(system.name),
     version: system.version,
   }));
-  const activeBudgets = systems.filter((s) => s.archivedAt === null).map((s) => s.budget);
+  // The totals are the ledger's, so this page and every other show one value for one name.
+  const ledger = await buildLedger(em, build);
   return {
     currency: build.currency,
     systems: dtos,
-    contingencyBudget: toWire(build.contingencyBudget, places),
-    totalBudget: toWire(sum([...activeBudgets, build.contingencyBudget]), places),
-    // Archived systems keep their history but leave both totals, so budget and estimate compare like with like.
-    totalEstimate: toWire(sum(systems.filter((s) => s.archivedAt === null).flatMap((s) => bySystem.get(s.id) ?? [])), places),
+    contingencyBudget: ledger.contingencyBudget,
+    budgetWithContingency: ledger.budgetWithContingency,
+    planned: ledger.total.planned,
     buildVersion: build.version,
   };
 }

@@ -2,14 +2,15 @@
 import type { LedgerDto } from '../../../../../shared/api/ledger';
 import type { CoreDto, ReceiptSummaryDto } from '../../../../../shared/api/receipts';
 import type { BuildRole } from '../../../../../shared/enums';
-import { Decimal, roundHalfUp, sum, toWire } from '../../../../../shared/money';
+import { isOverBudget, percentOfBudget } from '../../../../../shared/build-figures';
+import { Decimal, sum, toWire } from '../../../../../shared/money';
 import { amountOf, budgetStanding } from '../../parts/models/budget-math';
 
 export interface BudgetUse {
   /** No budget set for the systems: nothing to measure against. */
   noBudget: boolean;
   over: boolean;
-  /** Net cost as a whole percent of the budget (may pass 100); display only. */
+  /** Net cost as a whole percent of the budget (may pass 100), rounded as everywhere else; display only. */
   usedPercent: string;
   /** 0 to 100 for the meter's width. */
   fillPercent: string;
@@ -22,7 +23,7 @@ export function budgetUse(ledger: LedgerDto): BudgetUse {
   const budget = amountOf(ledger.total.budget);
   const netCost = amountOf(ledger.total.netCost);
   const standing = budgetStanding(netCost, budget);
-  const usedPercent = budget.isZero() ? '0' : toWire(roundHalfUp(netCost.dividedBy(budget).times(100), 0), 0);
+  const usedPercent = percentOfBudget(ledger.total.netCost, ledger.total.budget) ?? '0';
   return { noBudget: budget.isZero(), over: standing.over, usedPercent, fillPercent: standing.fillPercent, difference: standing.difference };
 }
 
@@ -57,9 +58,8 @@ export function attentionItems(sources: AttentionSources): AttentionItem[] {
   const count = (test: (receipt: ReceiptSummaryDto) => boolean) => sources.receipts.filter(test).length;
   const owed = sources.cores.filter((core) => core.state === 'owed');
   const overBudget = (sources.ledger?.systems ?? []).filter((system) => {
-    const budget = amountOf(system.budget);
-    // A system with no budget is not "over" it (the budgets page says "No budget set" instead).
-    return budget.greaterThan(0) && amountOf(system.netCost).greaterThan(budget);
+    // The one rule of every screen: the forecast at completion passes the budget; no budget set is never over.
+    return isOverBudget(system);
   });
 
   const review: AttentionItem = { kind: 'review', count: sources.reviewQueue.filter((receipt) => receipt.reviewState === 'none').length };

@@ -19,7 +19,8 @@ const build = (role: BuildRole): BuildDto =>
 
 const zeroFigures: LedgerFigures = {
   budget: '0.00',
-  estimate: '0.00',
+  planned: '0.00',
+  planningGap: '0.00',
   spent: '0.00',
   netCost: '0.00',
   coreDepositsOutstanding: '0.00',
@@ -36,6 +37,8 @@ const ledgerSystem = (systemId: string, name: string, budget: string, netCost: s
   name,
   budget,
   netCost,
+  // Nothing left to buy in these systems: the forecast is the net cost.
+  forecast: netCost,
   safetyCaution: false,
 });
 
@@ -60,6 +63,7 @@ const ledger = (overrides: Partial<LedgerFigures> = {}, systems?: LedgerSystemDt
     ...overrides,
   },
   contingencyBudget: '150.00',
+  budgetWithContingency: '3350.00',
   overrunFactor: '1',
   overrunSample: 2,
 });
@@ -104,8 +108,8 @@ const systemsWith = (partCount: number): SystemsResponse => ({
     { id: 's-engine', name: 'Engine', budget: '0.00', estimate: '0.00', partCount, sortOrder: 0, archived: false, safetyCaution: false, version: 1 } satisfies SystemDto,
   ],
   contingencyBudget: '0.00',
-  totalBudget: '0.00',
-  totalEstimate: '0.00',
+  budgetWithContingency: '0.00',
+  planned: '0.00',
   buildVersion: 4,
 });
 
@@ -197,10 +201,10 @@ describe('BuildOverview', () => {
     await renderAs('owner', busyBuild());
 
     const money = screen.getByRole('region', { name: 'Money' });
-    expect(text(money)).toContain('Net cost so far $2,925.14 of $3,200.00 budget');
-    expect(text(money)).toContain('check_circle Under budget: 91% used, $274.86 left');
-    expect(text(money)).toContain('Forecast at completion $3,400.00 warning $200.00 over budget');
-    expect(text(money)).toContain('Net cost plus $474.86 of parts still to buy. Contingency of $150.00 kept aside.');
+    // The same strip, names and words as the ledger (shared/build-figures.ts); each comparison says against what.
+    expect(text(money)).toContain('Budget $3,200.00 Net cost $2,925.14 Forecast at completion $3,400.00');
+    expect(text(money)).toContain('Forecast against budget warning forecast $200.00 over budget Forecast at completion $3,400.00 against a budget of $3,200.00.');
+    expect(text(money)).toContain('Net cost is 91% of the budget: $274.86 of it not spent yet.');
     expect(within(money).getByRole('link', { name: 'Open the ledger' }).getAttribute('href')).toBe('/ledger');
 
     expect(attentionLines()).toEqual([
@@ -216,7 +220,7 @@ describe('BuildOverview', () => {
         href: '/cores',
         detail: '1 overdue: the earliest was due Jan 15, 2020. Hand the old parts back to get the deposits refunded.',
       },
-      { link: '1 system over budget', href: '/ledger', detail: 'Engine: net cost already past the budget.' },
+      { link: '1 system forecast over budget', href: '/ledger', detail: 'Engine: net cost plus the parts still to buy passes the budget.' },
       { link: '2 receipts may be duplicates', href: '/receipts?duplicates=only', detail: 'Same shop, date and total as another receipt, or the same file.' },
     ]);
     expect(screen.queryByText(/Nothing needs attention/)).toBeNull();
@@ -237,8 +241,8 @@ describe('BuildOverview', () => {
     // Checking, cores and budgets are the builders' work: no task of the reviewer's.
     expect(attentionLines().map((line) => line.link)).toEqual(['3 receipts to review', '1 answer to read', '2 receipts may be duplicates']);
     const money = screen.getByRole('region', { name: 'Money' });
-    expect(text(money)).toContain('warning Over budget: 112% used, $384.00 over');
-    expect(text(money)).toContain('$3,700.00 warning $500.00 over budget');
+    expect(text(money)).toContain('Net cost is 112% of the budget: $384.00 over it so far.');
+    expect(text(money)).toContain('warning forecast $500.00 over budget');
     expect(screen.queryByRole('link', { name: 'Edit build' })).toBeNull();
     expect(screen.queryByRole('button', { name: 'Archive build' })).toBeNull();
   });
@@ -258,8 +262,8 @@ describe('BuildOverview', () => {
     expect(text(attention)).toBe(
       'Needs attention check_circle Nothing needs attention: every receipt is checked and reviewed, no core deposit is owed and no system is over its budget.',
     );
-    expect(text(screen.getByRole('region', { name: 'Money' }))).toContain('check_circle Under budget: 50% used, $1,600.00 left');
-    expect(text(screen.getByRole('region', { name: 'Money' }))).toContain('$2,000.00 check_circle $1,200.00 under budget');
+    expect(text(screen.getByRole('region', { name: 'Money' }))).toContain('Net cost is 50% of the budget: $1,600.00 of it not spent yet.');
+    expect(text(screen.getByRole('region', { name: 'Money' }))).toContain('check_circle forecast $1,200.00 under budget');
   });
 
   it('gives a new build with no parts and no receipts first steps instead of figures, inviting a partner only for the owner', async () => {

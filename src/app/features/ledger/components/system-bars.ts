@@ -5,7 +5,8 @@ import { MatIconModule } from '@angular/material/icon';
 import type { LedgerDto, LedgerLineFigure, LedgerSystemDto } from '../../../../../shared/api/ledger';
 import { toDecimal } from '../../../../../shared/money';
 import { moneyText, MoneyPipe, wholeMoneyText } from '../../../ui/money';
-import { FIGURE_LABELS, absolute, varianceWords, type LinesRequest } from '../models/ledger-words';
+import { FIGURE_LABELS, type LinesRequest } from '../models/ledger-words';
+import { FIGURE_WORDS, compareWithBudget, type BudgetComparison } from '../../../../../shared/build-figures';
 import { BarChart, type BarClick, type ChartSeries } from './bar-chart';
 import { LEDGER_COLORS } from './ledger-colors';
 
@@ -44,7 +45,7 @@ const LINKED: LedgerLineFigure[] = ['spent', 'netCost', 'coreDepositsOutstanding
               <th scope="col" class="number">{{ columns[figure] }}</th>
             }
             <th scope="col" class="number">Forecast</th>
-            <th scope="col" class="number">Variance</th>
+            <th scope="col" class="number">{{ varianceLabel }}</th>
             @for (figure of linkedLast; track figure) {
               <th scope="col" class="number">{{ columns[figure] }}</th>
             }
@@ -74,10 +75,14 @@ const LINKED: LedgerLineFigure[] = ['spent', 'netCost', 'coreDepositsOutstanding
                 </td>
               }
               <td class="number tabular" data-label="Forecast">{{ system.forecast | money: ledger().currency : locale() }}</td>
-              <td class="number tabular" data-label="Variance" [class.over]="!variance.under" [class.under]="variance.under">
+              <td class="number tabular" [attr.data-label]="varianceLabel" [class.over]="variance.over" [class.under]="!variance.over && !variance.noBudget">
                 <span class="variance">
-                  <mat-icon inline aria-hidden="true">{{ variance.under ? 'check_circle' : 'warning' }}</mat-icon>
-                  {{ variance.amount | money: ledger().currency : locale() }} {{ variance.under ? 'under' : 'over' }}
+                  @if (variance.noBudget) {
+                    No budget set
+                  } @else {
+                    <mat-icon inline aria-hidden="true">{{ variance.over ? 'warning' : 'check_circle' }}</mat-icon>
+                    {{ variance.amount | money: ledger().currency : locale() }} {{ variance.over ? 'over' : 'under' }}
+                  }
                 </span>
               </td>
               @for (figure of linkedLast; track figure) {
@@ -181,8 +186,11 @@ export class SystemBars {
     return (value: number) => wholeMoneyText(value, currency, locale);
   });
 
-  protected varianceOf(system: LedgerSystemDto): { under: boolean; amount: string } {
-    return { under: varianceWords(system.variance).under, amount: absolute(system.variance) };
+  protected readonly varianceLabel = FIGURE_WORDS.variance.label;
+
+  /** The forecast against the budget, by the one rule every screen uses. */
+  protected varianceOf(system: LedgerSystemDto): BudgetComparison {
+    return compareWithBudget('forecast', system.forecast, system.budget);
   }
 
   protected isZero(amount: string): boolean {

@@ -1,12 +1,14 @@
 // The ledger's figures in words, and the overrun factor explained, shared by the totals, the table and the lines panel.
 import type { LedgerLineFigure } from '../../../../../shared/api/ledger';
+import { FIGURE_WORDS } from '../../../../../shared/build-figures';
 import { roundHalfUp, toDecimal, toWire } from '../../../../../shared/money';
 
+/** The names of the figures made of receipt lines, from the one money model. */
 export const FIGURE_LABELS: Record<LedgerLineFigure, string> = {
-  netCost: 'Net cost',
-  spent: 'Spent',
-  coreDepositsOutstanding: 'Core deposits outstanding',
-  returnsAwaitingRefund: 'Returns awaiting refund',
+  netCost: FIGURE_WORDS.netCost.label,
+  spent: FIGURE_WORDS.spent.label,
+  coreDepositsOutstanding: FIGURE_WORDS.coreDepositsOutstanding.label,
+  returnsAwaitingRefund: FIGURE_WORDS.returnsAwaitingRefund.label,
 };
 
 /** What opening a figure asks for: the lines behind it, narrowed as the figure was. */

@@ -11,7 +11,8 @@ const system = (systemId: string, name: string, figures: Partial<LedgerSystemDto
   name,
   safetyCaution: false,
   budget: '0.00',
-  estimate: '0.00',
+  planned: '0.00',
+  planningGap: '0.00',
   spent: '0.00',
   netCost: '0.00',
   coreDepositsOutstanding: '0.00',
@@ -29,26 +30,28 @@ const system = (systemId: string, name: string, figures: Partial<LedgerSystemDto
 const ledger: LedgerDto = {
   currency: 'USD',
   systems: [
-    system('s-engine', 'Engine', { budget: '500.00', estimate: '400.00', spent: '234.27', netCost: '210.85', coreDepositsOutstanding: '23.42', remainingEstimate: '150.00', forecast: '360.85', variance: '139.15', forecastAdjusted: '360.85' }),
-    system('s-cooling', 'Cooling', { budget: '50.00', estimate: '20.00', spent: '57.43', netCost: '57.43', returnsAwaitingRefund: '22.50', forecast: '57.43', variance: '-7.43', forecastAdjusted: '57.43' }),
-    system('s-brakes', 'Brakes', { safetyCaution: true, budget: '800.00', estimate: '300.00', remainingEstimate: '300.00', forecast: '300.00', variance: '500.00', forecastAdjusted: '300.00' }),
+    system('s-engine', 'Engine', { budget: '500.00', planned: '400.00', spent: '234.27', netCost: '210.85', coreDepositsOutstanding: '23.42', remainingEstimate: '150.00', forecast: '360.85', variance: '139.15', forecastAdjusted: '360.85' }),
+    system('s-cooling', 'Cooling', { budget: '50.00', planned: '20.00', spent: '57.43', netCost: '57.43', returnsAwaitingRefund: '22.50', forecast: '57.43', variance: '-7.43', forecastAdjusted: '57.43' }),
+    system('s-brakes', 'Brakes', { safetyCaution: true, budget: '800.00', planned: '300.00', remainingEstimate: '300.00', forecast: '300.00', variance: '500.00', forecastAdjusted: '300.00' }),
     // Nothing budgeted, planned or spent: left out of the chart and table, and out of the caution.
     system('s-fuel', 'Fuel', { safetyCaution: true }),
     system('s-interior', 'Interior', {}),
   ],
   total: {
     budget: '1350.00',
-    estimate: '720.00',
+    planned: '720.00',
     spent: '291.70',
     netCost: '268.28',
     coreDepositsOutstanding: '23.42',
     returnsAwaitingRefund: '22.50',
     remainingEstimate: '450.00',
     variance: '631.72',
+    planningGap: '630.00',
     forecast: '718.28',
     forecastAdjusted: '718.28',
   },
   contingencyBudget: '150.00',
+  budgetWithContingency: '1500.00',
   overrunFactor: '1',
   overrunSample: 2,
 };
@@ -111,13 +114,14 @@ describe('LedgerPage', () => {
     await screen.findByRole('heading', { name: 'By system' });
     expect(figure('Budget')).toBe('$1,350.00');
     expect(figure('Net cost')).toBe('$268.28 (show the lines behind the net cost)');
-    expect(figure('Forecast')).toBe('$718.28');
+    expect(figure('Forecast at completion')).toBe('$718.28');
     expect(figure('Adjusted forecast')).toBe('$718.28');
-    expect(figure('Variance')).toBe('check_circle $631.72 under budget');
+    // Every comparison says against what (shared/build-figures.ts).
+    expect(figure('Forecast against budget')).toBe('check_circle forecast $631.72 under budget');
     expect(figure('Core deposits outstanding')).toBe('$23.42 (show the lines behind the core deposits outstanding)');
     expect(figure('Returns awaiting refund')).toBe('$22.50 (show the lines behind the returns awaiting refund)');
     expect(screen.getByText('Same as the forecast until 5 bought parts have both an estimate and a cost (2 parts have so far).')).toBeTruthy();
-    expect(screen.getByText('Systems; contingency $150.00 kept aside')).toBeTruthy();
+    expect(screen.getByText('The systems’ budgets; the contingency of $150.00 is kept apart.')).toBeTruthy();
     // Brakes carry the safety caution, named.
     expect(screen.getByRole('complementary', { name: 'Safety caution' }).textContent).toContain("Brakes: Tallyhood records costs only. Fuel, brake, steering, wiring and lifting work can injure people: follow the manufacturer's instructions");
   });
@@ -128,7 +132,7 @@ describe('LedgerPage', () => {
     const rows = within(table)
       .getAllByRole('row')
       .map((row) => Array.from(row.children).map((cell) => cell.textContent!.replace(/\s+/g, ' ').trim()));
-    expect(rows[0]).toEqual(['System', 'Budget', 'Spent', 'Net cost', 'Forecast', 'Variance', 'Cores out', 'Returns due']);
+    expect(rows[0]).toEqual(['System', 'Budget', 'Spent', 'Net cost', 'Forecast', 'Forecast against budget', 'Cores out', 'Returns due']);
     // The hidden words of each figure button say what it opens; the icons' names are read from their ligatures here.
     expect(rows[1]).toEqual([
       'Engine',

@@ -7,7 +7,8 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import { forkJoin } from 'rxjs';
-import type { LedgerDto, LedgerLineFigure, SpendPeriod, SpendResponse, VendorSpendDto, VendorsResponse } from '../../../../../shared/api/ledger';
+import { OVERRUN_MIN_SAMPLE, type LedgerDto, type LedgerLineFigure, type SpendPeriod, type SpendResponse, type VendorSpendDto, type VendorsResponse } from '../../../../../shared/api/ledger';
+import type { FigureName } from '../../../../../shared/build-figures';
 import { toDecimal } from '../../../../../shared/money';
 import { EmptyState } from '../../../ui/empty-state';
 import { MoneyPipe, moneyText, wholeMoneyText } from '../../../ui/money';
@@ -16,8 +17,8 @@ import { BarChart, type BarClick, type ChartSeries } from '../components/bar-cha
 import { LEDGER_COLORS } from '../components/ledger-colors';
 import { LinesDialog, type LinesDialogData } from '../components/lines-dialog';
 import { SystemBars, hasFigures } from '../components/system-bars';
-import { TotalsStrip } from '../components/totals-strip';
-import { FIGURE_LABELS, type LinesRequest } from '../models/ledger-words';
+import { MoneySummary } from '../../../ui/money-summary/money-summary';
+import { FIGURE_LABELS, overrunExplanation, type LinesRequest } from '../models/ledger-words';
 import { LedgerApi } from '../services/ledger-api';
 import { SafetyNote } from '../../../ui/safety-note/safety-note';
 
@@ -34,7 +35,7 @@ function periodWords(period: string, short: boolean): string {
 
 @Component({
   selector: 'th-ledger-page',
-  imports: [SafetyNote, MatButtonToggleModule, MatIconModule, MatProgressBarModule, RouterLink, BarChart, EmptyState, MoneyPipe, SystemBars, TotalsStrip],
+  imports: [SafetyNote, MatButtonToggleModule, MatIconModule, MatProgressBarModule, RouterLink, BarChart, EmptyState, MoneyPipe, SystemBars, MoneySummary],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     @if (loading()) {
@@ -66,7 +67,7 @@ function periodWords(period: string, short: boolean): string {
         } @else {
           <section aria-labelledby="totals-heading">
             <h2 id="totals-heading" class="visually-hidden">Whole build</h2>
-            <th-totals-strip [ledger]="ledger" [locale]="locale()" (open)="openTotal($event)" />
+            <th-money-summary [ledger]="ledger" [locale]="locale()" [figures]="summaryFigures" [linesOpen]="true" [hints]="summaryHints()" (open)="openTotal($event)" />
           </section>
 
           @if (hasCaution()) {
@@ -230,6 +231,20 @@ function periodWords(period: string, short: boolean): string {
   `,
 })
 export class LedgerPage {
+  protected readonly summaryFigures: readonly FigureName[] = [
+    'budget',
+    'netCost',
+    'spent',
+    'forecast',
+    'forecastAdjusted',
+    'variance',
+    'coreDepositsOutstanding',
+    'returnsAwaitingRefund',
+  ];
+  protected readonly summaryHints = computed(() => {
+    const ledger = this.ledger();
+    return ledger ? { forecastAdjusted: overrunExplanation(ledger.overrunFactor, ledger.overrunSample, OVERRUN_MIN_SAMPLE) } : {};
+  });
   private readonly ledgerApi = inject(LedgerApi);
   private readonly dialog = inject(MatDialog);
   private readonly current = inject(CurrentBuild);

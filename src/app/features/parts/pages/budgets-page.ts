@@ -18,7 +18,19 @@ import { applyFieldErrors, errorOf, validateWith } from '../../../core/forms/for
 import { toApiError } from '../../../core/http/api-error';
 import { confirmAction } from '../../../ui/confirm-dialog';
 import { Meter } from '../../../ui/meter';
-import { MoneyPipe, currencySign } from '../../../ui/money';
+import { MoneyPipe, currencySign, moneyText } from '../../../ui/money';
+import { MoneySummary } from '../../../ui/money-summary/money-summary';
+import { LedgerApi } from '../../ledger/services/ledger-api';
+import type { LedgerDto } from '../../../../../shared/api/ledger';
+import {
+  addSystemFigures,
+  budgetWithContingency,
+  compareWithBudget,
+  comparisonWords,
+  withBudget,
+  type BudgetComparison,
+  type FigureName,
+} from '../../../../../shared/build-figures';
 import { CurrentBuild } from '../../builds/services/current-build';
 import { BudgetStanding, amountOf, budgetStanding } from '../models/budget-math';
 import { SystemsApi } from '../services/systems-api';
@@ -42,7 +54,10 @@ interface SystemLine {
   system: SystemDto;
   budget: Decimal;
   estimate: Decimal;
+  /** For the meter's width. */
   standing: BudgetStanding;
+  /** What is planned against the budget, in the words every screen uses. */
+  comparison: BudgetComparison;
 }
 
 @Component({
@@ -58,6 +73,7 @@ interface SystemLine {
     MatTooltipModule,
     Meter,
     MoneyPipe,
+    MoneySummary,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
@@ -71,33 +87,9 @@ interface SystemLine {
       @if (loaded()) {
         <section class="summary" aria-labelledby="summary-heading">
           <h2 id="summary-heading" class="visually-hidden">Whole build</h2>
-          <dl class="figures">
-            <div>
-              <dt>Build budget</dt>
-              <dd class="tabular">{{ totalBudget() | money: currency() : locale() }}</dd>
-              <dd class="quiet">Systems {{ systemsBudget() | money: currency() : locale() }} + contingency {{ contingency() | money: currency() : locale() }}</dd>
-            </div>
-            <div>
-              <dt>Estimate</dt>
-              <dd class="tabular">{{ totalEstimate() | money: currency() : locale() }}</dd>
-              <dd class="quiet">All parts on the bill of materials</dd>
-            </div>
-            <div>
-              <dt>Standing</dt>
-              <dd>
-                <span [class.over]="totalStanding().over" class="tabular">
-                  @if (totalStanding().over) {
-                    <mat-icon aria-hidden="true" inline>warning</mat-icon> Over by {{ totalStanding().difference | money: currency() : locale() }}
-                  } @else {
-                    {{ totalStanding().difference | money: currency() : locale() }} left
-                  }
-                </span>
-              </dd>
-              <dd>
-                <th-meter [fillPercent]="totalStanding().fillPercent" [over]="totalStanding().over" />
-              </dd>
-            </div>
-          </dl>
+          @if (liveLedger(); as ledger) {
+            <th-money-summary [ledger]="ledger" [locale]="locale()" [figures]="summaryFigures" />
+          }
         </section>
 
         @if (hasCaution()) {
@@ -108,8 +100,8 @@ interface SystemLine {
         <div class="column-titles" aria-hidden="true">
           <span>System</span>
           <span>Budget</span>
-          <span class="number">Estimate</span>
-          <span>Estimate against budget</span>
+          <span class="number">Planned</span>
+          <span>Planned against budget</span>
           <span></span>
         </div>
         <ul class="systems">
@@ -165,20 +157,21 @@ interface SystemLine {
               </div>
 
               <div class="system-estimate">
-                <span class="label">Estimate</span>
+                <span class="label">Planned</span>
                 <span class="tabular figure">{{ line.estimate | money: currency() : locale() }}</span>
               </div>
 
               <div class="system-standing">
                 <th-meter [fillPercent]="line.standing.fillPercent" [over]="line.standing.over" />
                 @if (line.budget.isZero()) {
-                  <span class="quiet">{{ line.estimate.isZero() ? 'No budget set' : 'No budget set for this estimate' }}</span>
-                } @else if (line.standing.over) {
-                  <span class="over tabular"
-                    ><mat-icon aria-hidden="true" inline>warning</mat-icon> Over by {{ line.standing.difference | money: currency() : locale() }}</span
-                  >
+                  <span class="quiet">No budget set</span>
                 } @else {
-                  <span class="tabular">{{ line.standing.difference | money: currency() : locale() }} left</span>
+                  <span class="tabular" [class.over]="line.comparison.over">
+                    @if (line.comparison.over) {
+                      <mat-icon aria-hidden="true" inline>warning</mat-icon>
+                    }
+                    {{ comparisonText(line.comparison) }}
+                  </span>
                 }
               </div>
 
@@ -499,6 +492,7 @@ interface SystemLine {
 })
 export class BudgetsPage {
   private readonly systemsApi = inject(SystemsApi);
+  private readonly ledgerApi = inject(LedgerApi);
   private readonly dialog = inject(MatDialog);
   private readonly snackBar = inject(MatSnackBar);
   private readonly destroyRef = inject(DestroyRef);
@@ -552,16 +546,34 @@ export class BudgetsPage {
       .map((system) => {
         const budget = this.effectiveAmount(system.id, system.budget);
         const estimate = amountOf(system.estimate);
-        return { system, budget, estimate, standing: budgetStanding(estimate, budget) };
+        return {
+          system,
+          budget,
+          estimate,
+          standing: budgetStanding(estimate, budget),
+          comparison: compareWithBudget('planned', toWire(estimate), toWire(budget)),
+        };
       }),
   );
   protected readonly archivedSystems = computed(() => this.systems().filter((system) => system.archived));
   protected readonly contingency = computed(() => this.effectiveAmount(CONTINGENCY, this.savedContingency()));
-  protected readonly systemsBudget = computed(() => sum(this.activeLines().map((line) => line.budget)));
-  protected readonly totalBudget = computed(() => sum([this.systemsBudget(), this.contingency()]));
-  /** Every part counts, archived systems' included, as the server's total does. */
-  protected readonly totalEstimate = computed(() => sum(this.systems().map((system) => amountOf(system.estimate))));
-  protected readonly totalStanding = computed(() => budgetStanding(this.totalEstimate(), this.totalBudget()));
+  protected readonly summaryFigures: readonly FigureName[] = ['budget', 'contingency', 'budgetWithContingency', 'planned', 'planningGap', 'forecast', 'variance'];
+  /** The ledger as last loaded: the figures the other screens show. */
+  private readonly ledger = signal<LedgerDto | null>(null);
+  /** The same ledger with the budgets as typed (while they are valid), worked out by the shared money model. */
+  protected readonly liveLedger = computed<LedgerDto | null>(() => {
+    const ledger = this.ledger();
+    if (!ledger) return null;
+    const places = this.places();
+    const typed = new Map(this.activeLines().map((line) => [line.system.id, line.budget]));
+    const systems = ledger.systems.map((system) => {
+      const budget = typed.get(system.systemId);
+      return budget ? { ...system, ...withBudget(system, budget, places) } : system;
+    });
+    const total = addSystemFigures(systems, places);
+    const contingency = toWire(this.contingency(), places);
+    return { ...ledger, systems, total, contingencyBudget: contingency, budgetWithContingency: budgetWithContingency(total.budget, contingency, places) };
+  });
   protected readonly hasCaution = computed(() => this.activeLines().some((line) => line.system.safetyCaution));
   protected readonly cautionSystems = computed(() => this.activeLines().filter((line) => line.system.safetyCaution).map((line) => line.system.name));
 
@@ -690,6 +702,7 @@ export class BudgetsPage {
           this.busy.set(false);
           this.replace(saved);
           this.snackBar.open(`${saved.name} is archived.`, 'Dismiss', { duration: 6000 });
+        this.loadLedger(this.buildId());
         },
         error: (error: unknown) => {
           this.busy.set(false);
@@ -706,6 +719,7 @@ export class BudgetsPage {
         this.replace(saved);
         this.addBudgetControl(saved);
         this.snackBar.open(`${saved.name} is back in the build.`, 'Dismiss', { duration: 6000 });
+        this.loadLedger(this.buildId());
       },
       error: (error: unknown) => {
         this.busy.set(false);
@@ -731,6 +745,7 @@ export class BudgetsPage {
         this.addBudgetControl(created);
         this.addForm.reset({ name: '', budget: '' });
         this.status.set(`${created.name} added.`);
+        this.loadLedger(this.buildId());
         this.snackBar.open(`${created.name} added.`, 'Dismiss', { duration: 5000 });
       },
       error: (error: unknown) => {
@@ -782,7 +797,17 @@ export class BudgetsPage {
     this.budgetForm.setControl(system.id, new FormControl(system.budget, { nonNullable: true, validators: budgetValidator(this.places(), true) }));
   }
 
+  protected comparisonText(comparison: BudgetComparison): string {
+    return comparisonWords(comparison, moneyText(comparison.amount, this.currency(), this.locale()));
+  }
+
+  /** Systems added, archived or restored change the ledger's rows: read it again. */
+  private loadLedger(buildId: string): void {
+    this.ledgerApi.ledger(buildId).subscribe({ next: (ledger) => this.ledger.set(ledger), error: () => this.ledger.set(null) });
+  }
+
   private load(buildId: string): void {
+    this.loadLedger(buildId);
     this.loading.set(true);
     this.systemsApi.list(buildId, true).subscribe({
       next: (response: SystemsResponse) => {

@@ -14,8 +14,8 @@ const overview: SystemsResponse = {
   currency: 'USD',
   systems: [system('s-engine', 'Engine', '100.00', 0), system('s-cooling', 'Cooling', '0.00', 2), system('s-brakes', 'Brakes', '500.00', 6, true)],
   contingencyBudget: '0.00',
-  totalBudget: '600.00',
-  totalEstimate: '249.50',
+  budgetWithContingency: '600.00',
+  planned: '249.50',
   buildVersion: 2,
 };
 
@@ -47,13 +47,13 @@ function cellsOf(row: HTMLElement): string[] {
 }
 
 describe('PartsPage', () => {
-  it('closes each system with a totals row: estimate against budget, over budget in words with an icon', async () => {
+  it('closes each system with a totals row: planned against budget, over budget in words with an icon', async () => {
     await renderAs('owner');
 
     const totals = Array.from(document.querySelectorAll<HTMLElement>('tr.total-row')).map(cellsOf);
     expect(totals).toEqual([
-      ['Engine: estimate against budget', '$120.50', 'of $100.00 budget Over budget by $20.50'],
-      ['Brakes: estimate against budget', '$129.00', 'of $500.00 budget $371.00 left'],
+      ['Engine: planned against budget', '$120.50', 'of $100.00 budget planned $20.50 over budget'],
+      ['Brakes: planned against budget', '$129.00', 'of $500.00 budget planned $371.00 under budget'],
     ]);
     const over = document.querySelector('tr.total-row .over')!;
     expect(over.querySelector('mat-icon')?.textContent).toBe('warning');
@@ -117,11 +117,11 @@ describe('PartsPage', () => {
     request.flush({ parts: [{ ...parts[0], systemId: 's-cooling' }, { ...parts[2], systemId: 's-cooling' }] });
 
     // Cooling has no budget: 90.50 + 129.00 = 219.50 with "No budget set"; Engine keeps the gasket's 30.00.
-    await screen.findByText('Cooling: estimate against budget');
+    await screen.findByText('Cooling: planned against budget');
     const totals = Array.from(document.querySelectorAll<HTMLElement>('tr.total-row')).map(cellsOf);
     expect(totals).toEqual([
-      ['Engine: estimate against budget', '$30.00', 'of $100.00 budget $70.00 left'],
-      ['Cooling: estimate against budget', '$219.50', 'No budget set'],
+      ['Engine: planned against budget', '$30.00', 'of $100.00 budget planned $70.00 under budget'],
+      ['Cooling: planned against budget', '$219.50', 'No budget set'],
     ]);
     expect(screen.queryByText('2 selected')).toBeNull();
   });

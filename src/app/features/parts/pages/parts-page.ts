@@ -17,10 +17,11 @@ import { RouterLink } from '@angular/router';
 import { forkJoin } from 'rxjs';
 import type { ImportResultDto, PartDto, SystemDto } from '../../../../../shared/api/parts';
 import { PART_STATUSES, PART_STATUS_LABELS, PartStatus } from '../../../../../shared/enums';
-import { Decimal } from '../../../../../shared/money';
+import { compareWithBudget, comparisonWords } from '../../../../../shared/build-figures';
+import { Decimal, toWire } from '../../../../../shared/money';
 import { toApiError } from '../../../core/http/api-error';
 import { EmptyState } from '../../../ui/empty-state';
-import { MoneyPipe } from '../../../ui/money';
+import { MoneyPipe, moneyText } from '../../../ui/money';
 import { injectNarrowScreen } from '../../../ui/narrow-screen';
 import { CurrentBuild } from '../../builds/services/current-build';
 import { ImportDialog, ImportDialogData } from '../components/import-dialog';
@@ -248,7 +249,7 @@ const SORTERS: Record<string, (a: PartDto, b: PartDto) => number> = {
             </ng-container>
             <ng-container matColumnDef="totalLabel">
               <td mat-cell *matCellDef="let row" [attr.colspan]="totalLabelSpan()" class="total-label">
-                {{ row.group.system.name }}: estimate against budget
+                {{ row.group.system.name }}: planned against budget
               </td>
             </ng-container>
             <ng-container matColumnDef="totalEstimate">
@@ -260,14 +261,12 @@ const SORTERS: Record<string, (a: PartDto, b: PartDto) => number> = {
                   <span>No budget set</span>
                 } @else {
                   <span class="tabular">of {{ row.group.budget | money: currency() : locale() }} budget</span>&ngsp;
-                  @if (row.group.standing.over) {
-                    <span class="over"
-                      ><mat-icon aria-hidden="true" inline>warning</mat-icon> Over budget by
-                      <span class="tabular">{{ row.group.standing.difference | money: currency() : locale() }}</span></span
-                    >
-                  } @else {
-                    <span class="left tabular">{{ row.group.standing.difference | money: currency() : locale() }} left</span>
-                  }
+                  <span class="tabular" [class.over]="row.group.standing.over" [class.left]="!row.group.standing.over">
+                    @if (row.group.standing.over) {
+                      <mat-icon aria-hidden="true" inline>warning</mat-icon>
+                    }
+                    {{ comparisonText(row.group) }}
+                  </span>
                 }
               </td>
             </ng-container>
@@ -492,6 +491,12 @@ export class PartsPage {
   protected readonly totalBudgetSpan = computed(() => this.partColumns().length - this.totalLabelSpan() - 1);
 
   /** Each system's figures from all of its parts, whatever the filter shows. */
+  /** "planned $45.00 under budget": the words every screen uses for this comparison. */
+  protected comparisonText(group: SystemGroup): string {
+    const comparison = compareWithBudget('planned', toWire(group.estimate), toWire(group.budget));
+    return comparisonWords(comparison, moneyText(comparison.amount, this.currency(), this.locale()));
+  }
+
   private readonly groups = computed(() => {
     const bySystem = new Map<string, string[]>();
     for (const part of this.parts()) bySystem.set(part.systemId, [...(bySystem.get(part.systemId) ?? []), part.estimatedTotal]);

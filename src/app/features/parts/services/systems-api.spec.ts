@@ -23,8 +23,8 @@ const overview: SystemsResponse = {
   currency: 'USD',
   systems: [brakes],
   contingencyBudget: '150.00',
-  totalBudget: '1350.00',
-  totalEstimate: '318.99',
+  budgetWithContingency: '1350.00',
+  planned: '318.99',
   buildVersion: 4,
 };
 

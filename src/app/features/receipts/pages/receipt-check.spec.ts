@@ -77,7 +77,7 @@ async function renderAs(role: BuildRole, shown: ReceiptDto, suggestions: Receipt
   http.expectOne('/api/builds/b-1/parts').flush({ parts: [] });
   http
     .expectOne('/api/builds/b-1/systems')
-    .flush({ currency: 'USD', systems: [system('s-brakes', 'Brakes', true), system('s-tools', 'Tools and consumables')], contingencyBudget: '0', totalBudget: '0', totalEstimate: '0', buildVersion: 2 });
+    .flush({ currency: 'USD', systems: [system('s-brakes', 'Brakes', true), system('s-tools', 'Tools and consumables')], contingencyBudget: '0', budgetWithContingency: '0', planned: '0', buildVersion: 2 });
   await new Promise((resolve) => setTimeout(resolve, 0));
   http.expectOne('/api/builds/b-1/receipts/r-1').flush(shown);
   await screen.findByRole('heading', { name: 'Ridgeback Parts' });

@@ -37,7 +37,7 @@ async function renderAs(role: BuildRole, receipts: ReceiptSummaryDto[]) {
   });
   const http = TestBed.inject(HttpTestingController);
   http.expectOne('/api/builds/b-1/receipts').flush({ receipts });
-  http.expectOne('/api/builds/b-1/systems').flush({ currency: 'USD', systems: [], contingencyBudget: '0', totalBudget: '0', totalEstimate: '0', buildVersion: 2 });
+  http.expectOne('/api/builds/b-1/systems').flush({ currency: 'USD', systems: [], contingencyBudget: '0', budgetWithContingency: '0', planned: '0', buildVersion: 2 });
   await screen.findByRole('heading', { name: receipts.length ? 'Receipts' : 'No receipts yet' });
   await screen.findAllByText(receipts.length ? /Ridgeback Parts|Copperline/ : 'No receipts yet');
   return http;
@@ -128,7 +128,7 @@ describe('ReceiptList filters in the URL', () => {
     await RouterTestingHarness.create(url);
     return TestBed.inject(HttpTestingController);
   }
-  const systems = { currency: 'USD', systems: [], contingencyBudget: '0', totalBudget: '0', totalEstimate: '0', buildVersion: 2 };
+  const systems = { currency: 'USD', systems: [], contingencyBudget: '0', budgetWithContingency: '0', planned: '0', buildVersion: 2 };
   const stateShown = () => screen.getByRole('combobox', { name: 'State' }).textContent?.trim();
 
   it('asks the server for the filters of the URL it opens at, and shows them chosen', async () => {
