@@ -38,9 +38,10 @@ whenPresent('the parser on the true text of real receipts (SROIE truth, box/ fil
     const read = parseTrue('008');
     expect(figures(read)).toEqual({ total: '112.45', subtotal: '106.10', tax: '6.37' });
     expect(roundingLine(read)).toBe('-0.02');
+    // CHANGE 0.00 is printed: the cash handed over was the total to the cent.
     expect(read.agreements).toEqual([
       'it is printed beside a total word',
-      'the amount paid matches it',
+      'the amount tendered minus the change matches it',
       'the subtotal plus tax plus the rounding adjustment matches it',
       'the lines and charges add up to it',
       'net plus tax in the tax table gives it',
@@ -60,10 +61,11 @@ whenPresent('the parser on the true text of real receipts (SROIE truth, box/ fil
   });
 
   it('finds the lines adding up to the subtotal and subtotal + tax to a total printed without its word (receipt 016)', () => {
-    // Printed: 2.83 and 66.04 as lines, SUB TOTAL RM 68.87, GST/TAX 6% RM 4.13, "TO : RM 73.00" (label cut short).
+    // Printed: 2.83 and 66.04 as lines, SUB TOTAL RM 68.87, GST/TAX 6% RM 4.13, "TO : RM 73.00" (label cut short), and
+    // under it a GST summary "SR @ 6% 68.87 4.13", found although no total word stands above it.
     const read = parseTrue('016');
     expect(figures(read)).toEqual({ total: '73.00', subtotal: '68.87', tax: '4.13' });
-    expect(read.agreements).toEqual(['the subtotal plus tax matches it', 'the lines and charges add up to it', 'the lines add up to the subtotal']);
+    expect(read.agreements).toEqual(['the subtotal plus tax matches it', 'the lines and charges add up to it', 'net plus tax in the tax table gives it', 'the lines add up to the subtotal']);
   });
 
   it('takes the amount tendered minus the change as a check of the total (receipt 003)', () => {
