@@ -5,6 +5,8 @@ import { minorUnits } from '../../../../shared/money';
 import { OcrPool, modelFor } from './ocr';
 import { parseReceipt } from './parse-receipt';
 import { readPdfPages } from './pdf-text';
+import { lookAgainAtDate } from './date-look';
+import { dateLimits } from './receipt-date';
 import { BAND_SCALES, rereadSummaryBand } from './second-look';
 import { sniffReceiptType } from './sniff';
 import type { TextPage } from './text-lines';
@@ -106,15 +108,23 @@ export async function readDocumentWithImages(bytes: Buffer, options: ReadOptions
   const image = await normaliseImage(bytes, type);
   const first = await pool.read(image.png, 0);
   const page = (lines: TextPage['lines']): TextPage => ({ width: image.width, height: image.height, source: 'ocr', lines });
-  const reading = parseReceipt([page(first.lines)], parseOptions);
-  if (consistent(reading) && linesAddUp(reading)) return { reading, images: [image] };
+  const reading = await readFigures(pool, image, first.lines, page, parseOptions);
+  // The date is looked at again on its own: its lines are few, and the figures' second look does not read them.
+  const { date } = await lookAgainAtDate(pool, image, first.lines, reading.date, locale, dateLimits(options.readOn));
+  return { reading: date === reading.date ? reading : { ...reading, date }, images: [image] };
+}
+
+/** The first reading's figures, or those of a second look at the summary band when the first did not agree. */
+async function readFigures(pool: OcrPool, image: NormalisedImage, lines: TextPage['lines'], page: (lines: TextPage['lines']) => TextPage, parseOptions: Parameters<typeof parseReceipt>[1]): Promise<ReadReceipt> {
+  const reading = parseReceipt([page(lines)], parseOptions);
+  if (consistent(reading) && linesAddUp(reading)) return reading;
   // A second look, only when the first reading's figures do not agree: the band of summary lines read again at
   // another size (from the first item line when the lines did not add up). Taken only when it agrees better.
   for (const scale of BAND_SCALES) {
-    const lines = await rereadSummaryBand(pool, image, first.lines, !linesAddUp(reading), scale);
-    if (!lines) break;
-    const second = parseReceipt([page(lines)], parseOptions);
-    if (consistent(second) && (!consistent(reading) || linesAddUp(second))) return { reading: second, images: [image] };
+    const reread = await rereadSummaryBand(pool, image, lines, !linesAddUp(reading), scale);
+    if (!reread) break;
+    const second = parseReceipt([page(reread)], parseOptions);
+    if (consistent(second) && (!consistent(reading) || linesAddUp(second))) return second;
   }
-  return { reading, images: [image] };
+  return reading;
 }
