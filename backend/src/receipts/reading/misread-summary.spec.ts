@@ -26,7 +26,7 @@ describe('a figure printed nowhere needs two independent facts', () => {
     expect(receipt.total.value).toBe('112.45');
     expect(receipt.agreements).toEqual([
       'the subtotal plus tax plus the rounding adjustment matches it',
-      'the lines and charges add up to it',
+      // The lines adding up to that very subtotal are said once, of the subtotal: no second fact for the sum.
       'net plus tax in the tax table gives it',
       'the lines add up to the subtotal',
     ]);

@@ -64,9 +64,9 @@ export interface DocumentRead {
   images: Array<NormalisedImage | null>;
 }
 
-/** A reading is consistent when the receipt's own arithmetic agreed on its total. */
-function consistent(reading: ReadReceipt): boolean {
-  return reading.total.value !== null && (reading.agreements ?? []).some((fact) => !fact.startsWith('it is printed'));
+/** How many independent facts of the receipt's own arithmetic agreed on its total (the printed word is none). */
+function factsAgreeing(reading: ReadReceipt): number {
+  return reading.total.value === null ? 0 : (reading.agreements ?? []).filter((fact) => !fact.startsWith('it is printed')).length;
 }
 
 /** The item lines add up to the subtotal or the total. */
@@ -117,14 +117,20 @@ export async function readDocumentWithImages(bytes: Buffer, options: ReadOptions
 /** The first reading's figures, or those of a second look at the summary band when the first did not agree. */
 async function readFigures(pool: OcrPool, image: NormalisedImage, lines: TextPage['lines'], page: (lines: TextPage['lines']) => TextPage, parseOptions: Parameters<typeof parseReceipt>[1]): Promise<ReadReceipt> {
   const reading = parseReceipt([page(lines)], parseOptions);
-  if (consistent(reading) && linesAddUp(reading)) return reading;
+  const agreeing = factsAgreeing(reading);
+  // Two independent facts on the total, or one with the lines adding up, settle it (measured on the 200 real scans:
+  // a second look then never changed a total, and it was most of the time spent on them).
+  if (agreeing >= 2 || (agreeing === 1 && linesAddUp(reading))) return reading;
   // A second look, only when the first reading's figures do not agree: the band of summary lines read again at
-  // another size (from the first item line when the lines did not add up). Taken only when it agrees better.
+  // another size (from the first item line when the lines did not add up). It is kept only when two independent
+  // facts agree on its total, more than on the first's, or when the first had none and it has one: a second reading
+  // backed by one fact only had cost a total that was read right.
   for (const scale of BAND_SCALES) {
     const reread = await rereadSummaryBand(pool, image, lines, !linesAddUp(reading), scale);
     if (!reread) break;
     const second = parseReceipt([page(reread)], parseOptions);
-    if (consistent(second) && (!consistent(reading) || linesAddUp(second))) return second;
+    const secondAgreeing = factsAgreeing(second);
+    if ((secondAgreeing >= 2 && secondAgreeing > agreeing) || (agreeing === 0 && secondAgreeing >= 1)) return second;
   }
   return reading;
 }

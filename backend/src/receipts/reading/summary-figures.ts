@@ -113,11 +113,10 @@ export function chooseFigures(entries: SummaryEntry[], lineSum: Decimal | null, 
     if (index !== null && (found.index === null || index > found.index)) found.index = index;
     return found;
   };
-  /** A fact that only repeats one already counted (the same sum in other words) is listed but weighs nothing. */
+  /** A fact that only repeats one already counted (the same sum in other words) is neither listed nor weighed. */
   const addFact = (target: Candidate | undefined, weight: number, fact: string, independent = true) => {
-    if (!target || target.facts.includes(fact)) return;
+    if (!target || target.facts.includes(fact) || !independent) return;
     target.facts.push(fact);
-    if (!independent) return;
     target.score += weight;
     target.independent += 1;
   };
