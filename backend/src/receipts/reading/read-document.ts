@@ -6,6 +6,7 @@ import { OcrPool, modelFor } from './ocr';
 import { parseReceipt } from './parse-receipt';
 import { readPdfPages } from './pdf-text';
 import { lookAgainAtDate } from './date-look';
+import { lookAgainAtHeading } from './heading-look';
 import { dateLimits } from './receipt-date';
 import { BAND_SCALES, rereadSummaryBand } from './second-look';
 import { sniffReceiptType } from './sniff';
@@ -111,7 +112,9 @@ export async function readDocumentWithImages(bytes: Buffer, options: ReadOptions
   const reading = await readFigures(pool, image, first.lines, page, parseOptions);
   // The date is looked at again on its own: its lines are few, and the figures' second look does not read them.
   const { date } = await lookAgainAtDate(pool, image, first.lines, reading.date, locale, dateLimits(options.readOn));
-  return { reading: date === reading.date ? reading : { ...reading, date }, images: [image] };
+  // So is the heading, when the shop's name in its large print was lost.
+  const vendor = await lookAgainAtHeading(pool, image, first.lines, reading.vendor, options.knownVendors);
+  return { reading: date === reading.date && vendor === reading.vendor ? reading : { ...reading, date, vendor }, images: [image] };
 }
 
 /** The first reading's figures, or those of a second look at the summary band when the first did not agree. */

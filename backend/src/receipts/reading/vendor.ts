@@ -86,12 +86,32 @@ function withoutGuesses(line: VendorLine): VendorLine | null {
 /** A name broken over two lines ends its first with a joining mark or word ("HOME MASTER HARDWARE &" / "ELECTRICAL"). */
 const CONTINUES = /(?:[&,+\-]|\bAND|\bUND|\bET|\bY|\bE|\bEN|\bDAN)$/i;
 
+/** The index of the first address or phone line among the top lines, or -1. */
+function firstAddressLine(top: VendorLine[]): number {
+  return top.findIndex((line) => line.keywords.some((word) => ADDRESS_SET.has(word)) && !BUSINESS_SUFFIX.test(cleaned(line.text)));
+}
+
+/**
+ * Where the heading above the shop's address ends, when no line there reads as a name (large print and logos are
+ * often lost to OCR read at the size of the small print); null when a name was read or no address line is found.
+ */
+export function lostHeadingBottom(lines: VendorLine[]): number | null {
+  const top = lines.slice(0, 10);
+  const address = firstAddressLine(top);
+  if (address <= 0) return null;
+  const named = top.slice(0, address).some((line) => {
+    const kept = withoutGuesses(line);
+    return kept !== null && kept.confidence >= 0.5 && looksLikeName(kept);
+  });
+  return named ? null : top[address].line.box.y;
+}
+
 export function findVendor(lines: VendorLine[], knownVendors: string[] = []): ReadField<string> {
   const top = lines.slice(0, 10).map((line) => withoutGuesses(line) ?? { ...line, text: '', keywords: [] });
   const heights = lines.flatMap((line) => line.line.words.map((word) => word.box.h));
   const typical = Math.max(1, median(heights));
   // The name is printed above the shop's address and phone: a line below the first of those is rarely the name.
-  const firstAddress = top.findIndex((line) => line.keywords.some((word) => ADDRESS_SET.has(word)) && !BUSINESS_SUFFIX.test(cleaned(line.text)));
+  const firstAddress = firstAddressLine(top);
   let best: { index: number; score: number } | null = null;
   top.forEach((line, index) => {
     if (!looksLikeName(line)) return;
