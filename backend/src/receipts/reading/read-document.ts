@@ -8,7 +8,7 @@ import { readPdfPages } from './pdf-text';
 import { lookAgainAtDate } from './date-look';
 import { lookAgainAtHeading } from './heading-look';
 import { dateLimits } from './receipt-date';
-import { BAND_SCALES, rereadSummaryBand } from './second-look';
+import { BAND_SCALES, figuresSettled, linesAddUp, rereadSummaryBand, secondLookBetter } from './second-look';
 import { sniffReceiptType } from './sniff';
 import type { TextPage } from './text-lines';
 
@@ -65,16 +65,6 @@ export interface DocumentRead {
   images: Array<NormalisedImage | null>;
 }
 
-/** How many independent facts of the receipt's own arithmetic agreed on its total (the printed word is none). */
-function factsAgreeing(reading: ReadReceipt): number {
-  return reading.total.value === null ? 0 : (reading.agreements ?? []).filter((fact) => !fact.startsWith('it is printed')).length;
-}
-
-/** The item lines add up to the subtotal or the total. */
-function linesAddUp(reading: ReadReceipt): boolean {
-  return (reading.agreements ?? []).some((fact) => fact.startsWith('the lines'));
-}
-
 export async function readDocument(bytes: Buffer, options: ReadOptions = {}): Promise<ReadReceipt> {
   return (await readDocumentWithImages(bytes, options)).reading;
 }
@@ -120,20 +110,14 @@ export async function readDocumentWithImages(bytes: Buffer, options: ReadOptions
 /** The first reading's figures, or those of a second look at the summary band when the first did not agree. */
 async function readFigures(pool: OcrPool, image: NormalisedImage, lines: TextPage['lines'], page: (lines: TextPage['lines']) => TextPage, parseOptions: Parameters<typeof parseReceipt>[1]): Promise<ReadReceipt> {
   const reading = parseReceipt([page(lines)], parseOptions);
-  const agreeing = factsAgreeing(reading);
-  // Two independent facts on the total, or one with the lines adding up, settle it (measured on the 200 real scans:
-  // a second look then never changed a total, and it was most of the time spent on them).
-  if (agreeing >= 2 || (agreeing === 1 && linesAddUp(reading))) return reading;
+  if (figuresSettled(reading)) return reading;
   // A second look, only when the first reading's figures do not agree: the band of summary lines read again at
-  // another size (from the first item line when the lines did not add up). It is kept only when two independent
-  // facts agree on its total, more than on the first's, or when the first had none and it has one: a second reading
-  // backed by one fact only had cost a total that was read right.
+  // another size (from the first item line when the lines did not add up).
   for (const scale of BAND_SCALES) {
     const reread = await rereadSummaryBand(pool, image, lines, !linesAddUp(reading), scale);
     if (!reread) break;
     const second = parseReceipt([page(reread)], parseOptions);
-    const secondAgreeing = factsAgreeing(second);
-    if ((secondAgreeing >= 2 && secondAgreeing > agreeing) || (agreeing === 0 && secondAgreeing >= 1)) return second;
+    if (secondLookBetter(reading, second)) return second;
   }
   return reading;
 }
