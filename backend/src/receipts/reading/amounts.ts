@@ -95,8 +95,13 @@ export function readAmount(token: string, options: AmountOptions = {}): ReadAmou
     .replace(/(?<=[0-9])[~_]$/, '-')
     .replace(/^\*+|\*+$/g, '')
     .replace(/(?<=[0-9][.,][0-9]{2})[A-HJ-NP-Z]$/, '');
-  if (text === '' || /[%/:]/.test(text)) return null;
   let confidence = 1;
+  // A stray stroke OCR put before an amount ("/18.00"): the slash of a date or a fraction never stands first.
+  if (/^\/[0-9]+[.,][0-9]+$/.test(text)) {
+    text = text.slice(1);
+    confidence = 0.8;
+  }
+  if (text === '' || /[%/:]/.test(text)) return null;
 
   let negative = false;
   if (/^\(.*\)-?$/.test(text)) {

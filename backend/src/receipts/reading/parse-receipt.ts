@@ -7,7 +7,7 @@ import { findDate } from './dates';
 import { chooseReceiptDate, dateLimits } from './receipt-date';
 import { findVendor } from './vendor';
 import { editDistance, hasWord, keywordOf, readLabel, sameWord } from './label-words';
-import { chooseFigures, SummaryEntry, TaxTableRow } from './summary-figures';
+import { chooseFigures, SummaryEntry, TaxTable, TaxTableRow } from './summary-figures';
 import { TAX_TABLE_WORDS } from './summary-words';
 import type { SummaryRole } from './summary-words';
 import { TextLine, TextPage, TextWord, lineText, unionBox } from './text-lines';
@@ -122,10 +122,28 @@ function labelKeywords(tokens: Token[]): string[] {
   return labels;
 }
 
+/**
+ * A summary line whose amount lost its decimal point entirely ("Total GST 308", "Rounding -001", "SUB TOTAL 14014"):
+ * a whole number of three or more digits ending the line is read with the currency's decimals, a little less sure.
+ * Only after a summary word: anywhere else such a number is a code or a count.
+ */
+function readLostPoint(tokens: Token[], options: AmountOptions): void {
+  const decimals = options.minorUnits ?? 2;
+  const last = tokens[tokens.length - 1];
+  if (decimals === 0 || !last) return;
+  const match = /^([-−]?)(.*?)([0-9]{3,7})([-~_]?)$/.exec(last.text);
+  if (!match || (match[2] !== '' && !currencyMark(match[2]))) return;
+  const digits = match[3];
+  if (digits.length <= decimals) return;
+  const joined = readAmount(`${match[1]}${digits.slice(0, -decimals)}.${digits.slice(-decimals)}${match[4]}`, options);
+  if (joined) last.amount = { ...joined, mark: match[2] === '' ? null : currencyMark(match[2]), confidence: Math.min(joined.confidence, 0.6) };
+}
+
 function analyse(line: TextLine, options: AmountOptions): AnalysedLine {
   const tokens = tokenize(line, options);
   const confidence = line.words.reduce((total, word) => total + word.confidence, 0) / Math.max(line.words.length, 1);
   const label = readLabel(labelKeywords(tokens));
+  if (label.role !== null && !label.notASum && !tokens.some((token) => token.amount)) readLostPoint(tokens, options);
   const hasAmount = tokens.some((token) => token.amount);
   return {
     line,
@@ -476,21 +494,23 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
 
   // Summary figures: every figure printed beside a summary word is a candidate; the receipt's arithmetic chooses.
   const entries: SummaryEntry[] = lostTotal ? [{ role: 'unlabelled', value: lostTotal.amount, index: lostTotal.lineIndex!, confidence: lostTotal.confidence }] : [];
+  const taxTable = readTaxTable(lines, itemEnd);
   for (let index = itemEnd; index < lines.length; index += 1) {
     const analysed = lines[index];
     const amount = rightmostAmount(analysed);
-    if (!amount || analysed.notASum) continue;
+    // The tax table's own total row ("TOTAL: 26.00 1.56") ends on the tax, not on the receipt's total.
+    if (!amount || analysed.notASum || index === taxTable.totalIndex) continue;
     entries.push({ role: analysed.summary ?? 'unlabelled', value: new Decimal(amount.value), index, confidence: Math.min(amount.confidence, analysed.confidence) });
   }
-  repairSubtotal(lines, entries, readLines, notes);
+  repairSubtotal(entries, readLines);
   const printedSubtotal = entries.find((entry) => entry.role === 'subtotal');
   const repairedLine = printedSubtotal ? repairOneLine(readLines, printedSubtotal.value, notes) : null;
   const itemSum = sum(readLines.map((item) => new Decimal(item.amount)));
-  const taxTable = taxTableRows(lines, entries);
   const chosen = chooseFigures(entries, readLines.length > 0 ? itemSum : null, taxTable);
   const { subtotal, shipping, discount } = chosen;
   // A slip that prints its tax only in the table under the total (common in Europe): the table's taxes add up.
-  const tax = repairTax(chosen, notes) ?? (taxTable.length > 0 ? { value: sum(taxTable.map((row) => row.tax)), confidence: 0.8 } : null);
+  const tableRows = taxTable.rows.length > 0 ? taxTable.rows : taxTable.total ? [taxTable.total] : [];
+  const tax = repairTax(chosen, notes) ?? (tableRows.length > 0 ? { value: sum(tableRows.map((row) => row.tax)), confidence: 0.8 } : null);
   const total = chosen.total ? { ...chosen.total } : null;
   const discountValue = discount ? discount.value.abs() : null;
   // A cash-rounded total is the amount paid; the adjustment stays as its own line so the receipt reconciles.
@@ -533,6 +553,7 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
   }
   if (readLines.length === 0) notes.push('No item lines were found; enter them by hand.');
   if (!total) notes.push('No total was found; enter it from the receipt.');
+  else if (chosen.unconfirmed) notes.push(`No total could be read beside its word; taken as ${toWire(total.value, minor)}, what the slip's other figures give. Check it.`);
   const agreements = [...chosen.agreements];
   if (linesMatchSubtotal) agreements.push('the lines add up to the subtotal');
 
@@ -554,7 +575,7 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
     tax: field(wire(tax?.value), boost(tax?.confidence ?? 0, totalsAgree)),
     shipping: field(wire(shipping?.value), boost(shipping?.confidence ?? 0, totalsAgree)),
     discount: field(wire(discountValue), boost(discount?.confidence ?? 0, totalsAgree)),
-    total: field(wire(total?.value), boost(total?.confidence ?? 0, totalsAgree && !totalRepaired)),
+    total: field(wire(total?.value), boost(total?.confidence ?? 0, totalsAgree && !totalRepaired && !chosen.unconfirmed)),
     agreements,
     notes,
     pages: pages.map(({ width, height, source }) => ({ width, height, source })),
@@ -563,45 +584,42 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
 }
 
 /**
- * Rows of a tax table under the total: the last two amounts of a line below the first tax-table heading, net then
- * tax ("SR 6% 106.10 6.37", "A 19% 42,02 7,98 50,00" where the third is their gross).
+ * A tax table under the summary lines: the last two amounts of each line below its heading, net then tax
+ * ("SR 6% 106.10 6.37", "A 19% 42,02 7,98 50,00" where the third is their gross), and its own total row, kept apart:
+ * OCR reads the two independently, and that row's last amount is the tax, never the receipt's total.
  */
-function taxTableRows(lines: AnalysedLine[], entries: SummaryEntry[]): TaxTableRow[] {
-  const firstTotal = entries.find((entry) => entry.role === 'total' || entry.role === 'final_total');
-  if (!firstTotal) return [];
-  const heading = lines.findIndex((analysed, index) => index > firstTotal.index && analysed.tokens.every((token) => !token.amount) && hasWord(analysed.keywords, ...TAX_TABLE_WORDS) && hasWord(analysed.keywords, 'GST', 'VAT', 'TAX', 'MWST', 'TVA', 'IVA', 'BTW', 'SST', 'UST', 'STEUER', 'CUKAI'));
-  if (heading === -1) return [];
-  const rows: TaxTableRow[] = [];
-  for (const analysed of lines.slice(heading + 1, heading + 6)) {
+function readTaxTable(lines: AnalysedLine[], summaryStart: number): TaxTable {
+  const table: TaxTable = { rows: [], total: null, totalIndex: null };
+  const heading = lines.findIndex((analysed, index) => index >= summaryStart && analysed.tokens.every((token) => !token.amount) && hasWord(analysed.keywords, ...TAX_TABLE_WORDS) && hasWord(analysed.keywords, 'GST', 'VAT', 'TAX', 'MWST', 'TVA', 'IVA', 'BTW', 'SST', 'UST', 'STEUER', 'CUKAI'));
+  if (heading === -1) return table;
+  for (let index = heading + 1; index < Math.min(lines.length, heading + 6); index += 1) {
+    const analysed = lines[index];
     const amounts = analysed.tokens.flatMap((token) => (token.amount ? [new Decimal(token.amount.value)] : []));
-    // The table's own total row repeats the sums of its rates.
-    if (amounts.length < 2 || analysed.summary === 'total' || analysed.summary === 'final_total' || analysed.summary === 'subtotal') continue;
+    if (amounts.length < 2) continue;
     const withGross = amounts.length >= 3 && amounts[amounts.length - 3].plus(amounts[amounts.length - 2]).equals(amounts[amounts.length - 1]);
     const [net, tax] = withGross ? amounts.slice(-3, -1) : amounts.slice(-2);
     // The tax of a rate is smaller than its net amount; anything else is not a row of the table.
-    if (tax.lessThan(net)) rows.push({ net, tax });
+    if (!tax.lessThan(net)) continue;
+    const totalRow = analysed.summary === 'total' || analysed.summary === 'final_total' || analysed.summary === 'subtotal';
+    if (!totalRow) table.rows.push({ net, tax });
+    else if (!table.total) {
+      table.total = { net, tax };
+      // A row that prints its gross last ends on a total after all.
+      if (!withGross) table.totalIndex = index;
+    }
   }
-  return rows;
+  return table;
 }
 
 /**
- * A subtotal OCR misread in a way the lines explain: its decimal point lost ("14014" for 140.14) or its sign lost on
- * a return slip ("42.98" where every line is negative). The lines' sum is taken, and the person told.
+ * A subtotal whose sign OCR lost on a return slip ("42.98" where every line is negative): the lines' sum is taken.
+ * (One that lost its decimal point, "14014", is read as 140.14 with the other summary figures: readLostPoint.)
  */
-function repairSubtotal(lines: AnalysedLine[], entries: SummaryEntry[], readLines: ReadLine[], notes: string[]): void {
+function repairSubtotal(entries: SummaryEntry[], readLines: ReadLine[]): void {
   if (readLines.length === 0) return;
   const itemSum = sum(readLines.map((item) => new Decimal(item.amount)));
   const printed = entries.find((entry) => entry.role === 'subtotal');
-  if (printed) {
-    if (itemSum.isNegative() && printed.value.equals(itemSum.abs())) printed.value = itemSum;
-    return;
-  }
-  const index = lines.findIndex((analysed) => analysed.labelOnly === 'subtotal');
-  const last = index === -1 ? undefined : lines[index].tokens[lines[index].tokens.length - 1];
-  if (!last || !/^[0-9]{3,}$/.test(last.text) || digitsOf(last.text) !== digitsOf(toWire(itemSum, 2))) return;
-  entries.push({ role: 'subtotal', value: itemSum, index, confidence: 0.6 });
-  entries.sort((a, b) => a.index - b.index);
-  notes.push(`The subtotal reads ${last.text}; taken as ${toWire(itemSum, 2)}, what the lines add up to. Check it.`);
+  if (printed && itemSum.isNegative() && printed.value.equals(itemSum.abs())) printed.value = itemSum;
 }
 
 /** A tax the OCR was unsure of, one character off what the total less the subtotal leaves ("1.21" for 11.21) is corrected, and the person told. */

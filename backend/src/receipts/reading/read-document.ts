@@ -5,7 +5,10 @@ import { minorUnits } from '../../../../shared/money';
 import { OcrPool, modelFor } from './ocr';
 import { parseReceipt } from './parse-receipt';
 import { readPdfPages } from './pdf-text';
-import { BAND_SCALES, rereadSummaryBand } from './second-look';
+import { lookAgainAtDate } from './date-look';
+import { lookAgainAtHeading } from './heading-look';
+import { dateLimits } from './receipt-date';
+import { BAND_SCALES, figuresSettled, linesAddUp, rereadSummaryBand, secondLookBetter } from './second-look';
 import { sniffReceiptType } from './sniff';
 import type { TextPage } from './text-lines';
 
@@ -62,16 +65,6 @@ export interface DocumentRead {
   images: Array<NormalisedImage | null>;
 }
 
-/** A reading is consistent when the receipt's own arithmetic agreed on its total. */
-function consistent(reading: ReadReceipt): boolean {
-  return reading.total.value !== null && (reading.agreements ?? []).some((fact) => !fact.startsWith('it is printed'));
-}
-
-/** The item lines add up to the subtotal or the total. */
-function linesAddUp(reading: ReadReceipt): boolean {
-  return (reading.agreements ?? []).some((fact) => fact.startsWith('the lines'));
-}
-
 export async function readDocument(bytes: Buffer, options: ReadOptions = {}): Promise<ReadReceipt> {
   return (await readDocumentWithImages(bytes, options)).reading;
 }
@@ -106,15 +99,25 @@ export async function readDocumentWithImages(bytes: Buffer, options: ReadOptions
   const image = await normaliseImage(bytes, type);
   const first = await pool.read(image.png, 0);
   const page = (lines: TextPage['lines']): TextPage => ({ width: image.width, height: image.height, source: 'ocr', lines });
-  const reading = parseReceipt([page(first.lines)], parseOptions);
-  if (consistent(reading) && linesAddUp(reading)) return { reading, images: [image] };
+  const reading = await readFigures(pool, image, first.lines, page, parseOptions);
+  // The date is looked at again on its own: its lines are few, and the figures' second look does not read them.
+  const { date } = await lookAgainAtDate(pool, image, first.lines, reading.date, locale, dateLimits(options.readOn));
+  // So is the heading, when the shop's name in its large print was lost.
+  const vendor = await lookAgainAtHeading(pool, image, first.lines, reading.vendor, options.knownVendors);
+  return { reading: date === reading.date && vendor === reading.vendor ? reading : { ...reading, date, vendor }, images: [image] };
+}
+
+/** The first reading's figures, or those of a second look at the summary band when the first did not agree. */
+async function readFigures(pool: OcrPool, image: NormalisedImage, lines: TextPage['lines'], page: (lines: TextPage['lines']) => TextPage, parseOptions: Parameters<typeof parseReceipt>[1]): Promise<ReadReceipt> {
+  const reading = parseReceipt([page(lines)], parseOptions);
+  if (figuresSettled(reading)) return reading;
   // A second look, only when the first reading's figures do not agree: the band of summary lines read again at
-  // another size (from the first item line when the lines did not add up). Taken only when it agrees better.
+  // another size (from the first item line when the lines did not add up).
   for (const scale of BAND_SCALES) {
-    const lines = await rereadSummaryBand(pool, image, first.lines, !linesAddUp(reading), scale);
-    if (!lines) break;
-    const second = parseReceipt([page(lines)], parseOptions);
-    if (consistent(second) && (!consistent(reading) || linesAddUp(second))) return { reading: second, images: [image] };
+    const reread = await rereadSummaryBand(pool, image, lines, !linesAddUp(reading), scale);
+    if (!reread) break;
+    const second = parseReceipt([page(reread)], parseOptions);
+    if (secondLookBetter(reading, second)) return second;
   }
-  return { reading, images: [image] };
+  return reading;
 }

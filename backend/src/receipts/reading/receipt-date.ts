@@ -12,7 +12,7 @@ export interface DatedLine {
 }
 
 /** Words printed beside the issue date, in the languages of the summary table (common practice / memory). */
-const DATE_WORDS = ['DATE', 'DATED', 'DT', 'DATUM', 'FECHA', 'DATA', 'TARIKH', 'BILL DATE', 'INVOICE DATE', 'TRANSACTION', 'DATE/TIME'];
+export const DATE_WORDS = ['DATE', 'DATED', 'DT', 'DATUM', 'FECHA', 'DATA', 'TARIKH', 'BILL DATE', 'INVOICE DATE', 'TRANSACTION', 'DATE/TIME'];
 /** Words beside dates that are not the issue date (memory). */
 const OTHER_DATE_WORDS = ['DUE', 'EXPIRY', 'EXPIRES', 'EXP', 'VALID', 'UNTIL', 'BEFORE', 'WARRANTY', 'RETURN', 'RETURNS', 'GUELTIG', 'GULTIG', 'BIS', 'VALIDO', 'VALABLE', 'VENCIMIENTO', 'SCADENZA', 'GELDIG', 'VALIDADE', 'TAMAT', 'POINTS', 'MEMBER', 'SINCE'];
 

@@ -2,6 +2,9 @@
 // a summary word is a candidate, and the total is the one the most independent facts agree on (subtotal + tax
 // (+ shipping − discount) = total; tendered − change = total; total + rounding adjustment = rounded total; the
 // lines add up). Each fact that held is kept in words, so the person checking sees why a figure was taken.
+// A figure printed nowhere, made only by the slip's arithmetic (cash minus change, subtotal plus tax), is taken only
+// when a second, independent fact agrees with it: one misread figure in its sum would otherwise outvote a total that
+// was read right.
 import { Decimal, sum } from '../../../../shared/money';
 import type { SummaryRole } from './summary-words';
 
@@ -33,6 +36,8 @@ export interface ChosenFigures {
   totalIndex: number | null;
   /** The facts that agreed on the total, in words. */
   agreements: string[];
+  /** The total is printed nowhere and only its own arithmetic made it: the person must check it. */
+  unconfirmed: boolean;
 }
 
 interface Candidate {
@@ -44,6 +49,12 @@ interface Candidate {
   rounding: Decimal | null;
   /** The parts of an arithmetic fact that held, to report those figures with the total. */
   parts: { subtotal?: Decimal; tax?: Decimal; shipping?: Decimal; discount?: Decimal; service?: Decimal };
+  /** Printed on the slip (beside a word, alone in the summary block, or as the amount tendered). */
+  printed: boolean;
+  /** For a figure printed nowhere: the subtotals whose arithmetic made it (the lines adding up to one is no news). */
+  madeFrom: Decimal[];
+  /** Facts that each rest on figures of their own: what a figure printed nowhere needs two of. */
+  independent: number;
 }
 
 const zero = new Decimal(0);
@@ -62,7 +73,15 @@ export interface TaxTableRow {
   tax: Decimal;
 }
 
-export function chooseFigures(entries: SummaryEntry[], lineSum: Decimal | null, taxTable: TaxTableRow[] = []): ChosenFigures {
+export interface TaxTable {
+  rows: TaxTableRow[];
+  /** The table's own total row (the sums of its rates), read apart from the rows. */
+  total: TaxTableRow | null;
+  /** The receipt line of that total row, when its last amount is the tax rather than a gross. */
+  totalIndex: number | null;
+}
+
+export function chooseFigures(entries: SummaryEntry[], lineSum: Decimal | null, taxTable: TaxTable = { rows: [], total: null, totalIndex: null }): ChosenFigures {
   const ofRole = (...roles: SummaryEntry['role'][]) => entries.filter((entry) => roles.includes(entry.role));
   const firstTotal = ofRole('total', 'final_total')[0];
   // Below the payment block come tax tables, card slips and loyalty lines: their "totals" are not the receipt's.
@@ -84,19 +103,22 @@ export function chooseFigures(entries: SummaryEntry[], lineSum: Decimal | null, 
   const changes = distinct(ofRole('change').map((entry) => entry.value.abs()));
 
   const candidates = new Map<string, Candidate>();
-  const candidate = (value: Decimal, index: number | null): Candidate => {
+  const candidate = (value: Decimal, index: number | null, printed = true): Candidate => {
     let found = candidates.get(key(value));
     if (!found) {
-      found = { value, score: 0, facts: [], index, rounding: null, parts: {} };
+      found = { value, score: 0, facts: [], index, rounding: null, parts: {}, printed, madeFrom: [], independent: 0 };
       candidates.set(key(value), found);
     }
+    found.printed ||= printed;
     if (index !== null && (found.index === null || index > found.index)) found.index = index;
     return found;
   };
-  const addFact = (target: Candidate | undefined, weight: number, fact: string) => {
-    if (!target || target.facts.includes(fact)) return;
-    target.score += weight;
+  /** A fact that only repeats one already counted (the same sum in other words) is neither listed nor weighed. */
+  const addFact = (target: Candidate | undefined, weight: number, fact: string, independent = true) => {
+    if (!target || target.facts.includes(fact) || !independent) return;
     target.facts.push(fact);
+    target.score += weight;
+    target.independent += 1;
   };
 
   for (const entry of totals) {
@@ -126,7 +148,7 @@ export function chooseFigures(entries: SummaryEntry[], lineSum: Decimal | null, 
   for (const paid of tendered) {
     for (const change of positiveChanges) {
       const net = paid.minus(change);
-      if (net.isPositive()) addFact(candidate(net, null), 3, 'the amount tendered minus the change matches it');
+      if (net.isPositive()) addFact(candidate(net, null, false), 3, 'the amount tendered minus the change matches it');
     }
   }
   // Only figures printed or made by the slip's own arithmetic are candidates; the checks below only confirm them.
@@ -134,23 +156,40 @@ export function chooseFigures(entries: SummaryEntry[], lineSum: Decimal | null, 
     for (const subtotal of subtotals) candidate(subtotal, null);
   }
   if (positiveChanges.length === 0) {
-    for (const paid of tendered) addFact(candidates.get(key(paid)), 1, 'the amount paid matches it');
+    // A change printed as nothing says the amount tendered was the total to the cent, as surely as any change does.
+    const noChange = changes.length > 0;
+    for (const paid of tendered) addFact(candidates.get(key(paid)), noChange ? 3 : 1, noChange ? 'the amount tendered minus the change matches it' : 'the amount paid matches it');
   }
   const optional = (values: Decimal[]) => [null, ...values];
+  const chargesOf = (combination: { tax: Decimal | null; shipping: Decimal | null; service: Decimal | null; rounding: Decimal | null }) =>
+    [combination.tax, combination.shipping, combination.service, combination.rounding].filter((value): value is Decimal => value !== null && !value.isZero());
   const combinations: Array<{ tax: Decimal | null; shipping: Decimal | null; service: Decimal | null; discount: Decimal | null; rounding: Decimal | null }> = [];
   for (const tax of optional(taxes)) {
     for (const shipping of optional(shippings)) {
       for (const service of optional(services)) {
         for (const discount of optional(discounts)) {
-          for (const rounding of optional(roundings)) combinations.push({ tax, shipping, service, discount, rounding });
+          // The sign of an adjustment is often lost to OCR ("ROUNDING 0.01" for -0.01): both are tried.
+          for (const rounding of optional(distinct([...roundings, ...roundings.map((value) => value.negated())]))) combinations.push({ tax, shipping, service, discount, rounding });
         }
       }
+    }
+  }
+  // The subtotal's own arithmetic (subtotal plus tax, less a discount) makes candidates as well, for a total whose
+  // figures OCR misread: printed nowhere, each needs a second fact to be taken.
+  for (const subtotal of subtotals) {
+    for (const combination of combinations) {
+      const charges = chargesOf(combination);
+      if (charges.length === 0 && (combination.discount === null || combination.discount.isZero())) continue;
+      const computed = sum([subtotal, ...charges]).minus(combination.discount ?? zero);
+      if (!computed.isPositive()) continue;
+      const made = candidate(computed, null, false);
+      if (!made.printed) made.madeFrom.push(subtotal);
     }
   }
   for (const target of candidates.values()) {
     for (const subtotal of subtotals) {
       for (const { tax, shipping, service, discount, rounding } of combinations) {
-        const charges = [tax, shipping, service, rounding].filter((value): value is Decimal => value !== null && !value.isZero());
+        const charges = chargesOf({ tax, shipping, service, rounding });
         if (charges.length === 0 && (discount === null || discount.isZero())) {
           if (subtotal.equals(target.value) && !target.value.isZero()) addFact(target, 1, 'the subtotal matches it');
           continue;
@@ -160,16 +199,20 @@ export function chooseFigures(entries: SummaryEntry[], lineSum: Decimal | null, 
         const words = ['the subtotal', tax ? 'plus tax' : '', service ? 'plus the service charge' : '', shipping ? 'plus shipping' : '', discount && !discount.isZero() ? 'minus the discount' : '', rounding ? 'plus the rounding adjustment' : '']
           .filter(Boolean)
           .join(' ');
-        addFact(target, 3, `${words} matches it`);
+        // The more of the printed charges a sum accounts for, the better it explains the slip (a tie-breaker only).
+        // Every such sum rests on the same printed subtotal: together they are one independent fact.
+        addFact(target, 3 + 0.1 * charges.length, `${words} matches it`, !target.facts.some((fact) => fact.startsWith('the subtotal')));
         target.parts = { subtotal, tax: tax ?? undefined, shipping: shipping ?? undefined, discount: discount ?? undefined, service: service ?? undefined };
         if (rounding) target.rounding = rounding;
       }
     }
     if (lineSum !== null && !lineSum.isZero()) {
       for (const { tax, shipping, service, discount, rounding } of combinations) {
-        const charges = [tax, shipping, service, rounding].filter((value): value is Decimal => value !== null && !value.isZero());
+        const charges = chargesOf({ tax, shipping, service, rounding });
         if (!sum([lineSum, ...charges]).minus(discount ?? zero).equals(target.value)) continue;
-        addFact(target, 2, charges.length > 0 || discount ? 'the lines and charges add up to it' : 'the lines add up to it');
+        // Lines that add up to the very subtotal a figure was made from repeat that sum: they confirm the subtotal only.
+        const repeats = target.madeFrom.some((subtotal) => subtotal.equals(lineSum));
+        addFact(target, 2, charges.length > 0 || discount ? 'the lines and charges add up to it' : 'the lines add up to it', !repeats);
         if (target.parts.subtotal === undefined) target.parts = { tax: tax ?? undefined, shipping: shipping ?? undefined, discount: discount ?? undefined, service: service ?? undefined };
         if (rounding) target.rounding = rounding;
         break;
@@ -177,14 +220,20 @@ export function chooseFigures(entries: SummaryEntry[], lineSum: Decimal | null, 
     }
   }
 
-  // A tax table: the nets of its rates plus their taxes give the gross, the total (before any cash rounding).
-  if (taxTable.length > 0) {
-    const gross = sum(taxTable.map((row) => row.net.plus(row.tax)));
+  // A tax table: the nets of its rates plus their taxes give the gross, the total (before any cash rounding). Its rows
+  // and its own total row are two readings of the same sums: either agreeing is the fact.
+  const grosses = distinct([...(taxTable.rows.length > 0 ? [sum(taxTable.rows.map((row) => row.net.plus(row.tax)))] : []), ...(taxTable.total ? [taxTable.total.net.plus(taxTable.total.tax)] : [])]);
+  for (const gross of grosses) {
     for (const target of candidates.values()) {
       if (gross.equals(target.value) || (target.rounding && gross.plus(target.rounding).equals(target.value))) addFact(target, 1.5, 'net plus tax in the tax table gives it');
     }
   }
 
+  // A figure printed nowhere stands on its own arithmetic alone until an independent fact agrees: until then any
+  // figure printed beside a total word wins over it.
+  const alone = (found: Candidate) => !found.printed && found.independent < 2;
+  // A quarter of its weight keeps such sums in their order (the one using more of the printed charges first).
+  for (const found of candidates.values()) if (alone(found)) found.score /= 4;
   const ranked = [...candidates.values()].filter((found) => !found.value.isZero());
   ranked.sort((a, b) => b.score - a.score || (b.index ?? -1) - (a.index ?? -1));
   const best = ranked[0];
@@ -198,7 +247,7 @@ export function chooseFigures(entries: SummaryEntry[], lineSum: Decimal | null, 
   // Facts beyond the printed word make a total sure; a total word alone is what the OCR read, no more.
   const agreed = best.facts.filter((fact) => !fact.startsWith('it is printed')).length;
   const printedConfidence = confidenceOf(best.value, ['total', 'final_total', 'unlabelled', 'tendered']);
-  const totalConfidence = agreed > 0 ? Math.max(printedConfidence, 0.95) : best.index === null ? Math.min(printedConfidence, 0.5) : printedConfidence;
+  const totalConfidence = alone(best) ? 0.5 : agreed > 0 ? Math.max(printedConfidence, 0.95) : best.index === null ? Math.min(printedConfidence, 0.5) : printedConfidence;
   const pick = (chosen: Decimal | undefined, fallback: Decimal | undefined, roles: SummaryEntry['role'][]): Figure | null => {
     const value = chosen ?? fallback;
     if (value === undefined) return null;
@@ -214,6 +263,7 @@ export function chooseFigures(entries: SummaryEntry[], lineSum: Decimal | null, 
     service: best.parts.service ?? null,
     totalIndex: best.index,
     agreements: best.facts,
+    unconfirmed: alone(best),
   };
 }
 
@@ -232,5 +282,6 @@ function emptyFigures(subtotals: Decimal[], taxes: SummaryEntry[], shippings: De
     service: null,
     totalIndex: null,
     agreements: [],
+    unconfirmed: false,
   };
 }

@@ -3,8 +3,9 @@
 // knows wins when the text is close to its name.
 import type { ReadField } from '../../../../shared/api/receipt-reading';
 import { findDate } from './dates';
+import { ADDRESS_WORDS, NOT_A_NAME_WORDS } from './heading-words';
 import { editDistance, hasWord, keywordOf } from './label-words';
-import type { TextLine } from './text-lines';
+import { type TextLine, lineText, makeLine } from './text-lines';
 
 export interface VendorLine {
   line: TextLine;
@@ -20,15 +21,6 @@ export interface VendorLine {
  */
 const BUSINESS_SUFFIX =
   /(?:^|[\s(.,])(S[DO0]N\.?\s*[B8]HD|S\/B|S\.?\s?B\.?$|[B8]HD|BERHAD|ENTERPRISE|TRADING|INC|LLC|L\.L\.C|LTD|LIMITED|PLC|CORP|CORPORATION|CO\.|COMPANY|PTY|GMBH|AG|KG|OHG|E\.K|S\.A\.?|S\.A\.S|SAS|SARL|S\.L\.?|S\.R\.L\.?|SRL|S\.P\.A\.?|SPA|SNC|B\.V\.?|BV|N\.V\.?|V\.O\.F|LDA|LTDA|SDN)(?=$|[\s).,])/i;
-/** Words of addresses, phones, tax ids and receipt headings: such a line is not the shop's name (common practice / memory). */
-const NOT_A_NAME_WORDS = [
-  'JALAN', 'JLN', 'LORONG', 'TAMAN', 'LOT', 'ROAD', 'STREET', 'AVENUE', 'LANE', 'DRIVE', 'SUITE', 'FLOOR', 'BLOCK', 'UNIT', 'STRASSE', 'STR', 'PLATZ', 'RUE', 'AVENIDA', 'CALLE', 'PLAZA', 'VIA', 'VIALE', 'PIAZZA', 'STRAAT', 'PLEIN', 'RUA', 'TRAVESSA',
-  'TEL', 'TELEPHONE', 'PHONE', 'FAX', 'HP', 'TELEFON', 'TELEFONO', 'TELEFOON',
-  'GST', 'VAT', 'REG', 'ABN', 'SIRET', 'SIREN', 'NIF', 'CIF', 'IVA', 'BTW', 'KVK', 'UID', 'USTID', 'STEUERNUMMER', 'TIN', 'NPWP', 'ROC', 'SST',
-  'RECEIPT', 'INVOICE', 'TAX', 'SIMPLIFIED', 'CASH', 'BILL', 'QUITTUNG', 'BELEG', 'RECHNUNG', 'KASSENBON', 'TICKET', 'FACTURE', 'FACTURA', 'RECIBO', 'SCONTRINO', 'FATTURA', 'BON', 'KASSABON', 'FACTUUR', 'FATURA', 'RESIT',
-  'WELCOME', 'THANK', 'THANKS', 'WILLKOMMEN', 'BIENVENUE', 'BIENVENIDO', 'BENVENUTO', 'WELKOM', 'BEM', 'SELAMAT', 'DATE', 'TIME', 'CASHIER', 'COPY', 'DUPLICATE', 'ORDER', 'TABLE',
-];
-
 function cleaned(text: string): string {
   return text.replace(/[^\p{L}0-9&'.,\-/()\s]/gu, ' ').replace(/\s+/g, ' ').trim();
 }
@@ -47,6 +39,18 @@ function onlySuffix(text: string): boolean {
   return BUSINESS_SUFFIX.test(text) && rest.length <= 3;
 }
 
+const HEADING_WORD_SET = new Set(NOT_A_NAME_WORDS);
+const ADDRESS_SET = new Set(ADDRESS_WORDS);
+const LONG_HEADING_WORDS = NOT_A_NAME_WORDS.filter((word) => word.length >= 7);
+
+/**
+ * A word of an address, phone or heading line. Short words must match exactly: one letter off, a name's own word
+ * is too often one ("BORONG" is not "LORONG"); long ones may carry an OCR slip.
+ */
+function headingWord(keywords: string[]): boolean {
+  return keywords.some((word) => HEADING_WORD_SET.has(word) || (word.length >= 7 && hasWord([word], ...LONG_HEADING_WORDS)));
+}
+
 function median(values: number[]): number {
   const sorted = [...values].sort((a, b) => a - b);
   return sorted.length === 0 ? 0 : sorted[Math.floor(sorted.length / 2)];
@@ -58,7 +62,7 @@ function looksLikeName(line: VendorLine): boolean {
   const digits = (text.match(/[0-9]/g) ?? []).length;
   if (letters < 3 || digits > letters / 2 || line.hasAmount) return false;
   if (/@|www\.|https?:|\.com\b/i.test(line.text) || findDate(line.text, 'en-GB')) return false;
-  if (hasWord(line.keywords, ...NOT_A_NAME_WORDS) && !BUSINESS_SUFFIX.test(text)) return false;
+  if (headingWord(line.keywords) && !BUSINESS_SUFFIX.test(text)) return false;
   // A postcode (four to six digits standing alone) marks an address line.
   if (/(?:^|[\s,])[0-9]{4,6}(?:$|[\s,])/.test(text) && !BUSINESS_SUFFIX.test(text)) return false;
   // A slogan shouts: an exclamation mark, or a sentence of many short words.
@@ -66,10 +70,48 @@ function looksLikeName(line: VendorLine): boolean {
   return true;
 }
 
-export function findVendor(lines: VendorLine[], knownVendors: string[] = []): ReadField<string> {
+/** Below this OCR confidence (measured: 0.1 kept most names whole on real scans) a word is the OCR's guess at a logo, a stamp or handwriting, not print. */
+const GUESSED_WORD = 0.1;
+
+/** The line without the words the OCR only guessed at; null when nothing is left. */
+function withoutGuesses(line: VendorLine): VendorLine | null {
+  const words = line.line.words.filter((word) => word.confidence >= GUESSED_WORD);
+  if (words.length === line.line.words.length) return line;
+  if (words.length === 0) return null;
+  const kept = makeLine(words);
+  const text = lineText(kept);
+  return { ...line, line: kept, text, keywords: text.split(/\s+/).map(keywordOf).filter((word) => word !== '') };
+}
+
+/** A name broken over two lines ends its first with a joining mark or word ("HOME MASTER HARDWARE &" / "ELECTRICAL"). */
+const CONTINUES = /(?:[&,+\-]|\bAND|\bUND|\bET|\bY|\bE|\bEN|\bDAN)$/i;
+
+/** The index of the first address or phone line among the top lines, or -1. */
+function firstAddressLine(top: VendorLine[]): number {
+  return top.findIndex((line) => line.keywords.some((word) => ADDRESS_SET.has(word)) && !BUSINESS_SUFFIX.test(cleaned(line.text)));
+}
+
+/**
+ * Where the heading above the shop's address ends, when no line there reads as a name (large print and logos are
+ * often lost to OCR read at the size of the small print); null when a name was read or no address line is found.
+ */
+export function lostHeadingBottom(lines: VendorLine[]): number | null {
   const top = lines.slice(0, 10);
+  const address = firstAddressLine(top);
+  if (address <= 0) return null;
+  const named = top.slice(0, address).some((line) => {
+    const kept = withoutGuesses(line);
+    return kept !== null && kept.confidence >= 0.5 && looksLikeName(kept);
+  });
+  return named ? null : top[address].line.box.y;
+}
+
+export function findVendor(lines: VendorLine[], knownVendors: string[] = []): ReadField<string> {
+  const top = lines.slice(0, 10).map((line) => withoutGuesses(line) ?? { ...line, text: '', keywords: [] });
   const heights = lines.flatMap((line) => line.line.words.map((word) => word.box.h));
   const typical = Math.max(1, median(heights));
+  // The name is printed above the shop's address and phone: a line below the first of those is rarely the name.
+  const firstAddress = firstAddressLine(top);
   let best: { index: number; score: number } | null = null;
   top.forEach((line, index) => {
     if (!looksLikeName(line)) return;
@@ -79,24 +121,33 @@ export function findVendor(lines: VendorLine[], knownVendors: string[] = []): Re
     const letters = (line.text.match(/\p{L}/gu) ?? []).length;
     // Names are short: a long line near the top is more likely a description or an address without a keyword.
     const length = letters > 45 ? -1 : 0;
-    const score = 1.5 * prominence + suffix + length + 2 * (1 - index / 10) + line.confidence;
+    const belowAddress = firstAddress !== -1 && index > firstAddress ? -1.5 : 0;
+    // Shops print their names in capitals or title case; a line without a capital is a note or handwriting.
+    const noCapital = /\p{Lu}/u.test(line.text) ? 0 : -2;
+    const score = 1.5 * prominence + suffix + length + belowAddress + noCapital + 2 * (1 - index / 10) + line.confidence;
     if (!best || score > best.score) best = { index, score };
   });
   if (!best) return { value: null, confidence: 0 };
   const { index } = best as { index: number; score: number };
   let text = cleaned(top[index].text);
   const previous = top[index - 1];
-  if (previous && onlySuffix(text) && looksLikeName(previous)) text = `${cleaned(previous.text)} ${text}`;
+  if (previous && (onlySuffix(text) || CONTINUES.test(cleaned(previous.text))) && looksLikeName(previous) && sameCase(previous.text, text)) text = `${cleaned(previous.text)} ${text}`;
   // A name broken over two lines: "HOME MASTER HARDWARE &" / "ELECTRICAL", or the legal form on the next line.
   const next = top[index + 1];
-  const plainName = (line: VendorLine) => looksLikeName(line) && !/[0-9]/.test(line.text) && !hasWord(line.keywords, ...NOT_A_NAME_WORDS);
-  if (next && plainName(next) && !BUSINESS_SUFFIX.test(text) && (/[&,-]$/.test(text) || BUSINESS_SUFFIX.test(cleaned(next.text)))) {
+  const plainName = (line: VendorLine) => looksLikeName(line) && !/[0-9]/.test(line.text) && !headingWord(line.keywords);
+  if (next && plainName(next) && !BUSINESS_SUFFIX.test(text) && (CONTINUES.test(text) || (BUSINESS_SUFFIX.test(cleaned(next.text)) && sameCase(text, next.text)))) {
     text = `${text} ${cleaned(next.text)}`;
   }
   text = trimAfterSuffix(text);
   const confidence = Math.round(Math.min(1, top[index].confidence * (index === 0 ? 1 : 0.85)) * 100) / 100;
   const known = closestKnown(text, knownVendors);
   return known ? { value: known, confidence: Math.max(confidence, 0.9) } : { value: text, confidence };
+}
+
+/** Two lines printed in the same case (both capitals, or both not): the halves of one name, not a note above it. */
+function sameCase(left: string, right: string): boolean {
+  const shouts = (text: string) => !/\p{Ll}/u.test(text);
+  return shouts(left) === shouts(right);
 }
 
 /** A shop of the build whose name the text is close to: OCR slips and a dropped legal form are forgiven. */

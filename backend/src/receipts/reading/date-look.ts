@@ -1,0 +1,106 @@
+// A second look at the issue date, when the first reading found none or read its digits unsurely: the lines that
+// hold date-like text (or a date word, or a time) are read again, each on its own, at other sizes. OCR's slips at one
+// size (6 for 5, 8 for 3, "0f" for 06) are rarely the same at another, so a date is taken only when it is a real
+// calendar day within the limits and, where the first reading had one, when a second reading agrees with it.
+import sharp from 'sharp';
+import type { ReadField } from '../../../../shared/api/receipt-reading';
+import type { DateLimits } from './dates';
+import { findDates } from './dates';
+import { keywordOf } from './label-words';
+import type { NormalisedImage } from './normalise';
+import type { OcrPool } from './ocr';
+import { DATE_WORDS, chooseReceiptDate } from './receipt-date';
+import { type TextLine, lineText } from './text-lines';
+
+/** The sizes the date lines are read at, in turn: larger first (faint small digits), then a little smaller. */
+export const DATE_SCALES = [2, 0.875];
+/** Below this OCR confidence a date's digits are worth a second look (measured on real scans: 0.7). */
+const UNSURE_DATE = 0.7;
+/** At most this many lines are read again: a receipt prints its date on one or two. */
+const MOST_LINES = 3;
+
+/** Text that may be a date OCR garbled ("3G/D3/26318", "0f/03/2016") or a time printed beside one ("20:01"). */
+const DATE_LIKE = /[0-9A-Za-z]{1,2}\s?[/.-]\s?[0-9A-Za-z]{1,3}\s?[/.-]\s?[0-9A-Za-z]{2,5}|\b[0-2]?[0-9]:[0-5][0-9]\b/;
+
+const keywordsOf = (text: string) => text.split(/\s+/).map(keywordOf).filter((word) => word !== '');
+
+/** The receipt's date chosen among its lines, with some lines' text read again. */
+function dateOf(lines: TextLine[], texts: Map<number, string>, locale: string, limits: DateLimits): string | null {
+  const dated = lines.map((line, index) => {
+    const text = texts.get(index) ?? lineText(line);
+    const confidence = line.words.reduce((total, word) => total + word.confidence, 0) / Math.max(line.words.length, 1);
+    return { text, keywords: keywordsOf(text), confidence };
+  });
+  return chooseReceiptDate(dated, locale, limits).field.value;
+}
+
+/** The lowest OCR confidence of the words that hold a date in a line, or null when the line holds none. */
+function dateConfidence(line: TextLine, value: string, locale: string, limits: DateLimits): number | null {
+  const found = findDates(lineText(line), locale, limits).find((date) => date.value === value);
+  if (!found) return null;
+  let start = 0;
+  let lowest = 1;
+  for (const word of line.words) {
+    const end = start + word.text.length;
+    if (end > found.start && start < found.end) lowest = Math.min(lowest, word.confidence);
+    start = end + 1;
+  }
+  return lowest;
+}
+
+async function rereadLine(pool: OcrPool, image: NormalisedImage, line: TextLine, scale: number): Promise<string> {
+  const margin = Math.round(line.box.h * 0.6);
+  const left = Math.max(0, line.box.x - 2 * line.box.h);
+  const top = Math.max(0, line.box.y - margin);
+  const width = Math.min(image.width, line.box.x + line.box.w + 2 * line.box.h) - left;
+  const height = Math.min(image.height, line.box.y + line.box.h + margin) - top;
+  if (width < 8 || height < 8) return lineText(line);
+  const band = await sharp(image.png)
+    .extract({ left, top, width, height })
+    .resize({ width: Math.round(width * scale), kernel: 'lanczos3' })
+    .png({ compressionLevel: 1 })
+    .toBuffer();
+  return (await pool.read(band, 0)).lines.map(lineText).join(' ');
+}
+
+export interface DateLook {
+  date: ReadField<string>;
+  /** How many lines were read again (0 when the first date was sure). */
+  reread: number;
+}
+
+/**
+ * The date after a second look, or the first reading's when that was sure. With no date at first, the first real
+ * date another size gives is taken, a little less sure; an unsure first date is replaced only when two further
+ * readings agree on another, and confirmed when one agrees with it.
+ */
+export async function lookAgainAtDate(pool: OcrPool, image: NormalisedImage, lines: TextLine[], first: ReadField<string>, locale: string, limits: DateLimits): Promise<DateLook> {
+  let targets: number[];
+  if (first.value !== null) {
+    const value = first.value;
+    const holding = lines.findIndex((line) => dateConfidence(line, value, locale, limits) !== null);
+    const confidence = holding === -1 ? 1 : dateConfidence(lines[holding], value, locale, limits)!;
+    if (confidence >= UNSURE_DATE) return { date: first, reread: 0 };
+    targets = [holding];
+  } else {
+    // Lines beside a date word first, then any date-like text.
+    const worded = lines.flatMap((line, index) => (keywordsOf(lineText(line)).some((word) => DATE_WORDS.includes(word)) ? [index] : []));
+    const like = lines.flatMap((line, index) => (DATE_LIKE.test(lineText(line)) ? [index] : []));
+    targets = [...new Set([...worded, ...like])].slice(0, MOST_LINES);
+    if (targets.length === 0) return { date: first, reread: 0 };
+  }
+  const readings: Array<string | null> = [];
+  for (const scale of DATE_SCALES) {
+    const texts = new Map<number, string>();
+    for (const index of targets) texts.set(index, await rereadLine(pool, image, lines[index], scale));
+    const value = dateOf(lines, texts, locale, limits);
+    if (first.value === null && value !== null) return { date: { value, confidence: 0.6 }, reread: targets.length };
+    if (first.value !== null && value === first.value) return { date: { value, confidence: Math.max(first.confidence, 0.8) }, reread: targets.length };
+    readings.push(value);
+  }
+  // Two further readings agreeing on another real date outvote the unsure first one.
+  if (first.value !== null && readings.length === 2 && readings[0] !== null && readings[0] === readings[1]) {
+    return { date: { value: readings[0], confidence: 0.6 }, reread: targets.length };
+  }
+  return { date: first, reread: targets.length };
+}
