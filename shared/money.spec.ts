@@ -13,10 +13,12 @@ import {
   parseMoney,
   roundToMinor,
   subtract,
+  storedToWire,
   sum,
   toDecimal,
   toWire,
 } from './money';
+import fc from 'fast-check';
 
 const d = (text: string) => new Decimal(text);
 const wire = (values: Decimal[], decimals?: number) => values.map((value) => toWire(value, decimals));
@@ -184,6 +186,41 @@ describe('rounding and wire text', () => {
     expect(toWire(d('1e-7'))).toBe('0.0000001');
     expect(toWire(d('-0.001'), 2)).toBe('0.00');
     expect(toWire(d('7'), 4)).toBe('7.0000');
+  });
+});
+
+describe('storedToWire (wire text of stored figures without a Decimal)', () => {
+  it.each([
+    { text: '12.5000', decimals: undefined, expected: '12.5' },
+    { text: '1.0000', decimals: undefined, expected: '1' },
+    { text: '0.0000', decimals: 2, expected: '0.00' },
+    { text: '-0.0000', decimals: undefined, expected: '0' },
+    { text: '-3.2500', decimals: 2, expected: '-3.25' },
+    { text: '2400.00000000', decimals: 2, expected: '2400.00' },
+    { text: '100', decimals: 2, expected: '100.00' },
+    { text: '1234.0000', decimals: 0, expected: '1234' },
+    { text: '0.1250', decimals: 2, expected: '0.13' },
+    { text: '-0.0010', decimals: 2, expected: '0.00' },
+    { text: '007.50', decimals: undefined, expected: '7.5' },
+  ])('writes $text with $decimals decimals as $expected', ({ text, decimals, expected }) => {
+    expect(storedToWire(text, decimals)).toBe(expected);
+  });
+
+  it('answers exactly what toWire answers for the same figure, rounding included', () => {
+    const stored = fc
+      .tuple(fc.boolean(), fc.stringMatching(/^\d{1,19}$/), fc.option(fc.stringMatching(/^\d{1,10}$/), { nil: undefined }))
+      .map(([negative, integer, fraction]) => `${negative ? '-' : ''}${integer}${fraction === undefined ? '' : `.${fraction}`}`);
+    fc.assert(
+      fc.property(stored, fc.option(fc.integer({ min: 0, max: 4 }), { nil: undefined }), (text, decimals) => {
+        expect(storedToWire(text, decimals)).toBe(toWire(toDecimal(text, { maxDecimals: 20 }), decimals));
+      }),
+      { numRuns: 2000 },
+    );
+  });
+
+  it('refuses what is not a plain decimal, as toDecimal does', () => {
+    expect(() => storedToWire('1e3')).toThrow(MoneyError);
+    expect(() => storedToWire('12,50', 2)).toThrow(MoneyError);
   });
 });
 

@@ -161,10 +161,16 @@ export function moneyString(options: MoneyStringOptions) {
   });
 }
 
+/** Minor units by code as asked: the package's lookup is a scan of every currency, and lists and exports ask per row. */
+const minorUnitsByCode = new Map<string, number>();
+
 /** ISO 4217 minor units (decimals) of a currency, from the `currency-codes` registry package. */
 export function minorUnits(currencyCode: string): number {
+  const known = minorUnitsByCode.get(currencyCode);
+  if (known !== undefined) return known;
   const record = /^[A-Za-z]{3}$/.test(currencyCode) ? currencyByCode(currencyCode) : undefined;
   if (!record) throw new MoneyError(`Unknown currency code "${currencyCode}": use an ISO 4217 code such as USD or EUR.`);
+  minorUnitsByCode.set(currencyCode, record.digits);
   return record.digits;
 }
 
@@ -216,6 +222,26 @@ export function toWire(amount: Decimal, decimals?: number): string {
   const places = decimals === undefined ? value.decimalPlaces() : checkedCount(decimals, 'decimals');
   // The only place this module turns a Decimal into text: decimal.js's own fixed-point output.
   return value.toDecimalPlaces(places, Decimal.ROUND_HALF_UP).toFixed(places);
+}
+
+/** A decimal as PostgreSQL prints a numeric: optional minus, digits, optional dot and digits. */
+const STORED_DECIMAL = /^(-?)(\d{1,60})(?:\.(\d{1,20}))?$/;
+
+/**
+ * `toWire(toDecimal(text, { maxDecimals: 20 }), decimals)` for stored text ("12.5000", a sum or product read from
+ * SQL), by string operations whenever no rounding is needed, which is the usual case (stored amounts carry the
+ * currency's decimals); text that needs rounding goes through Decimal. Lists and exports call it per cell, where
+ * making a Decimal of every figure cost most of their time.
+ */
+export function storedToWire(text: string, decimals?: number): string {
+  const match = STORED_DECIMAL.exec(text);
+  const places = decimals === undefined ? undefined : checkedCount(decimals, 'decimals');
+  const [, sign, integerDigits, fraction = ''] = match ?? [];
+  if (!match || (places !== undefined && /[1-9]/.test(fraction.slice(places)))) return toWire(toDecimal(text, { maxDecimals: 20 }), places);
+  const kept = places === undefined ? fraction.replace(/0+$/, '') : fraction.slice(0, places).padEnd(places, '0');
+  const integer = integerDigits.replace(/^0+(?=\d)/, '');
+  const isZero = integer === '0' && !/[1-9]/.test(kept);
+  return `${isZero ? '' : sign}${integer}${kept ? `.${kept}` : ''}`;
 }
 
 export interface FormatMoneyOptions {

@@ -3,13 +3,10 @@
 // Runs the app in this process against its own throw-away database, seeded with the demo build.
 import { runSection } from './print-figures';
 import http from 'node:http';
-import type { AddressInfo } from 'node:net';
-import { createApp } from '../../backend/src/app';
-import type { JobQueue } from '../../backend/src/jobs/queue';
-import { createMailer } from '../../backend/src/mail/mailer';
+import { BenchClient } from './bench-client';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../backend/src/seed/demo-scenario';
 import { percentile } from './percentile';
-import { withSeededDemo } from './seeded-demo';
+import { withDemoApp } from './seeded-demo';
 
 const LOAD_DB = 'tallyhood_bench_load';
 const CLIENTS = 20;
@@ -22,41 +19,8 @@ const SECONDS_PER_TURN = 2;
 const MAX_REQUESTS_PER_TURN = 2000;
 const WARM_UP_REQUESTS = 100;
 
-/** One browser's worth of state: its cookies (session and XSRF-TOKEN) and the token it echoes on writes. */
-class LoadClient {
-  private cookies = new Map<string, string>();
-  constructor(
-    private readonly port: number,
-    private readonly agent: http.Agent,
-  ) {}
-
-  request(method: 'GET' | 'POST', url: string, body?: unknown): Promise<{ status: number; text: string }> {
-    const payload = body === undefined ? undefined : JSON.stringify(body);
-    const headers: Record<string, string> = { cookie: [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ') };
-    if (payload !== undefined) {
-      headers['content-type'] = 'application/json';
-      headers['x-xsrf-token'] = decodeURIComponent(this.cookies.get('XSRF-TOKEN') ?? '');
-    }
-    return new Promise((resolve, reject) => {
-      const req = http.request({ host: '127.0.0.1', port: this.port, path: url, method, headers, agent: this.agent }, (res) => {
-        for (const cookie of res.headers['set-cookie'] ?? []) {
-          const [pair] = cookie.split(';');
-          const at = pair.indexOf('=');
-          this.cookies.set(pair.slice(0, at), pair.slice(at + 1));
-        }
-        const chunks: Buffer[] = [];
-        res.on('data', (chunk: Buffer) => chunks.push(chunk));
-        res.on('end', () => resolve({ status: res.statusCode ?? 0, text: Buffer.concat(chunks).toString('utf8') }));
-        res.on('error', reject);
-      });
-      req.on('error', reject);
-      req.end(payload);
-    });
-  }
-}
-
 /** All clients ask for `url` back to back until the time or the count runs out; every answer must be 200. */
-async function load(clients: LoadClient[], url: string, seconds: number, maxRequests: number, latencies: number[] = []) {
+async function load(clients: BenchClient[], url: string, seconds: number, maxRequests: number, latencies: number[] = []) {
   let issued = 0;
   const deadline = performance.now() + seconds * 1000;
   const started = performance.now();
@@ -75,21 +39,11 @@ async function load(clients: LoadClient[], url: string, seconds: number, maxRequ
 }
 
 export async function benchListLoad(): Promise<Record<string, string | number>> {
-  return withSeededDemo(LOAD_DB, async ({ orm, store, config, build }) => {
+  return withDemoApp(LOAD_DB, async ({ port, build }) => {
     const agent = new http.Agent({ keepAlive: true, maxSockets: CLIENTS });
-    let server: http.Server | undefined;
-    let running: ReturnType<typeof createApp> | undefined;
     try {
-      // No job runs here: the seed reads its receipts itself, and the lists only read.
-      const queue = { readReceipt: async () => undefined, scheduleAlerts: async () => undefined, stop: async () => undefined } as unknown as JobQueue;
-      running = createApp({ orm, config, mailer: createMailer(config.smtp), store, queue });
-      server = await new Promise<http.Server>((resolve) => {
-        const listening = running!.app.listen(0, '127.0.0.1', () => resolve(listening));
-      });
-      const port = (server.address() as AddressInfo).port;
-
       const owner = DEMO_PEOPLE.find((person) => person.role === 'owner')!;
-      const clients = Array.from({ length: CLIENTS }, () => new LoadClient(port, agent));
+      const clients = Array.from({ length: CLIENTS }, () => new BenchClient(port, agent));
       for (const client of clients) {
         await client.request('GET', '/api/auth/me');
         const res = await client.request('POST', '/api/auth/sign-in', { email: owner.email, password: DEMO_PASSWORD });
@@ -125,8 +79,6 @@ export async function benchListLoad(): Promise<Record<string, string | number>> 
       return figures;
     } finally {
       agent.destroy();
-      if (server) await new Promise((resolve) => server!.close(resolve));
-      await running?.close();
     }
   });
 }

@@ -1,4 +1,5 @@
 // `npm run bench`: speed, memory and accuracy figures, printed; targets live here, never in timed tests.
+import { benchAccountTiming } from './account-timing';
 import { benchCaptureTransfer } from './capture-transfer';
 import { benchLedger } from './ledger-bench';
 import { printFigures, type Figures } from './print-figures';
@@ -14,6 +15,7 @@ async function main() {
     ['Receipt reading (real receipts)', () => benchRealReceipts()],
     ['Ledger and exports (seeded builds)', benchLedger],
     ['List routes under load (demo build, 20 clients)', benchListLoad],
+    ['Sign-up and reset timing (an address with an account and one without)', benchAccountTiming],
     ['Line suggestions (demo build, leave one out)', benchSuggestionQuality],
     ['Capture transfer (initial JavaScript, a downscaled phone photo)', benchCaptureTransfer],
   ];

@@ -1,5 +1,11 @@
 // A throw-away database of a bench section's own with the demo build seeded into it, and a document store beside it.
 import { MikroORM } from '@mikro-orm/postgresql';
+import type http from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { createApp } from '../../backend/src/app';
+import type { JobQueue } from '../../backend/src/jobs/queue';
+import { startFakeMailServer, type FakeMailServer } from '../../backend/src/mail/fake-mail-server';
+import { createMailer } from '../../backend/src/mail/mailer';
 import { mkdtemp, rm } from 'node:fs/promises';
 import os from 'node:os';
 import path from 'node:path';
@@ -41,4 +47,29 @@ export async function withSeededDemo<T>(dbName: string, work: (demo: SeededDemo)
     await rm(s3Folder, { recursive: true, force: true });
     await orm.close(true);
   }
+}
+
+/**
+ * Runs `work` with the app listening on a loopback port in this process, on a fresh database holding the demo build,
+ * with a fake mail server to take what it sends. No job runs: the seed reads its receipts itself.
+ */
+export async function withDemoApp<T>(dbName: string, work: (app: { port: number; build: Build; mail: FakeMailServer }) => Promise<T>): Promise<T> {
+  return withSeededDemo(dbName, async ({ orm, store, config, build }) => {
+    const mail = await startFakeMailServer({ quiet: true });
+    const mailer = createMailer({ ...config.smtp, port: mail.smtpPort });
+    const queue = { readReceipt: async () => undefined, scheduleAlerts: async () => undefined, stop: async () => undefined } as unknown as JobQueue;
+    const running = createApp({ orm, config, mailer, store, queue });
+    let server: http.Server | undefined;
+    try {
+      server = await new Promise<http.Server>((resolve) => {
+        const listening = running.app.listen(0, '127.0.0.1', () => resolve(listening));
+      });
+      return await work({ port: (server.address() as AddressInfo).port, build, mail });
+    } finally {
+      if (server) await new Promise((resolve) => server!.close(resolve));
+      await running.close();
+      mailer.close();
+      await mail.close();
+    }
+  });
 }

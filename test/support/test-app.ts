@@ -1,7 +1,7 @@
 // Starts the real app for a test file: the test database (made fresh by npm test), a fake SMTP server, a port.
 import { MikroORM } from '@mikro-orm/postgresql';
-import type { Server } from 'node:http';
-import type { Express } from 'express';
+import { createServer, type Server } from 'node:http';
+import type { Express, Request, Response } from 'express';
 import { createApp } from '../../backend/src/app';
 import { loadConfig } from '../../backend/src/config';
 import { ormConfig } from '../../backend/src/db/mikro-orm.config';
@@ -12,6 +12,35 @@ import { startFakeS3, type FakeS3 } from '../../backend/src/storage/fake-s3-serv
 import { createObjectStore, type ObjectStore } from '../../backend/src/storage/object-store';
 import os from 'node:os';
 import path from 'node:path';
+
+/** A request that means to get a 5xx answer (a test of that answer) carries this header, so the file does not fail. */
+export const DELIBERATE_5XX_HEADER = 'x-test-expects-server-error';
+/** Enough of an answer's body to say what went wrong. */
+const BODY_SHOWN = 600;
+
+/**
+ * The app as the tests reach it (through supertest or the listening port), noting every 5xx answer that was not
+ * asked for: `close()` then fails the file, naming each request and what it answered.
+ */
+export function recordingServerErrors(app: Express, unexpected: string[]): Express {
+  const recording = (req: Request, res: Response) => {
+    if (req.headers[DELIBERATE_5XX_HEADER]) return app(req, res);
+    const method = req.method;
+    const url = req.url;
+    let body = '';
+    const end = res.end.bind(res) as (...args: unknown[]) => Response;
+    res.end = ((...args: unknown[]) => {
+      const [chunk] = args;
+      if (res.statusCode >= 500 && (typeof chunk === 'string' || Buffer.isBuffer(chunk))) body = chunk.toString().slice(0, BODY_SHOWN);
+      return end(...args);
+    }) as Response['end'];
+    res.on('finish', () => {
+      if (res.statusCode >= 500) unexpected.push(`${method} ${url} answered ${res.statusCode}: ${body || '(no body)'}`);
+    });
+    return app(req, res);
+  };
+  return Object.assign(recording, app) as unknown as Express;
+}
 
 export interface TestApp {
   app: Express;
@@ -47,13 +76,15 @@ export async function startTestApp(options: { serveClient?: boolean; clientDist?
   const config = { ...base, smtp: { ...base.smtp, port: mail.smtpPort }, clientDist: options.clientDist ?? (options.serveClient ? base.clientDist : '/nonexistent') };
   const holder: { server?: Server } = {};
   const running = createApp({ orm, config, mailer, store, queue });
+  const unexpectedServerErrors: string[] = [];
+  const app = recordingServerErrors(running.app, unexpectedServerErrors);
   await new Promise<void>((resolve) => {
-    holder.server = running.app.listen(0, '127.0.0.1', () => resolve());
+    holder.server = createServer(app).listen(0, '127.0.0.1', () => resolve());
   });
   const port = (holder.server!.address() as { port: number }).port;
   config.appUrl = `http://127.0.0.1:${port}`;
   return {
-    app: running.app,
+    app,
     url: config.appUrl,
     orm,
     mail,
@@ -69,6 +100,9 @@ export async function startTestApp(options: { serveClient?: boolean; clientDist?
       store.close();
       await s3.close();
       await orm.close(true);
+      if (unexpectedServerErrors.length > 0) {
+        throw new Error(`${unexpectedServerErrors.length} answer(s) of 5xx that no test asked for (mark a deliberate one with the ${DELIBERATE_5XX_HEADER} header):\n${unexpectedServerErrors.join('\n')}`);
+      }
     },
   };
 }

@@ -7,8 +7,8 @@ import type { LedgerSystemDto } from '../../../shared/api/ledger';
 import { SAFETY_CAUTION } from '../../../shared/safety';
 import type { Build } from '../builds/build.entity';
 import { buildLedger } from '../ledger/ledger.service';
-import { csvStringifier, neutralise } from './csv';
-import { Decimal, minorUnits, sum, toDecimal, toWire } from '../../../shared/money';
+import { csvDocument, neutralise } from './csv';
+import { Decimal, minorUnits, storedToWire, sum, toDecimal, toWire } from '../../../shared/money';
 
 export const BUILD_SHEET_COLUMNS = ['section', 'system', 'description', 'part number', 'quantity', 'unit', 'cost', 'date', 'currency'];
 
@@ -53,27 +53,23 @@ export async function buildSheetData(em: EntityManager, build: Build, filter: { 
 export async function buildSheetCsv(em: EntityManager, build: Build, filter: { systemId?: string }): Promise<Readable> {
   const places = minorUnits(build.currency);
   const { rows, systems } = await buildSheetData(em, build, filter);
-  const csv = csvStringifier(BUILD_SHEET_COLUMNS);
-  for (const row of rows) {
-    csv.write([
-      'part',
-      neutralise(row.system),
-      neutralise(row.description),
-      neutralise(row.part_number),
-      toWire(toDecimal(String(row.quantity))),
-      row.unit,
-      row.cost === null ? '' : toWire(toDecimal(String(row.cost)), places),
-      row.bought_on ?? '',
-      build.currency,
-    ]);
-  }
+  const records = rows.map((row) => [
+    'part',
+    neutralise(row.system),
+    neutralise(row.description),
+    neutralise(row.part_number),
+    storedToWire(String(row.quantity)),
+    row.unit,
+    row.cost === null ? '' : storedToWire(String(row.cost), places),
+    row.bought_on ?? '',
+    build.currency,
+  ]);
   for (const system of systems) {
-    csv.write(['system total', neutralise(system.name), 'net cost of the system', '', '', '', system.netCost, '', build.currency]);
+    records.push(['system total', neutralise(system.name), 'net cost of the system', '', '', '', system.netCost, '', build.currency]);
   }
-  csv.write(['note', '', neutralise(SAFETY_CAUTION), '', '', '', '', '', '']);
-  csv.write(['note', '', TAX_NOTE, '', '', '', '', '', '']);
-  csv.end();
-  return csv;
+  records.push(['note', '', neutralise(SAFETY_CAUTION), '', '', '', '', '', '']);
+  records.push(['note', '', TAX_NOTE, '', '', '', '', '', '']);
+  return csvDocument(BUILD_SHEET_COLUMNS, records);
 }
 
 /** The same sheet for the printable page: systems with nothing fitted and nothing spent are left out. */

@@ -26,8 +26,7 @@ export function partsRoutes(): Router {
     const build = membershipOf(res).build;
     const systemId = typeof req.query.systemId === 'string' && isUuid(req.query.systemId) ? req.query.systemId : undefined;
     const status = typeof req.query.status === 'string' ? req.query.status : undefined;
-    const parts = await listParts(em(), build, { systemId, status });
-    res.json({ parts: parts.map((p) => partDto(p, build.currency)) });
+    res.json({ parts: await listParts(em(), build, { systemId, status }) });
   });
 
   router.post('/parts', buildRole(...EDITORS), validBody(createPartRequest), async (req, res) => {

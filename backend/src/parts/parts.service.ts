@@ -2,7 +2,7 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import type { PartDto, UpdatePartRequest } from '../../../shared/api/parts';
 import type { PartStatus } from '../../../shared/enums';
-import { type Decimal, fitsStoredAmount, minorUnits, multiply, toDecimal, toWire } from '../../../shared/money';
+import { type Decimal, fitsStoredAmount, minorUnits, multiply, storedToWire, toWire } from '../../../shared/money';
 import type { Unit } from '../../../shared/units';
 import type { Build } from '../builds/build.entity';
 import { NotFound, StaleVersion, ValidationFailed } from '../http/errors';
@@ -26,14 +26,7 @@ export interface PartInput {
 
 export type PartChanges = Partial<PartInput> & { version: number };
 
-/** What a part's answer is made of: a loaded Part, or a row of the list read straight from SQL. */
-export type PartFields = Pick<
-  Part,
-  | 'id' | 'description' | 'partNumber' | 'quantity' | 'unit' | 'estimatedUnitCost' | 'status' | 'storageLocation' | 'sourceUrl'
-  | 'notes' | 'forSale' | 'askingPrice' | 'version' | 'updatedAt'
-> & { system: { id: string } };
-
-export function partDto(part: PartFields, currency: string): PartDto {
+export function partDto(part: Part, currency: string): PartDto {
   return {
     id: part.id,
     systemId: part.system.id,
@@ -54,15 +47,15 @@ export function partDto(part: PartFields, currency: string): PartDto {
   };
 }
 
-/** A part as the list query reads it: the answer's fields, less the estimate worked out from them, with its time. */
-type PartRow = Omit<PartDto, 'estimatedTotal' | 'updatedAt'> & { updatedAt: Date };
-
 /**
- * The list is read as plain rows, not entities: making an entity of every part (identity map, references, change
- * tracking) cost most of the route's time under load, and a list only answers.
+ * The list is read as plain rows and answered as they come, not made into entities or Decimals: an entity of every
+ * part (identity map, references, change tracking) and a Decimal of every figure cost most of the route's time under
+ * load, and a list only answers. The estimate is rounded as the ledger rounds it (numeric round, half away from
+ * zero); storedToWire writes every figure exactly as partDto would.
  */
-export async function listParts(em: EntityManager, build: Build, filter: { systemId?: string; status?: string }): Promise<PartFields[]> {
-  const params: unknown[] = [build.id];
+export async function listParts(em: EntityManager, build: Build, filter: { systemId?: string; status?: string }): Promise<PartDto[]> {
+  const places = minorUnits(build.currency);
+  const params: unknown[] = [places, build.id];
   let where = 'p.build_id = ?';
   if (filter.systemId) {
     where += ' and p.system_id = ?';
@@ -72,23 +65,23 @@ export async function listParts(em: EntityManager, build: Build, filter: { syste
     where += ' and p.status = ?';
     params.push(filter.status);
   }
-  const rows: PartRow[] = await em.execute(
+  const rows: (Omit<PartDto, 'updatedAt'> & { updatedAt: string })[] = await em.execute(
     `select p.id, p.system_id as "systemId", p.description, p.part_number as "partNumber", p.quantity, p.unit,
-            p.estimated_unit_cost as "estimatedUnitCost", p.status, p.storage_location as "storageLocation",
-            p.source_url as "sourceUrl", p.notes, p.for_sale as "forSale", p.asking_price as "askingPrice", p.version,
-            p.updated_at as "updatedAt"
+            p.estimated_unit_cost as "estimatedUnitCost", round(p.quantity * p.estimated_unit_cost, ?) as "estimatedTotal",
+            p.status, p.storage_location as "storageLocation", p.source_url as "sourceUrl", p.notes, p.for_sale as "forSale",
+            p.asking_price as "askingPrice", p.version, p.updated_at as "updatedAt"
        from part p join vehicle_system s on s.id = p.system_id
       where ${where}
       order by s.sort_order asc, p.created_at asc`,
     params,
   );
-  return rows.map(({ systemId, quantity, estimatedUnitCost, askingPrice, updatedAt, ...fields }) => ({
-    ...fields,
-    system: { id: systemId },
-    quantity: toDecimal(quantity),
-    estimatedUnitCost: toDecimal(estimatedUnitCost),
-    askingPrice: askingPrice === null ? null : toDecimal(askingPrice),
-    updatedAt: new Date(updatedAt),
+  return rows.map((row) => ({
+    ...row,
+    quantity: storedToWire(row.quantity),
+    estimatedUnitCost: storedToWire(row.estimatedUnitCost),
+    estimatedTotal: storedToWire(row.estimatedTotal, places),
+    askingPrice: row.askingPrice === null ? null : storedToWire(row.askingPrice, places),
+    updatedAt: new Date(row.updatedAt).toISOString(),
   }));
 }
 

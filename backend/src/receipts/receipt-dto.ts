@@ -2,12 +2,14 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import type { ReceiptDto, ReceiptLineDto, ReceiptSummaryDto } from '../../../shared/api/receipts';
 import type { BuildRole } from '../../../shared/enums';
-import { Decimal, minorUnits, toWire } from '../../../shared/money';
+import { Decimal, minorUnits, storedToWire, toWire } from '../../../shared/money';
 import { reconcile } from '../../../shared/receipt-math';
 import { ReceiptLine } from './receipt-line.entity';
 import { Receipt } from './receipt.entity';
 
-const money = (value: Decimal | null, places: number) => (value === null ? null : toWire(value, places));
+/** A figure of a loaded entity (Decimal) or of a row read straight from SQL (stored text), as wire text. */
+const money = (value: Decimal | string | null, places: number) =>
+  value === null ? null : typeof value === 'string' ? storedToWire(value, places) : toWire(value, places);
 
 export function lineDto(line: ReceiptLine, currency: string): ReceiptLineDto {
   const places = minorUnits(currency);
@@ -35,33 +37,41 @@ export function lineDto(line: ReceiptLine, currency: string): ReceiptLineDto {
 }
 
 /**
- * Other receipts of the same build with the same document, or the same shop, date and total, less the pairs someone
- * marked as two purchases (stored in id order, hence least/greatest).
+ * The ids of receipt `r`'s likely duplicates, oldest first, as an SQL array: other receipts of the same build with the
+ * same document, or the same shop, date and total, less the pairs someone marked as two purchases (stored in id order,
+ * hence least/greatest). Per receipt, the (build, sha256) and (build, purchase date) indexes find the candidates.
  */
+export const LIKELY_DUPLICATES_OF_R = `array(
+  select o.id from receipt o
+   where o.build_id = r.build_id and o.id <> r.id
+     and (o.sha256 = r.sha256
+          or (r.vendor_id is not null and o.vendor_id = r.vendor_id and o.purchase_date = r.purchase_date and o.total = r.total))
+     and not exists (select 1 from not_duplicate d where d.first_id = least(r.id, o.id) and d.second_id = greatest(r.id, o.id))
+   order by o.created_at)`;
+
+/** The likely duplicates of each of the receipts (see LIKELY_DUPLICATES_OF_R). */
 export async function findDuplicates(em: EntityManager, buildId: string, receiptIds: string[]): Promise<Map<string, string[]>> {
   const result = new Map<string, string[]>(receiptIds.map((id) => [id, []]));
   if (receiptIds.length === 0) return result;
-  const rows: { id: string; other: string }[] = await em.execute(
-    `select r.id, o.id as other
-       from receipt r
-       join receipt o on o.build_id = r.build_id and o.id <> r.id
-      where r.build_id = ? and r.id = any(?::uuid[])
-        and (o.sha256 = r.sha256
-             or (r.vendor_id is not null and o.vendor_id = r.vendor_id and o.purchase_date = r.purchase_date and o.total = r.total))
-        and not exists (select 1 from not_duplicate d where d.first_id = least(r.id, o.id) and d.second_id = greatest(r.id, o.id))
-      order by o.created_at`,
+  const rows: { id: string; others: string[] }[] = await em.execute(
+    `select r.id, ${LIKELY_DUPLICATES_OF_R} as others from receipt r where r.build_id = ? and r.id = any(?::uuid[])`,
     [buildId, `{${receiptIds.join(',')}}`],
   );
-  for (const row of rows) result.get(row.id)!.push(row.other);
+  for (const row of rows) result.set(row.id, row.others);
   return result;
 }
 
 /** What a receipt's summary is made of: a loaded Receipt, or a row of the list read straight from SQL. */
 export type ReceiptSummaryFields = Pick<
   Receipt,
-  | 'id' | 'purchaseDate' | 'receiptNumber' | 'total' | 'state' | 'readingProgress' | 'reviewState' | 'originalFilename'
+  | 'id' | 'purchaseDate' | 'receiptNumber' | 'state' | 'readingProgress' | 'reviewState' | 'originalFilename'
   | 'contentType' | 'createdAt' | 'version'
-> & { build: { currency: string }; vendor?: { name: string } | null; uploadedBy: { displayName?: string | null } };
+> & {
+  total: Decimal | string | null;
+  build: { currency: string };
+  vendor?: { name: string } | null;
+  uploadedBy: { displayName?: string | null };
+};
 
 export function summaryDto(receipt: ReceiptSummaryFields, extra: { lineCount: number; duplicateOf: string[]; systemIds: string[] }): ReceiptSummaryDto {
   const places = minorUnits(receipt.build.currency);

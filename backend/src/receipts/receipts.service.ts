@@ -4,14 +4,14 @@ import type { EntityManager } from '@mikro-orm/postgresql';
 import { createHash, randomUUID } from 'node:crypto';
 import type { ReceiptSummaryDto, UpdateReceiptRequest } from '../../../shared/api/receipts';
 import type { ReceiptState, ReviewState } from '../../../shared/enums';
-import { type Decimal, fitsMinorUnits, minorUnits, toDecimal } from '../../../shared/money';
+import { type Decimal, fitsMinorUnits, minorUnits } from '../../../shared/money';
 import type { User } from '../auth/user.entity';
 import type { Build } from '../builds/build.entity';
 import { recordAudit } from '../audit/audit';
 import { Conflict, Forbidden, NotFound, StaleVersion, ValidationFailed } from '../http/errors';
 import type { JobQueue } from '../jobs/queue';
 import type { ObjectStore } from '../storage/object-store';
-import { findDuplicates, summaryDto } from './receipt-dto';
+import { LIKELY_DUPLICATES_OF_R, summaryDto } from './receipt-dto';
 import { ReceiptLine } from './receipt-line.entity';
 import { Receipt } from './receipt.entity';
 import { Vendor, normalizeVendorName } from './vendor.entity';
@@ -82,6 +82,9 @@ interface ReceiptSummaryRow {
   version: number;
   vendorName: string | null;
   uploadedBy: string | null;
+  lineCount: number;
+  systemIds: string[];
+  duplicateOf: string[];
 }
 
 /**
@@ -101,35 +104,25 @@ export async function listReceipts(em: EntityManager, build: Build, filter: Rece
   if (filter.from) and('r.purchase_date >= ?', filter.from);
   if (filter.to) and('r.purchase_date <= ?', filter.to);
   if (filter.systemId) and('r.id in (select l.receipt_id from receipt_line l where l.system_id = ?)', filter.systemId);
+  // One query: the line count, systems and likely duplicates of each receipt come from subqueries on its own rows.
   const rows: ReceiptSummaryRow[] = await em.execute(
     `select r.id, r.purchase_date as "purchaseDate", r.receipt_number as "receiptNumber", r.total, r.state,
             r.reading_progress as "readingProgress", r.review_state as "reviewState", r.original_filename as "originalFilename",
-            r.content_type as "contentType", r.created_at as "createdAt", r.version, v.name as "vendorName", u.display_name as "uploadedBy"
+            r.content_type as "contentType", r.created_at as "createdAt", r.version, v.name as "vendorName", u.display_name as "uploadedBy",
+            lines.count as "lineCount", coalesce(lines.systems, '{}') as "systemIds", ${LIKELY_DUPLICATES_OF_R} as "duplicateOf"
        from receipt r
        left join vendor v on v.id = r.vendor_id
        join app_user u on u.id = r.uploaded_by_id
+       cross join lateral (select count(*)::int as count, array_remove(array_agg(distinct l.system_id), null) as systems
+                             from receipt_line l where l.receipt_id = r.id) lines
       where ${where}
       order by r.purchase_date desc nulls first, r.created_at desc`,
     params,
   );
-  const ids = rows.map((row) => row.id);
-  const duplicates = await findDuplicates(em, build.id, ids);
-  const stats: { receipt_id: string; lines: string; systems: string[] | null }[] = ids.length
-    ? await em.execute(
-        `select receipt_id, count(*) as lines, array_remove(array_agg(distinct system_id), null) as systems
-           from receipt_line where receipt_id = any(?::uuid[]) group by receipt_id`,
-        [`{${ids.join(',')}}`],
-      )
-    : [];
-  const byReceipt = new Map(stats.map((s) => [s.receipt_id, s]));
-  return rows.map(({ vendorName, uploadedBy, total, createdAt, ...fields }) =>
+  return rows.map(({ vendorName, uploadedBy, createdAt, lineCount, systemIds, duplicateOf, ...fields }) =>
     summaryDto(
-      { ...fields, build, total: total === null ? null : toDecimal(total), createdAt: new Date(createdAt), vendor: vendorName === null ? null : { name: vendorName }, uploadedBy: { displayName: uploadedBy } },
-      {
-        lineCount: Number(byReceipt.get(fields.id)?.lines ?? 0),
-        duplicateOf: duplicates.get(fields.id) ?? [],
-        systemIds: byReceipt.get(fields.id)?.systems ?? [],
-      },
+      { ...fields, build, createdAt: new Date(createdAt), vendor: vendorName === null ? null : { name: vendorName }, uploadedBy: { displayName: uploadedBy } },
+      { lineCount, duplicateOf, systemIds },
     ),
   );
 }
