@@ -10,6 +10,9 @@ import { Receipt } from '../../backend/src/receipts/receipt.entity';
 import { ApiClient, NEW_BUILD, signedUpClient, uniqueEmail } from '../support/api-client';
 import { startTestApp, type TestApp } from '../support/test-app';
 
+// The set-up signs up four people (argon2 on purpose slow) and starts the app: past jest's 5 s on a loaded machine.
+jest.setTimeout(60_000);
+
 type Actor = 'owner' | 'crew' | 'reviewer' | 'outsider' | 'anonymous';
 const ACTORS: Actor[] = ['owner', 'crew', 'reviewer', 'outsider', 'anonymous'];
 

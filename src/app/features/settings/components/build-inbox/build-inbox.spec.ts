@@ -22,7 +22,7 @@ const REFUSED: MailRefusalDto = {
 };
 
 async function renderAs(role: BuildRole, refused: MailRefusalDto[] = []) {
-  await render(BuildInbox, { providers: apiTestProviders(), bindings: [inputBinding('buildId', () => 'b-3'), inputBinding('role', () => role)] });
+  await render(BuildInbox, { providers: apiTestProviders(), bindings: [inputBinding('buildId', () => 'b-3'), inputBinding('memberRole', () => role)] });
   const http = TestBed.inject(HttpTestingController);
   const inbox = http.expectOne('/api/builds/b-3/inbox');
   expect(inbox.request.method).toBe('GET');

@@ -27,12 +27,12 @@ export class BuildInbox {
 
   readonly buildId = input.required<string>();
   /** Owner and crew only: a reviewer adds no receipts, so the page does not show them this. */
-  readonly role = input.required<BuildRole>();
+  readonly memberRole = input.required<BuildRole>();
 
   protected readonly address = signal<string | null>(null);
   protected readonly refused = signal<MailRefusalDto[] | null>(null);
   protected readonly rotating = signal(false);
-  protected readonly isOwner = computed(() => this.role() === 'owner');
+  protected readonly isOwner = computed(() => this.memberRole() === 'owner');
   protected readonly reasonLabels = MAIL_REFUSAL_LABELS;
 
   constructor() {
