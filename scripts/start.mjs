@@ -1,6 +1,7 @@
 // `npm start`: installs what is missing, starts PostgreSQL, migrates, seeds the demo build, builds the client and
 // serves Tallyhood with a fake mail catcher on 127.0.0.1 until Ctrl-C (PostgreSQL keeps running: npm run db:stop).
 import { spawn } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
 import path from 'node:path';
 import { ROOT, checkRuntimeEngines, ensureClientBuild, ensureNodeModules, fail, log, migrate, npmBin, pgEnv, runAsync, startCluster, timed } from './setup.mjs';
 
@@ -31,6 +32,8 @@ const env = {
   MAIL_VIEW_PORT: mailViewPort,
   S3_PORT: s3Port,
   S3_ENDPOINT: process.env.S3_ENDPOINT || s3Url,
+  // The fake mail server hands mail for the receipts domain to the app's inbound-mail webhook with this secret.
+  INBOUND_MAIL_SECRET: process.env.INBOUND_MAIL_SECRET || randomBytes(32).toString('hex'),
 };
 
 if (!(await timed('migrate', timings, () => migrate(env)))) fail('The migrations failed (see above); nothing was started.');

@@ -26,6 +26,8 @@ import { suggestionsRoutes } from './suggestions/suggestions.routes';
 import { exportsRoutes } from './exports/exports.routes';
 import { ledgerRoutes } from './ledger/ledger.routes';
 import { reviewRoutes } from './review/review.routes';
+import { inboundMailRoutes } from './inbox/inbound-mail.routes';
+import { inboxRoutes } from './inbox/inbox.routes';
 import type { ObjectStore } from './storage/object-store';
 
 export interface AppDeps {
@@ -109,9 +111,12 @@ export function createApp({ orm, config, mailer, store, queue }: AppDeps): Runni
   api.use('/builds/:buildId', exportsRoutes({ store }));
   api.use('/builds/:buildId', ledgerRoutes());
   api.use('/builds/:buildId', reviewRoutes({ mailer, config }));
+  api.use('/builds/:buildId', inboxRoutes(config));
   api.use(() => {
     throw new NotFound('That API route');
   });
+  // Outside the CSRF check: the caller is a mail service holding the shared secret, not a browser.
+  app.use('/api', inboundMailRoutes({ orm, store, queue, mailer, config }));
   app.use('/api', api);
 
   const index = path.join(config.clientDist, 'index.html');

@@ -35,3 +35,17 @@ describe('loadConfig outside development', () => {
     }
   });
 });
+
+describe('loadConfig for the inbox', () => {
+  it('defaults the receipts domain and keeps the webhook off without a secret', () => {
+    expect(loadConfig({}).inbox).toEqual({ domain: 'receipts.localhost', webhookSecret: null });
+    expect(loadConfig({ RECEIPTS_DOMAIN: 'Receipts.Example.COM' }).inbox.domain).toBe('receipts.example.com');
+  });
+
+  it('refuses a domain that is not one, and a short webhook secret, naming the variable', () => {
+    expect(() => loadConfig({ RECEIPTS_DOMAIN: 'not a domain' })).toThrow(/^RECEIPTS_DOMAIN must be a mail domain/);
+    expect(() => loadConfig({ RECEIPTS_DOMAIN: 'localhost' })).toThrow(/^RECEIPTS_DOMAIN/);
+    expect(() => loadConfig({ INBOUND_MAIL_SECRET: 'short' })).toThrow(/^INBOUND_MAIL_SECRET must be at least 32 characters/);
+    expect(loadConfig({ INBOUND_MAIL_SECRET: OWN_SECRET }).inbox.webhookSecret).toBe(OWN_SECRET);
+  });
+});

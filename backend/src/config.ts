@@ -11,12 +11,33 @@ export interface AppConfig {
   smtp: { host: string; port: number; from: string };
   clientDist: string;
   storage: { endpoint: string; region: string; bucket: string; accessKeyId: string; secretAccessKey: string; forcePathStyle: boolean };
+  /** Mailed receipts: builds' addresses are `<token>@domain`; the webhook route answers only with a secret set. */
+  inbox: { domain: string; webhookSecret: string | null };
 }
 
 function integer(value: string | undefined, fallback: number, name: string): number {
   if (value === undefined || value === '') return fallback;
   if (!/^\d+$/.test(value)) throw new Error(`${name} must be a whole number, got "${value}".`);
   return Number(value);
+}
+
+const MIN_WEBHOOK_SECRET_LENGTH = 32;
+
+/** A mail domain of letters, digits, dots and dashes (the receipts' addresses are made from it). */
+function mailDomain(value: string | undefined): string {
+  const domain = (value ?? 'receipts.localhost').trim().toLowerCase();
+  if (!/^[a-z0-9]([a-z0-9-]*[a-z0-9])?(\.[a-z0-9]([a-z0-9-]*[a-z0-9])?)+$/.test(domain)) {
+    throw new Error(`RECEIPTS_DOMAIN must be a mail domain such as receipts.example.com, got "${value}".`);
+  }
+  return domain;
+}
+
+function webhookSecret(value: string | undefined): string | null {
+  if (value === undefined || value === '') return null;
+  if (value.length < MIN_WEBHOOK_SECRET_LENGTH) {
+    throw new Error(`INBOUND_MAIL_SECRET must be at least ${MIN_WEBHOOK_SECRET_LENGTH} characters (for example \`openssl rand -hex 32\`), or unset to turn the inbound-mail webhook off.`);
+  }
+  return value;
 }
 
 const DEVELOPMENT_SESSION_SECRET = 'tallyhood-development-session-secret';
@@ -68,5 +89,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
       secretAccessKey: env.S3_SECRET_ACCESS_KEY ?? 'S3RVER',
       forcePathStyle: env.S3_FORCE_PATH_STYLE !== 'false',
     },
+    inbox: { domain: mailDomain(env.RECEIPTS_DOMAIN), webhookSecret: webhookSecret(env.INBOUND_MAIL_SECRET) },
   };
 }

@@ -10,7 +10,8 @@ import { Core } from '../../backend/src/receipts/core.entity';
 import { ReceiptLine } from '../../backend/src/receipts/receipt-line.entity';
 import { Receipt } from '../../backend/src/receipts/receipt.entity';
 import { DEMO_HISTORY, DEMO_SHOPS } from '../../backend/src/seed/demo-history';
-import { DEMO_BUDGETS, DEMO_BUILD, DEMO_PASSWORD, DEMO_PEOPLE } from '../../backend/src/seed/demo-scenario';
+import { DEMO_BUDGETS, DEMO_BUILD, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_REFUSED_MAIL } from '../../backend/src/seed/demo-scenario';
+import { MailRefusal } from '../../backend/src/inbox/mail-refusal.entity';
 import { seedDemo } from '../../backend/src/seed/seed-demo';
 import { ApiClient } from '../support/api-client';
 import { startTestApp, type TestApp } from '../support/test-app';
@@ -62,6 +63,9 @@ it('seeds once, and a second run beside existing accounts leaves everything as i
   // npm start's own rule: any account at all (here, other test files') means nothing is seeded.
   expect(await seedDemo({ orm: t.orm, store: t.store })).toBe(false);
   expect(await em.count(Receipt, { build })).toBe(receipts);
+  // Its inbox: an address of its own, and the one mailing it turned away, kept for the owner.
+  expect(build.inboxToken).toMatch(/^[0-9a-f]{32}$/);
+  expect((await em.find(MailRefusal, { build })).map((refusal) => [refusal.fromAddress, refusal.reason])).toEqual([[DEMO_REFUSED_MAIL.fromAddress, 'not_a_member']]);
 });
 
 it('prints the totals a till would, and the ledger nets them to the cent: less core deposits held or refunded', async () => {

@@ -10,6 +10,9 @@ import { Receipt } from '../../backend/src/receipts/receipt.entity';
 import { ApiClient, NEW_BUILD, signedUpClient, uniqueEmail } from '../support/api-client';
 import { startTestApp, type TestApp } from '../support/test-app';
 
+// The set-up signs up four people (argon2 on purpose slow) and starts the app: past jest's 5 s on a loaded machine.
+jest.setTimeout(60_000);
+
 type Actor = 'owner' | 'crew' | 'reviewer' | 'outsider' | 'anonymous';
 const ACTORS: Actor[] = ['owner', 'crew', 'reviewer', 'outsider', 'anonymous'];
 
@@ -261,6 +264,10 @@ const ROUTES: RouteCase[] = [
       f.clients[a].send('put', `/api/builds/${f.buildId}/alert-preferences`, { budget: true, coreDue: false, returnWindow: true, duplicate: false, reviewDigest: true }),
     expected: readable,
   },
+  // The inbox address is for those who send receipts (owner and crew); a reviewer adds none. Refused mail is the owner's.
+  { name: 'GET /api/builds/:buildId/inbox', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/inbox`), expected: editors(200) },
+  { name: 'POST /api/builds/:buildId/inbox/rotate', call: (f, a) => f.clients[a].post(`/api/builds/${f.buildId}/inbox/rotate`), expected: editors(200) },
+  { name: 'GET /api/builds/:buildId/inbox/refused', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/inbox/refused`), expected: ownerOnly(200) },
 ];
 
 let t: TestApp;

@@ -3,6 +3,7 @@ import { MikroORM } from '@mikro-orm/postgresql';
 import { createServer, type Server } from 'node:http';
 import type { Express, Request, Response } from 'express';
 import { createApp } from '../../backend/src/app';
+import { receiveMail } from '../../backend/src/inbox/receive-mail';
 import { loadConfig } from '../../backend/src/config';
 import { ormConfig } from '../../backend/src/db/mikro-orm.config';
 import { createMailer, type Mailer } from '../../backend/src/mail/mailer';
@@ -83,6 +84,10 @@ export async function startTestApp(options: { serveClient?: boolean; clientDist?
   });
   const port = (holder.server!.address() as { port: number }).port;
   config.appUrl = `http://127.0.0.1:${port}`;
+  // Mail to the receipts domain reaches the builds' inboxes as it does under npm start, through the one seam.
+  mail.receiveFor(config.inbox.domain, async (raw, recipients) => {
+    await receiveMail({ orm, store, queue, mailer, config }, raw, { recipients });
+  });
   return {
     app,
     url: config.appUrl,

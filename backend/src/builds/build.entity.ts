@@ -4,9 +4,10 @@ import { randomUUID } from 'node:crypto';
 import { BUILD_STATUSES, type BuildStatus } from '../../../shared/enums';
 import { Decimal } from '../../../shared/money';
 import { DecimalType } from '../db/decimal-type';
+import { newInboxToken } from '../inbox/inbox-token';
 
 export class Build {
-  [OptionalProps]?: 'createdAt' | 'updatedAt' | 'version' | 'vehicle' | 'locale' | 'status' | 'startedOn' | 'targetDate' | 'archivedAt' | 'contingencyBudget' | 'returnWindowDays';
+  [OptionalProps]?: 'createdAt' | 'updatedAt' | 'version' | 'vehicle' | 'locale' | 'status' | 'startedOn' | 'targetDate' | 'archivedAt' | 'contingencyBudget' | 'returnWindowDays' | 'inboxToken';
   id: string = randomUUID();
   name!: string;
   vehicle = '';
@@ -22,6 +23,8 @@ export class Build {
   contingencyBudget: Decimal = new Decimal(0);
   /** Days after purchase a shop takes a part back: 30 is common practice, from memory (windows of 30 to 90 days are usual). */
   returnWindowDays = 30;
+  /** The private part of the build's inbox address (inbox/inbox-token.ts); rotating it retires the old one. */
+  inboxToken: string = newInboxToken();
   version = 1;
   createdAt: Date = new Date();
   updatedAt: Date = new Date();
@@ -41,6 +44,7 @@ export const BuildSchema = new EntitySchema<Build>({
     archivedAt: { type: 'datetime', nullable: true },
     contingencyBudget: { type: DecimalType, default: '0' },
     returnWindowDays: { type: 'integer', default: 30 },
+    inboxToken: { type: 'string', length: 64, unique: true },
     version: { type: 'integer', version: true },
     createdAt: { type: 'datetime', defaultRaw: 'now()' },
     updatedAt: { type: 'datetime', defaultRaw: 'now()', onUpdate: () => new Date() },

@@ -16,5 +16,8 @@ import { NotDuplicateSchema } from '../receipts/not-duplicate.entity';
 import { CommentSchema } from '../review/comment.entity';
 import { AlertPreferenceSchema } from '../alerts/alert-preference.entity';
 import { AlertSentSchema } from '../alerts/alert-sent.entity';
+import { MailRefusalSchema } from '../inbox/mail-refusal.entity';
+import { MailedMessageSchema } from '../inbox/mailed-message.entity';
+import { RetiredInboxTokenSchema } from '../inbox/retired-inbox-token.entity';
 
-export const entities = [UserSchema, PasswordResetSchema, BuildSchema, MembershipSchema, InviteSchema, VehicleSystemSchema, PartSchema, VendorSchema, ReceiptSchema, ReceiptLineSchema, CoreSchema, NotDuplicateSchema, AuditEventSchema, CommentSchema, AlertPreferenceSchema, AlertSentSchema, UploadKeySchema];
+export const entities = [UserSchema, PasswordResetSchema, BuildSchema, MembershipSchema, InviteSchema, VehicleSystemSchema, PartSchema, VendorSchema, ReceiptSchema, ReceiptLineSchema, CoreSchema, NotDuplicateSchema, AuditEventSchema, CommentSchema, AlertPreferenceSchema, AlertSentSchema, UploadKeySchema, RetiredInboxTokenSchema, MailRefusalSchema, MailedMessageSchema];

@@ -28,6 +28,8 @@ export interface ReadingContext {
   /** ISO date the receipt was uploaded: no receipt is dated after it. */
   readOn: string;
   knownVendors: string[];
+  /** The stored document's type (a mailed message is read from its body). */
+  contentType?: string;
 }
 
 export type DocumentReader = (bytes: Buffer, locale: string, context?: ReadingContext) => Promise<DocumentReading>;
@@ -71,7 +73,7 @@ export async function readQueuedReceipt(deps: ReadReceiptDeps, receiptId: string
     const bytes = await deps.store.get(receipt.documentKey);
     await setProgress(em, receipt.id, 25);
     const knownVendors = (await em.find(Vendor, { build: receipt.build }, { fields: ['name'], limit: 500 })).map((vendor) => vendor.name);
-    result = await deps.read(bytes, receipt.build.locale, { currency: receipt.build.currency, readOn: receipt.createdAt.toISOString().slice(0, 10), knownVendors });
+    result = await deps.read(bytes, receipt.build.locale, { currency: receipt.build.currency, readOn: receipt.createdAt.toISOString().slice(0, 10), knownVendors, contentType: receipt.contentType });
   } catch (error) {
     console.error(`[worker] reading receipt ${receipt.id} failed:`, error);
     if (error instanceof UnreadableDocumentError || finalAttempt) {

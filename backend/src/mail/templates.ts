@@ -214,3 +214,18 @@ export function reviewDigestMail(input: {
     settingsLink: input.settingsLink,
   });
 }
+
+/** To a member whose mailed receipt was not taken: what was wrong with it and what to send instead. */
+export function mailedReceiptRefusedMail(input: { to: string; buildName: string; subject: string; reasons: string[]; link: string }): MailMessage {
+  const lines = [
+    `Your message "${input.subject}" to the inbox of "${input.buildName}" did not become a receipt, and nothing of it was kept as one:`,
+    ...input.reasons,
+    'Send the receipt again as a photo or PDF attachment, or upload it in the app.',
+  ];
+  return {
+    to: input.to,
+    subject: `Not added to "${input.buildName}": ${input.subject}`,
+    text: `${lines.join('\n\n')}\n\nOpen the receipts: ${input.link}\n`,
+    html: html(lines, { href: input.link, label: 'Open the receipts' }),
+  };
+}

@@ -4,6 +4,7 @@ import type { DocumentReading, PageImage, ReadingContext } from '../jobs/read-re
 import { importEsm } from './reading/esm-import';
 import { normaliseImage } from './reading/normalise';
 import { MAX_RENDER_PIXELS, readPdfPages, TEXT_SCALE } from './reading/pdf-text';
+import { MAIL_CONTENT_TYPE } from './reading/mail-text';
 import { readDocumentWithImages } from './reading/read-document';
 import { sniffReceiptType, UnreadableDocumentError } from './reading/sniff';
 
@@ -44,7 +45,15 @@ async function pdfPageImages(bytes: Buffer): Promise<PageImage[]> {
 }
 
 export async function readWithPageImages(bytes: Buffer, locale: string, context?: ReadingContext): Promise<DocumentReading> {
-  const { reading, images } = await readDocumentWithImages(bytes, { locale, currency: context?.currency, readOn: context?.readOn, knownVendors: context?.knownVendors });
+  const { reading, images } = await readDocumentWithImages(bytes, {
+    locale,
+    currency: context?.currency,
+    readOn: context?.readOn,
+    knownVendors: context?.knownVendors,
+    contentType: context?.contentType,
+  });
+  // A mailed message has no page image: the check screen offers the message itself.
+  if (context?.contentType === MAIL_CONTENT_TYPE) return { reading, pageImages: [] };
   const type = await sniffReceiptType(bytes);
   // A photo's page image is the one the OCR read, so the word boxes fall on it.
   const pageImages = type === 'pdf' ? await pdfPageImages(bytes) : images.filter((image): image is PageImage => image !== null);

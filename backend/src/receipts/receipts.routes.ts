@@ -118,11 +118,11 @@ export function receiptsRoutes(deps: { store: ObjectStore; queue: JobQueue }): R
     const receipt = await receiptOf(res, req.params.receiptId);
     const object = await deps.store.stream(receipt.documentKey);
     res.setHeader('Content-Type', receipt.contentType);
-    // A PDF can carry script and forms: it is downloaded, never opened as a page of ours, and sandboxed if a browser
-    // shows it anyway. Photos stay inline for the check screen.
-    const pdf = receipt.contentType === 'application/pdf';
-    res.setHeader('Content-Disposition', `${pdf ? 'attachment' : 'inline'}; filename="${receipt.originalFilename.replace(/[^\w.-]+/g, '_')}"`);
-    if (pdf) res.setHeader('Content-Security-Policy', 'sandbox');
+    // A PDF can carry script and forms, a mailed message HTML: both are downloaded, never opened as a page of ours, and
+    // sandboxed if a browser shows them anyway. Photos stay inline for the check screen.
+    const download = !receipt.contentType.startsWith('image/');
+    res.setHeader('Content-Disposition', `${download ? 'attachment' : 'inline'}; filename="${receipt.originalFilename.replace(/[^\w.-]+/g, '_')}"`);
+    if (download) res.setHeader('Content-Security-Policy', 'sandbox');
     res.setHeader('Cache-Control', 'private, max-age=3600');
     // pipeline, not pipe: a store failure or a client gone mid-way destroys both ends instead of leaving one open.
     await pipeline(object.body, res);

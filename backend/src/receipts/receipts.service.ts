@@ -20,7 +20,8 @@ import type { SniffedDocument } from './upload-check';
 export interface UploadedDocument {
   originalFilename: string;
   bytes: Buffer;
-  sniffed: SniffedDocument;
+  /** What the upload check found (a mailed message's body is stored as the message itself, message/rfc822). */
+  sniffed: Pick<SniffedDocument, 'mime' | 'ext' | 'pages'>;
 }
 
 /** Stores one document under the build's key scheme and makes its receipt row (flushed by the caller), queued for reading. */

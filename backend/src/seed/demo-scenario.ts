@@ -86,3 +86,11 @@ export const DEMO_PARTS: DemoPart[] = [
   ['Interior', 'Boost gauge, 52 mm', 'BG-52', '1', 'each', '79.00', 'on_hand', 'Shelf C1'],
   ['Interior', 'Spare gauge pod (left over)', 'GP-52', '1', 'each', '38.00', 'on_hand', 'Shelf C1'],
 ];
+
+/** What the demo build's inbox turned away: a shop's mailing that no one on the build sent (invented shop and address). */
+export const DEMO_REFUSED_MAIL = {
+  fromAddress: 'offers@sprocket-and-gasket.example',
+  subject: 'Gasket week: 20 % off head gasket sets',
+  reason: 'not_a_member',
+  detail: 'offers@sprocket-and-gasket.example is not the owner or crew of this build. Forward the receipt from the address you sign in with.',
+} as const;

@@ -17,7 +17,9 @@ import { Receipt } from '../receipts/receipt.entity';
 import type { FakeS3 } from '../storage/fake-s3-server';
 import type { ObjectStore } from '../storage/object-store';
 import { VehicleSystem } from '../systems/vehicle-system.entity';
-import { DEMO_BUDGETS, DEMO_BUILD, DEMO_CONTINGENCY, DEMO_PARTS, DEMO_PASSWORD, DEMO_PEOPLE } from './demo-scenario';
+import { DEMO_BUDGETS, DEMO_BUILD, DEMO_CONTINGENCY, DEMO_PARTS, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_REFUSED_MAIL } from './demo-scenario';
+import { inboxAddress } from '../inbox/inbox-token';
+import { MailRefusal } from '../inbox/mail-refusal.entity';
 
 export interface SeedOptions {
   /** npm start seeds only a database without accounts; a shared test database is seeded beside other accounts. */
@@ -69,6 +71,9 @@ async function seedBuild(em: EntityManager): Promise<string> {
         askingPrice: description.includes('left over') ? new Decimal('30.00') : null,
       });
     }
+    // The build has its inbox address from the start; one mailing it turned away shows the owner that list.
+    const domain = loadConfig().inbox.domain;
+    tx.create(MailRefusal, { build, ...DEMO_REFUSED_MAIL, recipient: inboxAddress(build.inboxToken, domain), receivedAt: new Date(Date.now() - 3 * 24 * 60 * 60 * 1000) });
     await tx.flush();
     return build.id;
   });

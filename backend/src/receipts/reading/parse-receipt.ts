@@ -437,7 +437,9 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
   labelAmountsBelow(lines);
 
   // The item region ends at the first summary line; everything after the total is payment and small print.
-  const firstSummary = lines.findIndex((analysed) => (analysed.summary !== null && analysed.summary !== 'discount') || analysed.notASum);
+  // A column header that names a "Total" column ("Item  Qty  Price  Total", as order mails print) reads like "total
+  // items", which is no sum: it opens the items, it does not end them.
+  const firstSummary = lines.findIndex((analysed) => ((analysed.summary !== null && analysed.summary !== 'discount') || analysed.notASum) && !isColumnHeader(analysed));
   const itemEnd = firstSummary === -1 ? lines.length : firstSummary;
   const headerIndex = lines.findIndex((analysed, index) => index < itemEnd && isColumnHeader(analysed));
   const hasPartColumn = headerIndex !== -1 && hasWord(lines[headerIndex].keywords, 'PART', 'ITEM', 'SKU', 'PARTNO');

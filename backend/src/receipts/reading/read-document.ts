@@ -1,9 +1,10 @@
-// The one entry point of receipt reading: bytes in (photo or PDF), a ReadReceipt out.
+// The one entry point of receipt reading: bytes in (photo, PDF or a mailed message's body), a ReadReceipt out.
 import type { ReadReceipt } from '../../../../shared/api/receipt-reading';
 import { NormalisedImage, normaliseImage } from './normalise';
 import { minorUnits } from '../../../../shared/money';
 import { OcrPool, modelFor } from './ocr';
 import { parseReceipt } from './parse-receipt';
+import { MAIL_CONTENT_TYPE, mailTextPage } from './mail-text';
 import { readPdfPages } from './pdf-text';
 import { lookAgainAtDate } from './date-look';
 import { lookAgainAtHeading } from './heading-look';
@@ -21,6 +22,8 @@ export interface ReadOptions {
   readOn?: string;
   /** Shops the build already knows. */
   knownVendors?: string[];
+  /** The stored document's type when it is known; only a mailed message (message/rfc822) is read by it, not sniffed. */
+  contentType?: string;
 }
 
 export const DEFAULT_LOCALE = 'en-US';
@@ -77,6 +80,7 @@ export async function readDocumentWithImages(bytes: Buffer, options: ReadOptions
     readOn: options.readOn,
     knownVendors: options.knownVendors,
   };
+  if (options.contentType === MAIL_CONTENT_TYPE) return { reading: parseReceipt([await mailTextPage(bytes)], parseOptions), images: [] };
   const type = await sniffReceiptType(bytes);
   const pages: TextPage[] = [];
   const images: Array<NormalisedImage | null> = [];
