@@ -1,4 +1,4 @@
-// The CSV writer against RFC 4180 and read back by csv-parse, an independent parser.
+// The CSV writer (csv-stringify) against RFC 4180 and read back by csv-parse.
 import { parse } from 'csv-parse/sync';
 import fc from 'fast-check';
 import { text } from 'node:stream/consumers';
