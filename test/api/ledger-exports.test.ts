@@ -86,7 +86,7 @@ describe('ledger worked examples (by hand, to the cent)', () => {
     const current = (await client.get(`/api/builds/${build.id}/parts`)).body.parts[0];
     await client.patch(`/api/builds/${build.id}/parts/${part.id}`, { status: 'returned', version: current.version });
     let ledger = (await client.get(`/api/builds/${build.id}/ledger`)).body;
-    expect(figures(ledger, 'Cooling')).toMatchObject({ netCost: '25.00', returnsAwaitingRefund: '25.00', estimate: '20.00', remainingEstimate: '0.00' });
+    expect(figures(ledger, 'Cooling')).toMatchObject({ netCost: '25.00', returnsAwaitingRefund: '25.00', planned: '20.00', remainingEstimate: '0.00' });
     await filedReceipt(client, build.id, { purchaseDate: '2026-10-05', total: '-25.00' }, [{ kind: 'return', description: 'Thermostat back', amount: '-25.00', returnOfLineId: bought.lines[0].id }]);
     ledger = (await client.get(`/api/builds/${build.id}/ledger`)).body;
     expect(figures(ledger, 'Cooling')).toMatchObject({ spent: '0.00', netCost: '0.00', returnsAwaitingRefund: '0.00' });

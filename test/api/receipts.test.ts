@@ -198,8 +198,9 @@ describe('checking and filing', () => {
     // -> floors 599 + 299 + 99 = 997, two cents left to .9 (fee) and .7 (coolant) -> 5.99, 0.00 (core), 3.00, 1.00.
     expect(filed.body.lines.map((l: { allocatedShipping: string }) => l.allocatedShipping)).toEqual(['5.99', '0.00', '3.00', '1.00']);
 
+    // The deposit as paid, the way the ledger counts it: 22.00 + its tax 1.42 = 23.42.
     const cores = (await client.get(`/api/builds/${build.id}/cores`)).body.cores;
-    expect(cores).toEqual([expect.objectContaining({ state: 'owed', amount: '22.00', dueDate: '2026-12-14', vendorName: 'Quayside Parts Counter' })]);
+    expect(cores).toEqual([expect.objectContaining({ state: 'owed', amount: '23.42', dueDate: '2026-12-14', vendorName: 'Quayside Parts Counter' })]);
     const audit = await t.orm.em.fork().find(AuditEvent, { receiptId: receipt.id, action: 'file' });
     expect(audit).toHaveLength(1);
   });

@@ -1,10 +1,13 @@
 // A bar chart drawn by chart.js on a canvas: money arrives as decimal strings and is shown through the money formatter;
-// it becomes a JS number only for the bars' lengths on screen, never for a figure a person reads.
+// it becomes a JS number only for the bars' lengths on screen, never for a figure a person reads. A limit (a budget) is
+// a marker across its category (chartjs-plugin-annotation), and each bar can carry its figure (chartjs-plugin-datalabels).
 import { ChangeDetectionStrategy, Component, DestroyRef, ElementRef, afterRenderEffect, inject, input, output, viewChild } from '@angular/core';
-import { BarController, BarElement, CategoryScale, Chart, Legend, LinearScale, Tooltip, type ChartConfiguration } from 'chart.js';
+import { BarController, BarElement, CategoryScale, Chart, Legend, LinearScale, Tooltip, type ChartConfiguration, type LegendItem } from 'chart.js';
+import annotationPlugin, { type AnnotationOptions } from 'chartjs-plugin-annotation';
+import ChartDataLabels from 'chartjs-plugin-datalabels';
 
 // Only what a bar chart needs, so the lazy chunk stays small.
-Chart.register(BarController, BarElement, CategoryScale, LinearScale, Tooltip, Legend);
+Chart.register(BarController, BarElement, CategoryScale, LinearScale, Tooltip, Legend, annotationPlugin);
 Chart.defaults.font.family = "'Work Sans', system-ui, sans-serif";
 Chart.defaults.color = '#4b4641';
 
@@ -13,8 +16,13 @@ export interface ChartSeries {
   /** Decimal strings, one per category. */
   values: readonly string[];
   color: string;
-  /** Drawn as an outline only (a budget is a limit, not money spent). */
-  outline?: boolean;
+}
+
+/** A limit per category (a system's budget), drawn as a line across the category's bars; a zero draws nothing. */
+export interface ChartMarker {
+  label: string;
+  values: readonly string[];
+  color: string;
 }
 
 export interface BarClick {
@@ -25,24 +33,15 @@ export interface BarClick {
 @Component({
   selector: 'th-bar-chart',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  template: `
-    <div class="frame" [style.height.px]="height()">
-      <canvas #canvas role="img" [attr.aria-label]="summary()"></canvas>
-    </div>
-  `,
-  styles: `
-    :host {
-      display: block;
-    }
-    .frame {
-      position: relative;
-      width: 100%;
-    }
-  `,
+  templateUrl: './bar-chart.html',
+  styleUrl: './bar-chart.css',
 })
 export class BarChart {
   readonly categories = input.required<readonly string[]>();
   readonly series = input.required<readonly ChartSeries[]>();
+  readonly marker = input<ChartMarker | null>(null);
+  /** Each bar's figure printed at its end (zeros left blank). */
+  readonly valuesOnBars = input(false);
   /** Bars running left to right, categories down the side (systems); otherwise upright (periods). */
   readonly horizontal = input(false);
   readonly height = input(280);
@@ -70,19 +69,22 @@ export class BarChart {
     const format = this.format();
     const axisFormat = this.axisFormat();
     const horizontal = this.horizontal();
+    const marker = this.marker();
+    const valuesOnBars = this.valuesOnBars();
     const datasets = series.map((one) => ({
       label: one.label,
       data: one.values.map((value) => Number(value)),
-      backgroundColor: one.outline ? 'transparent' : one.color,
-      borderColor: one.color,
-      borderWidth: one.outline ? 2 : 0,
+      backgroundColor: one.color,
+      borderWidth: 0,
       borderRadius: 3,
       maxBarThickness: 28,
     }));
+    const annotations = markerLines(marker, horizontal);
     if (this.chart) {
       this.chart.data.labels = categories;
       this.chart.data.datasets = datasets;
       this.chart.options.indexAxis = horizontal ? 'y' : 'x';
+      this.chart.options.plugins!.annotation = { annotations };
       this.chart.update();
       return;
     }
@@ -93,13 +95,41 @@ export class BarChart {
     const config: ChartConfiguration<'bar'> = {
       type: 'bar',
       data: { labels: categories, datasets },
+      plugins: valuesOnBars ? [ChartDataLabels] : [],
       options: {
         indexAxis: horizontal ? 'y' : 'x',
         responsive: true,
         maintainAspectRatio: false,
         animation: false,
+        // Room at the bars' far end for their figures.
+        layout: { padding: valuesOnBars ? (horizontal ? { right: 84 } : { top: 24 }) : 0 },
         plugins: {
-          legend: { position: 'top', align: 'start', labels: { boxWidth: 14, color: '#1d1b19' } },
+          legend: {
+            position: 'top',
+            align: 'start',
+            // A marker's entry has no dataset to hide.
+            onClick: (event, item, legend) => {
+              if (item.datasetIndex !== undefined) Chart.defaults.plugins.legend.onClick.call(legend, event, item, legend);
+            },
+            labels: {
+              boxWidth: 14,
+              color: '#1d1b19',
+              // The marker has no dataset: its legend entry is added here, drawn as the line it is.
+              generateLabels: (chart) => [...Chart.defaults.plugins.legend.labels.generateLabels(chart), ...markerLegend(this.marker())],
+            },
+          },
+          annotation: { annotations },
+          datalabels: {
+            display: (context) => valuesOnBars && Number(context.dataset.data[context.dataIndex]) !== 0,
+            anchor: 'end',
+            align: 'end',
+            offset: 2,
+            clamp: true,
+            color: '#1d1b19',
+            font: { size: 12, family: "'Work Sans', system-ui, sans-serif" },
+            // The formatted decimal string, not the float the bar was drawn from.
+            formatter: (_value, context) => format(this.series()[context.datasetIndex]?.values[context.dataIndex] ?? '0'),
+          },
           tooltip: {
             callbacks: {
               // The formatted decimal string, not the float the bar was drawn from.
@@ -127,4 +157,23 @@ export class BarChart {
     };
     this.chart = new Chart(context, config);
   }
+}
+
+/** One line per category with a limit: across the category's band, at the limit's value. */
+function markerLines(marker: ChartMarker | null, horizontal: boolean): Record<string, AnnotationOptions> {
+  const lines: Record<string, AnnotationOptions> = {};
+  marker?.values.forEach((value, index) => {
+    const at = Number(value);
+    if (at === 0) return;
+    const across = { min: index - 0.42, max: index + 0.42 };
+    lines[`marker${index}`] = horizontal
+      ? { type: 'line', xMin: at, xMax: at, yMin: across.min, yMax: across.max, borderColor: marker.color, borderWidth: 3 }
+      : { type: 'line', yMin: at, yMax: at, xMin: across.min, xMax: across.max, borderColor: marker.color, borderWidth: 3 };
+  });
+  return lines;
+}
+
+function markerLegend(marker: ChartMarker | null): LegendItem[] {
+  if (!marker) return [];
+  return [{ text: marker.label, fillStyle: marker.color, strokeStyle: marker.color, lineWidth: 0, fontColor: '#1d1b19', hidden: false, datasetIndex: undefined }];
 }

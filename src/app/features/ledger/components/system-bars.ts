@@ -7,7 +7,7 @@ import { toDecimal } from '../../../../../shared/money';
 import { moneyText, MoneyPipe, wholeMoneyText } from '../../../ui/money';
 import { FIGURE_LABELS, type LinesRequest } from '../models/ledger-words';
 import { FIGURE_WORDS, compareWithBudget, type BudgetComparison } from '../../../../../shared/build-figures';
-import { BarChart, type BarClick, type ChartSeries } from './bar-chart';
+import { BarChart, type BarClick, type ChartMarker, type ChartSeries } from './bar-chart';
 import { LEDGER_COLORS } from './ledger-colors';
 
 const FIGURES_SHOWN = ['budget', 'spent', 'netCost', 'forecast', 'coreDepositsOutstanding', 'returnsAwaitingRefund'] as const;
@@ -26,11 +26,13 @@ const LINKED: LedgerLineFigure[] = ['spent', 'netCost', 'coreDepositsOutstanding
     <th-bar-chart
       [categories]="names()"
       [series]="series()"
+      [marker]="budgetMarker()"
+      [valuesOnBars]="true"
       [horizontal]="true"
       [height]="chartHeight()"
       [format]="format()"
       [axisFormat]="axisFormat()"
-      [summary]="'Bar chart of budget, net cost and forecast for each system; the table below lists the same figures.'"
+      [summary]="'Bar chart of the net cost and the forecast of each system, with its budget marked as a line; the table below lists the same figures.'"
       (barClick)="clicked($event)"
     />
     <p class="hint">Select a net cost or forecast bar, or a figure in the table, to see the receipt lines behind it.</p>
@@ -170,11 +172,16 @@ export class SystemBars {
   protected readonly series = computed<ChartSeries[]>(() => {
     const systems = this.shown();
     return [
-      { label: 'Budget', values: systems.map((s) => s.budget), color: LEDGER_COLORS.budget, outline: true },
-      { label: 'Net cost', values: systems.map((s) => s.netCost), color: LEDGER_COLORS.netCost },
-      { label: 'Forecast', values: systems.map((s) => s.forecast), color: LEDGER_COLORS.forecast },
+      { label: FIGURE_WORDS.netCost.label, values: systems.map((s) => s.netCost), color: LEDGER_COLORS.netCost },
+      { label: FIGURE_WORDS.forecast.label, values: systems.map((s) => s.forecast), color: LEDGER_COLORS.forecast },
     ];
   });
+  /** One budget line per system, across its two bars. */
+  protected readonly budgetMarker = computed<ChartMarker>(() => ({
+    label: FIGURE_WORDS.budget.label,
+    values: this.shown().map((s) => s.budget),
+    color: LEDGER_COLORS.budget,
+  }));
   protected readonly format = computed(() => {
     const currency = this.ledger().currency;
     const locale = this.locale();
@@ -201,10 +208,10 @@ export class SystemBars {
     this.open.emit({ figure, systemId: system.systemId, title: `${FIGURE_LABELS[figure]} of ${system.name}` });
   }
 
-  /** A budget bar has no lines behind it; net cost and forecast bars open the net cost's lines (what is bought so far). */
+  /** Net cost and forecast bars open the net cost's lines (what is bought so far). */
   protected clicked(click: BarClick): void {
     const system = this.shown()[click.index];
-    if (!system || click.seriesIndex === 0) return;
+    if (!system) return;
     this.openFigure(system, 'netCost');
   }
 }

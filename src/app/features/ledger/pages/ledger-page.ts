@@ -91,6 +91,7 @@ function periodWords(period: string, short: boolean): string {
               <th-bar-chart
                 [categories]="periodLabels()"
                 [series]="spendSeries()"
+                [valuesOnBars]="by() === 'month'"
                 [format]="format()"
                 [axisFormat]="axisFormat()"
                 [summary]="'Bar chart of the net cost ' + (by() === 'month' ? 'per month' : 'per week') + '; the table below lists it with the money spent.'"
@@ -137,6 +138,7 @@ function periodWords(period: string, short: boolean): string {
               <th-bar-chart
                 [categories]="vendorNames()"
                 [series]="vendorSeries()"
+                [valuesOnBars]="true"
                 [horizontal]="true"
                 [height]="64 + vendors.vendors.length * 40"
                 [format]="format()"
