@@ -5,6 +5,9 @@ const nodeTransform = {
 };
 
 module.exports = {
+  // A test's time limit is read from the top level, not from a project: each file starts an app or a browser, and on a
+  // loaded 2-core machine that passes jest's default 5 s.
+  testTimeout: 30_000,
   projects: [
     {
       displayName: 'client',
@@ -28,8 +31,6 @@ module.exports = {
     {
       displayName: 'api',
       testEnvironment: 'node',
-      // Each file starts an app on the real database in beforeAll: on a loaded 2-core machine that passed 5 s.
-      testTimeout: 30_000,
       roots: ['<rootDir>/test/api'],
       testMatch: ['<rootDir>/test/api/**/*.test.ts'],
       transform: nodeTransform,

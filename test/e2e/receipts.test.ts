@@ -117,7 +117,12 @@ it('reads an uploaded slip, checks and files it, and tracks its core deposit', a
   // The core charge became a deposit owed; handing the old part in is one click.
   await page.getByRole('link', { name: 'Cores and returns' }).first().click();
   await page.getByText('Old part still here').waitFor();
-  await page.getByText('$40.00').waitFor();
+  // The deposit as paid: 40.00 with its share of the 19.31 tax, as the ledger counts it (the API's figure).
+  const [core] = (await owner.client.get(`/api/builds/${created.body.id}/cores`)).body.cores as { amount: string }[];
+  const ledger = (await owner.client.get(`/api/builds/${created.body.id}/ledger`)).body;
+  expect(core.amount).toBe(ledger.total.coreDepositsOutstanding);
+  expect(Number(core.amount)).toBeGreaterThan(40);
+  await page.getByText(`$${core.amount}`).waitFor();
   // Filed with the default 30 days from the purchase on 2026-04-20 (common practice, not a rule), so long past due.
   await page.getByText('Overdue: was due May 20, 2026').waitFor();
   await screenshot(page, 'cores');
