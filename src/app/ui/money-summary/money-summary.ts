@@ -16,8 +16,10 @@ export interface SummaryFigure {
   text: string;
   /** What it counts, or for a comparison, both sides of it. */
   hint: string;
-  /** Set for the comparisons with the budget. */
+  /** Set for the comparisons with the budget, whose words stand small around the amount: "forecast", "under budget". */
   comparison?: BudgetComparison;
+  before?: string;
+  after?: string;
   /** A sum of receipt lines that can list them (and is not zero). */
   openable: boolean;
 }
@@ -64,7 +66,16 @@ export class MoneySummary {
         const compared = name === 'variance' ? total.forecast : total.planned;
         const comparison = compareWithBudget(basis, compared, total.budget);
         figure.comparison = comparison;
-        figure.text = comparisonWords(comparison, money(comparison.amount));
+        const amount = money(comparison.amount);
+        const words = comparisonWords(comparison, amount);
+        const at = words.indexOf(amount);
+        if (at >= 0) {
+          figure.before = words.slice(0, at).trim();
+          figure.text = amount;
+          figure.after = words.slice(at + amount.length).trim();
+        } else {
+          figure.text = words;
+        }
         figure.hint = comparison.noBudget
           ? 'Set the systems’ budgets to compare.'
           : `${FIGURE_WORDS[name === 'variance' ? 'forecast' : 'planned'].label} ${money(compared)} against a budget of ${money(total.budget)}.`;
