@@ -2,7 +2,7 @@
 import { Injectable, computed, inject, signal } from '@angular/core';
 import { firstValueFrom } from 'rxjs';
 import type { UserDto } from '../../../../shared/api/auth';
-import { AuthApi } from '../../features/auth/services/auth-api';
+import { AuthApi } from './auth-api';
 import { forgetCachedAnswers } from '../offline/cached-answers';
 
 @Injectable({ providedIn: 'root' })

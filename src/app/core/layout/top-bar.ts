@@ -5,7 +5,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatMenuModule } from '@angular/material/menu';
 import { MatToolbarModule } from '@angular/material/toolbar';
 import { Router, RouterLink } from '@angular/router';
-import { AuthApi } from '../../features/auth/services/auth-api';
+import { AuthApi } from '../auth/auth-api';
 import { LogoMark } from '../../ui/logo-mark';
 import { Session } from '../auth/session';
 

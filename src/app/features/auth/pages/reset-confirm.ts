@@ -9,7 +9,7 @@ import { Router, RouterLink } from '@angular/router';
 import { resetConfirmRequest } from '../../../../../shared/api/auth';
 import { applyFieldErrors, errorOf, validateWith } from '../../../core/forms/form-errors';
 import { toApiError } from '../../../core/http/api-error';
-import { AuthApi } from '../services/auth-api';
+import { AuthApi } from '../../../core/auth/auth-api';
 
 @Component({
   selector: 'th-reset-confirm',

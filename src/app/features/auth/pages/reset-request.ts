@@ -9,7 +9,7 @@ import { RouterLink } from '@angular/router';
 import { resetRequest } from '../../../../../shared/api/auth';
 import { applyFieldErrors, errorOf, validateWith } from '../../../core/forms/form-errors';
 import { toApiError } from '../../../core/http/api-error';
-import { AuthApi } from '../services/auth-api';
+import { AuthApi } from '../../../core/auth/auth-api';
 
 @Component({
   selector: 'th-reset-request',

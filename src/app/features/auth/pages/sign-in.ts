@@ -11,7 +11,7 @@ import { safeReturnTo } from '../../../core/auth/return-to';
 import { Session } from '../../../core/auth/session';
 import { applyFieldErrors, errorOf, validateWith } from '../../../core/forms/form-errors';
 import { toApiError } from '../../../core/http/api-error';
-import { AuthApi } from '../services/auth-api';
+import { AuthApi } from '../../../core/auth/auth-api';
 
 const notices: Record<string, string> = {
   'password-set': 'Your new password is set. Sign in with it.',

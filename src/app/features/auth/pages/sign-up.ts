@@ -13,7 +13,7 @@ import { Session } from '../../../core/auth/session';
 import { applyFieldErrors, errorOf, validateWith } from '../../../core/forms/form-errors';
 import { toApiError } from '../../../core/http/api-error';
 import { BuildsApi } from '../../builds/services/builds-api';
-import { AuthApi, SignedInResponse } from '../services/auth-api';
+import { AuthApi, SignedInResponse } from '../../../core/auth/auth-api';
 
 @Component({
   selector: 'th-sign-up',

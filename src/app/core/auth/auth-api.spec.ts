@@ -2,8 +2,8 @@
 import { TestBed } from '@angular/core/testing';
 import { HttpTestingController } from '@angular/common/http/testing';
 import { MatSnackBar } from '@angular/material/snack-bar';
-import { apiTestProviders } from '../../../../testing/api-test-providers';
-import { ApiError } from '../../../core/http/api-error';
+import { apiTestProviders } from '../../../testing/api-test-providers';
+import { ApiError } from '../http/api-error';
 import { AuthApi } from './auth-api';
 
 describe('AuthApi', () => {

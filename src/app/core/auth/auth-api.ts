@@ -9,7 +9,7 @@ import type {
   SignInRequest,
   SignUpRequest,
   UserDto,
-} from '../../../../../shared/api/auth';
+} from '../../../../shared/api/auth';
 
 export interface SignedInResponse {
   user: UserDto;
