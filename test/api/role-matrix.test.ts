@@ -267,7 +267,7 @@ const ROUTES: RouteCase[] = [
   {
     name: 'PUT /api/builds/:buildId/alert-preferences',
     call: (f, a) =>
-      f.clients[a].send('put', `/api/builds/${f.buildId}/alert-preferences`, { budget: true, coreDue: false, returnWindow: true, duplicate: false, reviewDigest: true }),
+      f.clients[a].send('put', `/api/builds/${f.buildId}/alert-preferences`, { budget: true, coreDue: false, returnWindow: true, warrantyEnding: true, duplicate: false, reviewDigest: true }),
     expected: readable,
   },
   // The inbox address is for those who send receipts (owner and crew); a reviewer adds none. Refused mail is the owner's.
