@@ -82,6 +82,7 @@ export function testLine(id: string, position: number, description: string, amou
     returnOfLineId: null,
     box: { page: 0, x: 10, y: 200, w: 300, h: 20 },
     confidence: {},
+    warrantySuggestion: null,
     version: 1,
     ...overrides,
   };

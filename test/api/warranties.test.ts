@@ -168,3 +168,48 @@ describe('a part\'s warranty', () => {
     expect(warrantyOf(after)).toEqual({ warranty: 6, warrantyStart: '2026-08-31', warrantyEnds: '2027-02-28', warrantyReceiptId: null });
   });
 });
+
+describe('a warranty suggested by a receipt line', () => {
+  it('shows on the lines being checked, and filing gives it to a part that has none, from the receipt\'s date', async () => {
+    const { client, buildId, systemId, part: starter, url } = await buildWithPart('warranty-suggested');
+    const add = async (description: string) =>
+      (await client.post(`/api/builds/${buildId}/parts`, { systemId, description, quantity: '1', unit: 'each', estimatedUnitCost: '10.00' })).body as PartSeen;
+    const fuelPump = await add('Fuel pump');
+    const battery = await add('Battery');
+    const hose = await add('Top hose');
+    // The fuel pump already has a warranty a person set: it stands.
+    const kept = await client.patch(`/api/builds/${buildId}/parts/${fuelPump.id}`, { warranty: 24, warrantyStart: '2026-01-05', version: fuelPump.version });
+    expect(kept.status).toBe(200);
+
+    const checking = await filedReceipt(t, client, buildId, { vendorName: 'Ashgrove Motor Spares', purchaseDate: '2026-03-14', total: '300.00' }, [
+      { kind: 'part', description: 'STARTER MOTOR LIFETIME WARRANTY', amount: '120.00', partId: starter.id, systemId },
+      { kind: 'part', description: 'FUEL PUMP 12 MONTH WARRANTY', amount: '90.00', partId: fuelPump.id, systemId },
+      { kind: 'part', description: 'BATTERY 2 YR WARRANTY', amount: '80.00', partId: battery.id, systemId },
+      { kind: 'part', description: 'TOP HOSE', amount: '8.00', partId: hose.id, systemId },
+      { kind: 'fee', description: 'EXTENDED WARRANTY 12 MO', amount: '2.00' },
+    ], { file: false });
+    const suggestions = (await client.get(`/api/builds/${buildId}/receipts/${checking.id}`)).body.lines.map((line: { description: string; warrantySuggestion: unknown }) => [line.description, line.warrantySuggestion]);
+    expect(suggestions).toEqual([
+      ['STARTER MOTOR LIFETIME WARRANTY', 'lifetime'],
+      ['FUEL PUMP 12 MONTH WARRANTY', 12],
+      ['BATTERY 2 YR WARRANTY', 24],
+      ['TOP HOSE', null],
+      // A fee is not a part: nothing to put a warranty on.
+      ['EXTENDED WARRANTY 12 MO', null],
+    ]);
+    // Checking alone changes no part.
+    expect(warrantyOf(await listed(client, buildId, battery.id))).toEqual(NONE);
+
+    const version = (await client.get(`/api/builds/${buildId}/receipts/${checking.id}`)).body.version;
+    expect((await client.post(`/api/builds/${buildId}/receipts/${checking.id}/file`, { version })).status).toBe(200);
+    expect(warrantyOf(await listed(client, buildId, starter.id))).toEqual({ warranty: 'lifetime', warrantyStart: '2026-03-14', warrantyEnds: null, warrantyReceiptId: checking.id });
+    // 14 March 2026 + 24 months = 14 March 2028.
+    expect(warrantyOf(await listed(client, buildId, battery.id))).toEqual({ warranty: 24, warrantyStart: '2026-03-14', warrantyEnds: '2028-03-14', warrantyReceiptId: checking.id });
+    expect(warrantyOf(await listed(client, buildId, fuelPump.id))).toEqual({ warranty: 24, warrantyStart: '2026-01-05', warrantyEnds: '2028-01-05', warrantyReceiptId: null });
+    expect(warrantyOf(await listed(client, buildId, hose.id))).toEqual(NONE);
+
+    // The suggestion is the person's to change: the starter's becomes 36 months on the same receipt.
+    const changed = await client.patch(url, { warranty: 36, version: (await listed(client, buildId, starter.id)).version });
+    expect(warrantyOf(changed.body)).toEqual({ warranty: 36, warrantyStart: '2026-03-14', warrantyEnds: '2029-03-14', warrantyReceiptId: checking.id });
+  });
+});
