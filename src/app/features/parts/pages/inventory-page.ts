@@ -17,6 +17,7 @@ import { CurrentBuild } from '../../builds/services/current-build';
 import { SaleDialog, SaleDialogData } from '../components/sale-dialog';
 import { PartsApi } from '../services/parts-api';
 import { SystemsApi } from '../services/systems-api';
+import { WarrantyStatus } from '../components/warranty-status/warranty-status';
 
 /** "Kit 2" before "Kit 10": numbers inside names sort as numbers. */
 const byDescription = (a: PartDto, b: PartDto) => a.description.localeCompare(b.description, undefined, { numeric: true });
@@ -29,7 +30,7 @@ interface LocationGroup {
 
 @Component({
   selector: 'th-inventory-page',
-  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, RouterLink, EmptyState, MoneyPipe],
+  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, RouterLink, EmptyState, MoneyPipe, WarrantyStatus],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     @if (loading() || busy()) {
@@ -67,6 +68,9 @@ interface LocationGroup {
                         }
                         · <span class="tabular">{{ part.quantity }}</span> {{ unitLabel(part) }}
                       </span>
+                      @if (part.warranty !== null) {
+                        <th-warranty-status [part]="part" [buildId]="buildId()" [locale]="locale()" />
+                      }
                       @if (part.forSale) {
                         <span class="sale-tag"
                           ><mat-icon aria-hidden="true" inline>sell</mat-icon> For sale at

@@ -30,6 +30,7 @@ import { BudgetStanding, amountOf, budgetStanding, sumOf } from '../models/budge
 import { PartsApi } from '../services/parts-api';
 import { SystemsApi } from '../services/systems-api';
 import { SafetyNote } from '../../../ui/safety-note/safety-note';
+import { WarrantyStatus } from '../components/warranty-status/warranty-status';
 
 /** A system as the table groups by it, with its estimate summed from the parts on screen. */
 interface SystemGroup {
@@ -56,7 +57,7 @@ const SORTERS: Record<string, (a: PartDto, b: PartDto) => number> = {
 
 @Component({
   selector: 'th-parts-page',
-  imports: [SafetyNote, 
+  imports: [SafetyNote, WarrantyStatus,
     MatButtonModule,
     MatCheckboxModule,
     MatFormFieldModule,
@@ -194,6 +195,9 @@ const SORTERS: Record<string, (a: PartDto, b: PartDto) => number> = {
                     {{ row.part.partNumber ? row.part.partNumber + ' · ' : '' }}{{ row.part.quantity }} {{ row.part.unit }} ×
                     {{ row.part.estimatedUnitCost | money: currency() : locale() : 4 }}{{ row.part.storageLocation ? ' · ' + row.part.storageLocation : '' }}
                   </span>
+                }
+                @if (row.part.warranty !== null) {
+                  <th-warranty-status class="warranty-line" [part]="row.part" [buildId]="buildId()" [locale]="locale()" />
                 }
               </td>
             </ng-container>
@@ -364,6 +368,9 @@ const SORTERS: Record<string, (a: PartDto, b: PartDto) => number> = {
     }
     .part-number {
       overflow-wrap: anywhere;
+    }
+    .warranty-line {
+      display: block;
     }
     .sub-line {
       display: block;
