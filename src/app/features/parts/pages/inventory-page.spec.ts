@@ -1,5 +1,6 @@
 // Inventory: a part on the shelf shows its warranty in words with a link to its receipt.
 import { screen } from '@testing-library/angular/zoneless';
+import userEvent from '@testing-library/user-event';
 import { testPart, testSystem, testSystemsResponse } from '../../../../testing/build-fixtures';
 import { renderInBuild } from '../../../../testing/render-in-build';
 import { InventoryPage } from './inventory-page';
@@ -19,5 +20,9 @@ describe('InventoryPage', () => {
     expect(screen.getByRole('link', { name: 'Open the receipt for Brake caliper' }).getAttribute('href')).toBe('/builds/b-1/receipts/r-5');
     expect(screen.getByText('Warranty ended Jul 31, 2000')).toBeTruthy();
     expect(screen.queryByRole('link', { name: 'Open the receipt for Brake hose' })).toBeNull();
+
+    // Crew change it from here.
+    await userEvent.setup().click(screen.getByRole('button', { name: 'Warranty of Brake hose' }));
+    expect(await screen.findByRole('heading', { name: 'Warranty of "Brake hose"' })).toBeTruthy();
   });
 });

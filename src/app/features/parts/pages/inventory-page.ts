@@ -18,6 +18,7 @@ import { SaleDialog, SaleDialogData } from '../components/sale-dialog';
 import { PartsApi } from '../services/parts-api';
 import { SystemsApi } from '../services/systems-api';
 import { WarrantyStatus } from '../components/warranty-status/warranty-status';
+import { openWarrantyDialog } from '../components/warranty-dialog/warranty-dialog';
 
 /** "Kit 2" before "Kit 10": numbers inside names sort as numbers. */
 const byDescription = (a: PartDto, b: PartDto) => a.description.localeCompare(b.description, undefined, { numeric: true });
@@ -80,6 +81,10 @@ interface LocationGroup {
                     </div>
                     @if (canEdit()) {
                       <div class="item-actions">
+                        <button mat-button type="button" (click)="openWarranty(part)" [disabled]="busy()" [attr.aria-label]="'Warranty of ' + part.description">
+                          <mat-icon aria-hidden="true">verified_user</mat-icon>
+                          Warranty
+                        </button>
                         @if (!part.forSale) {
                           <button mat-button type="button" (click)="offerForSale(part)" [disabled]="busy()" [attr.aria-label]="'Offer for sale: ' + part.description">
                             <mat-icon aria-hidden="true">sell</mat-icon>
@@ -268,6 +273,10 @@ export class InventoryPage {
         if (askingPrice === undefined) return;
         this.save(part, { forSale: true, askingPrice }, `${part.description} is offered for sale.`);
       });
+  }
+
+  protected openWarranty(part: PartDto): void {
+    openWarrantyDialog(this.dialog, this.buildId(), part).subscribe((saved) => saved && this.replace(saved));
   }
 
   protected takeOffSale(part: PartDto): void {

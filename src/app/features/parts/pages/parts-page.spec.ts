@@ -57,6 +57,8 @@ describe('PartsPage', () => {
     expect(screen.getByRole('link', { name: 'Open the receipt for Water pump' }).getAttribute('href')).toBe('/builds/b-1/receipts/r-3');
     // A part without a warranty says nothing about one.
     expect(document.querySelectorAll('th-warranty-status')).toHaveLength(1);
+    // A reviewer reads it and changes nothing.
+    expect(screen.queryByRole('button', { name: /^Warranty of/ })).toBeNull();
   });
 
   it('closes each system with a totals row: planned against budget, over budget in words with an icon', async () => {
