@@ -102,6 +102,10 @@ describe('a part\'s warranty', () => {
     expect(foreign.status).toBe(400);
     expect(foreign.body.error.fields).toEqual({ warrantyReceiptId: 'No such receipt on this build.' });
     expect(warrantyOf(await listed(client, buildId, part.id))).toEqual(warrantyOf(named.body));
+
+    // Unlinked from its receipt, the warranty keeps its start and end.
+    const unlinked = await client.patch(url, { warrantyReceiptId: null, version: named.body.version });
+    expect(warrantyOf(unlinked.body)).toEqual({ warranty: 1, warrantyStart: '2028-01-31', warrantyEnds: '2028-02-29', warrantyReceiptId: null });
   });
 
   it.each([

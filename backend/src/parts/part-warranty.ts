@@ -52,9 +52,12 @@ export async function changeWarranty(em: EntityManager, build: Build, part: Part
   let receipt = part.warrantyReceipt;
   if (warrantyReceiptId !== undefined) receipt = warrantyReceiptId === null ? null : await receiptOfBuild(em, build, warrantyReceiptId);
   else receipt ??= await latestReceiptOf(em, part);
-  // A start the person typed stands; a new receipt brings its own date; otherwise the start saved before.
-  let start = warrantyStart ?? null;
-  if (warrantyStart === undefined && warrantyReceiptId === undefined) start = part.warrantyStart;
+  // A start the person typed stands (null: the receipt's date); a newly named receipt brings its own date; otherwise
+  // the start saved before stays, also when the receipt is unlinked.
+  let start: string | null;
+  if (warrantyStart !== undefined) start = warrantyStart;
+  else if (warrantyReceiptId) start = null;
+  else start = part.warrantyStart;
   start ??= receipt?.purchaseDate ?? null;
   if (typeof warranty === 'number' && !start) {
     throw new ValidationFailed({ warrantyStart: 'Enter the day the warranty starts, or choose the receipt it rests on (one with a date).' });
