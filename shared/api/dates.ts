@@ -18,3 +18,19 @@ const optionalQueryDate = z.preprocess((value) => (value === '' ? undefined : va
 
 /** The `from`/`to` filters of lists and exports (query strings: an empty value means no filter). */
 export const dateRangeQuery = z.object({ from: optionalQueryDate, to: optionalQueryDate });
+
+/**
+ * `months` calendar months after a YYYY-MM-DD day, clamped to the last day of the month reached when that month is
+ * shorter (31 January + 1 month is 28 February, or 29 in a leap year), as date libraries define it.
+ */
+export function addMonths(isoDate: string, months: number): string {
+  const [year, month, day] = isoDate.split('-').map(Number);
+  const monthIndex = month - 1 + months;
+  const targetYear = year + Math.floor(monthIndex / 12);
+  const targetMonth = ((monthIndex % 12) + 12) % 12;
+  // Day 0 of the next month is the last day of this one.
+  const lastDay = new Date(Date.UTC(targetYear, targetMonth + 1, 0)).getUTCDate();
+  const date = new Date(Date.UTC(targetYear, targetMonth, Math.min(day, lastDay)));
+  date.setUTCFullYear(targetYear); // Date.UTC reads years 0-99 as 1900-1999.
+  return date.toISOString().slice(0, 10);
+}

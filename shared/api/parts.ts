@@ -3,6 +3,8 @@ import { z } from 'zod';
 import { PART_STATUSES, PartStatus } from '../enums';
 import { moneyString } from '../money';
 import { UNITS, Unit } from '../units';
+import { MAX_WARRANTY_MONTHS, type Warranty } from '../warranty';
+import { calendarDate } from './dates';
 
 const uuid = z.uuid({ error: 'Choose an existing item.' });
 const version = z.number({ error: 'Send the version you last saw.' }).int().min(1);
@@ -74,6 +76,18 @@ const partFields = {
 export const createPartRequest = z.object(partFields).strict();
 export type CreatePartRequest = z.input<typeof createPartRequest>;
 
+const warrantyLength = `Enter the warranty as whole months, from 1 to ${MAX_WARRANTY_MONTHS}, or "lifetime"; null removes it.`;
+/** Set on an existing part: null for the length removes the warranty with its start and receipt. */
+const warrantyFields = {
+  warranty: z
+    .union([z.literal('lifetime'), z.number({ error: warrantyLength }).int(warrantyLength).min(1, warrantyLength).max(MAX_WARRANTY_MONTHS, warrantyLength), z.null()], {
+      error: warrantyLength,
+    })
+    .optional(),
+  warrantyStart: z.union([calendarDate, z.null()], { error: 'Use a date like 2026-11-14, or null to start on the receipt\'s date.' }).optional(),
+  warrantyReceiptId: z.union([uuid, z.null()], { error: 'Choose a receipt of this build, or null for none.' }).optional(),
+};
+
 export const updatePartRequest = z
   .object({
     systemId: partFields.systemId.optional(),
@@ -88,6 +102,7 @@ export const updatePartRequest = z
     notes: optionalText(2000, 'Notes').optional(),
     forSale: z.boolean({ error: 'For sale is true or false.' }).optional(),
     askingPrice: z.union([moneyString({ maxDecimals: 4 }), z.null()]).optional(),
+    ...warrantyFields,
     version,
   })
   .strict();
@@ -123,6 +138,13 @@ export interface PartDto {
   notes: string;
   forSale: boolean;
   askingPrice: string | null;
+  /** Whole months, 'lifetime', or null for none. */
+  warranty: Warranty;
+  warrantyStart: string | null;
+  /** The last day under warranty (start + months, month ends clamped); null for lifetime or none. */
+  warrantyEnds: string | null;
+  /** The receipt the warranty rests on, to show at the counter. */
+  warrantyReceiptId: string | null;
   version: number;
   updatedAt: string;
 }

@@ -2,6 +2,7 @@
 import { z } from 'zod';
 import { CORE_STATES, CoreState, PartStatus, RECEIPT_LINE_KINDS, ReceiptLineKind, ReceiptState, ReviewState } from '../enums';
 import { moneyString } from '../money';
+import type { Warranty } from '../warranty';
 import { calendarDate } from './dates';
 import { createPartRequest } from './parts';
 
@@ -132,6 +133,8 @@ export interface ReceiptLineDto {
   returnOfLineId: string | null;
   box: BoxDto | null;
   confidence: Record<string, number>;
+  /** The warranty a purchase line's words name ("12 month warranty", "lifetime warranty"), or null. */
+  warrantySuggestion: Warranty;
   version: number;
 }
 

@@ -51,6 +51,10 @@ export function testPart(id: string, overrides: Partial<PartDto> = {}): PartDto 
     notes: '',
     forSale: false,
     askingPrice: null,
+    warranty: null,
+    warrantyStart: null,
+    warrantyEnds: null,
+    warrantyReceiptId: null,
     version: 1,
     updatedAt: '2026-03-02T10:00:00.000Z',
     ...overrides,
@@ -78,6 +82,7 @@ export function testLine(id: string, position: number, description: string, amou
     returnOfLineId: null,
     box: { page: 0, x: 10, y: 200, w: 300, h: 20 },
     confidence: {},
+    warrantySuggestion: null,
     version: 1,
     ...overrides,
   };

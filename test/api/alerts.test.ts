@@ -27,7 +27,7 @@ afterAll(async () => {
   await t.close();
 });
 
-const ALL_OFF = { budget: false, coreDue: false, returnWindow: false, duplicate: false, reviewDigest: false };
+const ALL_OFF = { budget: false, coreDue: false, returnWindow: false, warrantyEnding: false, duplicate: false, reviewDigest: false };
 
 function mailTo(email: string): CaughtMail[] {
   return t.mail.messages.filter((mail) => mail.to.includes(email.toLowerCase()));
@@ -65,9 +65,9 @@ describe('alert preferences', () => {
     const url = `/api/builds/${build.id}/alert-preferences`;
 
     // Defaults written in shared/api/alerts.ts: all on for the owner, money and deadlines for crew, the digest for reviewers.
-    expect((await owner.client.get(url)).body).toEqual({ budget: true, coreDue: true, returnWindow: true, duplicate: true, reviewDigest: true, chosen: false });
-    expect((await crew.client.get(url)).body).toEqual({ budget: true, coreDue: true, returnWindow: true, duplicate: false, reviewDigest: false, chosen: false });
-    expect((await reviewer.client.get(url)).body).toEqual({ budget: false, coreDue: false, returnWindow: false, duplicate: false, reviewDigest: true, chosen: false });
+    expect((await owner.client.get(url)).body).toEqual({ budget: true, coreDue: true, returnWindow: true, warrantyEnding: true, duplicate: true, reviewDigest: true, chosen: false });
+    expect((await crew.client.get(url)).body).toEqual({ budget: true, coreDue: true, returnWindow: true, warrantyEnding: true, duplicate: false, reviewDigest: false, chosen: false });
+    expect((await reviewer.client.get(url)).body).toEqual({ budget: false, coreDue: false, returnWindow: false, warrantyEnding: false, duplicate: false, reviewDigest: true, chosen: false });
 
     const saved = await put(reviewer.client, build.id, { ...ALL_OFF, budget: true });
     expect(saved.status).toBe(200);
@@ -118,7 +118,7 @@ describe('sending alerts', () => {
     const quietCrew = await join(owner.client, build.id, 'crew', 'budget-quiet');
     const reviewer = await join(owner.client, build.id, 'reviewer', 'budget-reviewer');
     await put(owner.client, build.id, { ...ALL_OFF, budget: true });
-    await put(quietCrew.client, build.id, { budget: false, coreDue: true, returnWindow: true, duplicate: false, reviewDigest: false });
+    await put(quietCrew.client, build.id, { budget: false, coreDue: true, returnWindow: true, warrantyEnding: true, duplicate: false, reviewDigest: false });
     const budgetMail = (email: string) => mailTo(email).filter((mail) => mail.subject.startsWith('Cooling'));
 
     // 899.90 of 1000.00 is 89.99 %: below the 90 % mark, nothing is sent.
@@ -255,6 +255,66 @@ describe('sending alerts', () => {
       'Return window closes Mar 18, 2031: 1 part from Kestrel Fuel Systems',
     ]);
     expect(later[1].text).toContain('Fuel level sender: $44.00');
+  });
+
+  it('mails a warranty ending within 30 days once per part, to owner and crew by default, even from two runs at once', async () => {
+    const { owner, build, systems } = await newBuild('warranty-owner');
+    const crew = await join(owner.client, build.id, 'crew', 'warranty-crew');
+    const quietCrew = await join(owner.client, build.id, 'crew', 'warranty-quiet');
+    const reviewer = await join(owner.client, build.id, 'reviewer', 'warranty-reviewer');
+    await put(quietCrew.client, build.id, { ...ALL_OFF, budget: true });
+    const cooling = systems.find((system) => system.name === 'Cooling')!;
+    const part = async (description: string) =>
+      (await owner.client.post(`/api/builds/${build.id}/parts`, { systemId: cooling.id, description, quantity: '1', unit: 'each', estimatedUnitCost: '10.00' })).body as { id: string; version: number };
+    const pump = await part('Water pump');
+    const fan = await part('Electric fan');
+    const cap = await part('Radiator cap');
+    const thermostat = await part('Thermostat');
+    const sold = await part('Spare pump');
+    const receipt = await filedReceipt(t, owner.client, build.id, { vendorName: 'Ashgrove Motor Spares', purchaseDate: '2030-03-14', total: '89.00' }, [
+      { kind: 'part', description: 'WATER PUMP', amount: '89.00', systemId: cooling.id, partId: pump.id },
+    ]);
+    const warranty = async (of: { id: string }, body: object) => {
+      const version = (await owner.client.get(`/api/builds/${build.id}/parts`)).body.parts.find((p: { id: string }) => p.id === of.id).version;
+      const res = await owner.client.patch(`/api/builds/${build.id}/parts/${of.id}`, { ...body, version });
+      expect(res.status).toBe(200);
+      return res.body;
+    };
+    // 14 March 2030 + 12 months = 14 March 2031, from the receipt's date.
+    expect((await warranty(pump, { warranty: 12 })).warrantyEnds).toBe('2031-03-14');
+    // 31 January 2031 + 1 month = 28 February 2031; no receipt linked.
+    expect((await warranty(fan, { warranty: 1, warrantyStart: '2031-01-31' })).warrantyEnds).toBe('2031-02-28');
+    await warranty(cap, { warranty: 'lifetime', warrantyStart: '2030-01-01' });
+    // Ended before the run: 2030-01-10 + 12 months = 2031-01-10.
+    await warranty(thermostat, { warranty: 12, warrantyStart: '2030-01-10' });
+    await warranty(sold, { warranty: 12, warrantyStart: '2030-03-01', status: 'sold' });
+    const warrantyMails = (email: string) => mailTo(email).filter((mail) => mail.subject.startsWith('Warranty ends'));
+
+    // 2031-02-11 + 30 days = 2031-03-13: the pump's end (14 March) is 31 days away, the fan's 17.
+    await sendDueAlerts(deps, new Date('2031-02-11T09:00:00Z'));
+    expect(warrantyMails(owner.email).map((mail) => mail.subject)).toEqual(['Warranty ends Feb 28, 2031: Electric fan']);
+    expect(warrantyMails(owner.email)[0].text).toContain('The 1-month warranty on "Electric fan" on "Test coupé" ends on Feb 28, 2031 (in 17 days).');
+    expect(warrantyMails(owner.email)[0].text).toContain('No receipt is linked to it');
+    expect(warrantyMails(owner.email)[0].text).toContain(`Open the parts: ${t.url}/builds/${build.id}/parts`);
+
+    // 2031-02-12 + 30 days = 2031-03-14: the pump's last day is now within the window. Two runs at once, then a third.
+    const now = new Date('2031-02-12T09:00:00Z');
+    await Promise.all([sendDueAlerts(deps, now), sendDueAlerts(deps, now)]);
+    await sendDueAlerts(deps, now);
+    for (const person of [owner, crew]) {
+      const mails = warrantyMails(person.email);
+      expect(mails.map((mail) => mail.subject)).toEqual(['Warranty ends Feb 28, 2031: Electric fan', 'Warranty ends Mar 14, 2031: Water pump']);
+      expect(mails[1].text).toContain('The 12-month warranty on "Water pump" on "Test coupé" ends on Mar 14, 2031 (in 30 days).');
+      expect(mails[1].text).toContain('It rests on the receipt from Ashgrove Motor Spares of Mar 14, 2030.');
+      expect(mails[1].text).toContain(`Open the receipt: ${t.url}/builds/${build.id}/receipts/${receipt.id}`);
+    }
+    expect(warrantyMails(quietCrew.email)).toEqual([]);
+    expect(warrantyMails(reviewer.email)).toEqual([]);
+
+    // Later runs, up to the end day itself: nothing new; lifetime, ended and sold parts never mail.
+    await sendDueAlerts(deps, new Date('2031-03-14T09:00:00Z'));
+    expect(warrantyMails(owner.email)).toHaveLength(2);
+    expect(t.mail.messages.filter((mail) => /Radiator cap|Thermostat|Spare pump/.test(mail.subject))).toEqual([]);
   });
 
   it('mails a likely duplicate receipt once: the same document, or the same shop, date and total', async () => {

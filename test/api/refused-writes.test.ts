@@ -12,6 +12,7 @@ let owner: ApiClient;
 let buildId: string;
 let otherBuildLineId: string;
 let otherBuildPartId: string;
+let otherBuildReceiptId: string;
 let systemId: string;
 let part: { id: string; version: number };
 let open: { id: string; version: number; lines: { id: string; version: number }[] };
@@ -47,6 +48,7 @@ beforeAll(async () => {
   otherBuildPartId = (await stranger.client.post(`/api/builds/${otherBuild}/parts`, { systemId: otherSystem, description: 'Pump', quantity: '1', unit: 'each', estimatedUnitCost: '5.00' })).body.id;
   const theirs = await filedReceipt(t, stranger.client, otherBuild, { total: '5.00' }, [{ kind: 'part', description: 'PUMP', amount: '5.00', systemId: otherSystem }], { file: false });
   otherBuildLineId = theirs.lines[0].id;
+  otherBuildReceiptId = theirs.id;
 });
 
 afterAll(() => t.close());
@@ -68,6 +70,9 @@ const refusals: Refusal[] = [
   ['POST part whose quantity × unit cost overflows', 400, async () => owner.post(`${base()}/parts`, { systemId, description: 'Huge', quantity: FIFTEEN_NINES, unit: 'each', estimatedUnitCost: FIFTEEN_NINES }), 'estimatedUnitCost'],
   ['PATCH part whose quantity × unit cost overflows', 400, async () => owner.patch(`${base()}/parts/${part.id}`, { quantity: FIFTEEN_NINES, estimatedUnitCost: FIFTEEN_NINES, version: await partVersion() }), 'estimatedUnitCost'],
   ['PATCH part to a system of another build', 400, async () => owner.patch(`${base()}/parts/${part.id}`, { description: 'Renamed', systemId: otherBuildPartId, version: await partVersion() }), 'systemId'],
+  ['PATCH part warranty of 0 months', 400, async () => owner.patch(`${base()}/parts/${part.id}`, { warranty: 0, version: await partVersion() }), 'warranty'],
+  ['PATCH part warranty resting on a receipt of another build', 400, async () => owner.patch(`${base()}/parts/${part.id}`, { description: 'Renamed', warranty: 12, warrantyReceiptId: otherBuildReceiptId, version: await partVersion() }), 'warrantyReceiptId'],
+  ['PATCH part warranty start without a length', 400, async () => owner.patch(`${base()}/parts/${part.id}`, { warrantyStart: '2026-03-02', version: await partVersion() }), 'warranty'],
   ['DELETE a part of another build', 404, async () => owner.delete(`${base()}/parts/${otherBuildPartId}`)],
   ['POST bulk status with a part of another build', 404, async () => owner.post(`${base()}/parts/bulk`, { action: 'status', partIds: [part.id, otherBuildPartId], status: 'ordered' })],
   ['POST line returning a line of another build', 400, async () => owner.post(`${base()}/receipts/${open.id}/lines`, { kind: 'return', description: 'BACK', amount: '-5.00', returnOfLineId: otherBuildLineId }), 'returnOfLineId'],

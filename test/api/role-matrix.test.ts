@@ -124,6 +124,12 @@ const ROUTES: RouteCase[] = [
     call: (f, a) => f.clients[a].patch(`/api/builds/${f.buildId}/parts/${f.partId}`, { status: 'ordered', version: 1 }),
     expected: editors(200),
   },
+  {
+    // The warranty is set on the part like its other fields: the same roles, the same version check.
+    name: 'PATCH /api/builds/:buildId/parts/:partId (warranty)',
+    call: (f, a) => f.clients[a].patch(`/api/builds/${f.buildId}/parts/${f.partId}`, { warranty: 12, warrantyStart: '2026-03-14', version: 1 }),
+    expected: editors(200),
+  },
   { name: 'DELETE /api/builds/:buildId/parts/:partId', call: (f, a) => f.clients[a].delete(`/api/builds/${f.buildId}/parts/${f.partId}`), expected: editors(204) },
   {
     name: 'POST /api/builds/:buildId/parts/bulk',
@@ -261,7 +267,7 @@ const ROUTES: RouteCase[] = [
   {
     name: 'PUT /api/builds/:buildId/alert-preferences',
     call: (f, a) =>
-      f.clients[a].send('put', `/api/builds/${f.buildId}/alert-preferences`, { budget: true, coreDue: false, returnWindow: true, duplicate: false, reviewDigest: true }),
+      f.clients[a].send('put', `/api/builds/${f.buildId}/alert-preferences`, { budget: true, coreDue: false, returnWindow: true, warrantyEnding: true, duplicate: false, reviewDigest: true }),
     expected: readable,
   },
   // The inbox address is for those who send receipts (owner and crew); a reviewer adds none. Refused mail is the owner's.

@@ -124,7 +124,7 @@ describe.each(CASES)('the same figures everywhere, in $currency', ({ currency, t
     expect(toWire(sum(cores.filter((core) => core.state === 'owed').map((core) => toDecimal(core.amount))), currency === 'JPY' ? 0 : 2)).toBe(ledger.total.coreDepositsOutstanding);
 
     // The core-due mail names the same amount, formatted as ECMA-402 formats the currency in the build's locale.
-    await client.send('put', `${base}/alert-preferences`, { budget: false, coreDue: true, returnWindow: false, duplicate: false, reviewDigest: false });
+    await client.send('put', `${base}/alert-preferences`, { budget: false, coreDue: true, returnWindow: false, warrantyEnding: false, duplicate: false, reviewDigest: false });
     const core = await t.orm.em.fork().findOneOrFail(Core, { id: cores[0].id });
     await t.orm.em.fork().nativeUpdate(Core, { id: core.id }, { dueDate: '2031-03-17' });
     await sendDueAlerts(deps, new Date('2031-03-10T09:00:00Z'));

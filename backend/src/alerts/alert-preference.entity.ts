@@ -11,6 +11,7 @@ export class AlertPreference {
   budget!: boolean;
   coreDue!: boolean;
   returnWindow!: boolean;
+  warrantyEnding!: boolean;
   duplicate!: boolean;
   reviewDigest!: boolean;
   createdAt: Date = new Date();
@@ -25,6 +26,7 @@ export const AlertPreferenceSchema = new EntitySchema<AlertPreference>({
     budget: { type: 'boolean' },
     coreDue: { type: 'boolean' },
     returnWindow: { type: 'boolean' },
+    warrantyEnding: { type: 'boolean' },
     duplicate: { type: 'boolean' },
     reviewDigest: { type: 'boolean' },
     createdAt: { type: 'datetime', defaultRaw: 'now()' },

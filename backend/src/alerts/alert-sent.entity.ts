@@ -11,7 +11,7 @@ export class AlertSent {
   user!: User;
   build!: Build;
   kind!: AlertKind;
-  /** Stable per event: budget:<systemId>:90, core-due:<coreId>, return-window:<lineId>, duplicate:<receiptId>, digest:<buildId>:<day>. */
+  /** Stable per event: budget:<systemId>:90, core-due:<coreId>, return-window:<lineId>, warranty-ends:<partId>:<end day>, duplicate:<receiptId>, digest:<buildId>:<day>. */
   eventKey!: string;
   sentAt: Date = new Date();
 }

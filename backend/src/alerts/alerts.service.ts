@@ -5,12 +5,13 @@ import { randomUUID } from 'node:crypto';
 import { ALERT_KINDS, DEFAULT_ALERT_PREFERENCES, type AlertKind, type AlertPreferences } from '../../../shared/api/alerts';
 import { percentOfBudget } from '../../../shared/build-figures';
 import { Decimal, formatMoney, sum, toDecimal } from '../../../shared/money';
+import { warrantyEnds } from '../../../shared/warranty';
 import type { Build } from '../builds/build.entity';
 import { Membership } from '../builds/membership.entity';
 import type { AppConfig } from '../config';
 import { LINE_TOTAL, buildLedger } from '../ledger/ledger.service';
 import type { MailMessage, Mailer } from '../mail/mailer';
-import { budgetAlertMail, coreDueMail, duplicateReceiptMail, returnWindowMail, reviewDigestMail } from '../mail/templates';
+import { budgetAlertMail, coreDueMail, duplicateReceiptMail, returnWindowMail, reviewDigestMail, warrantyEndingMail } from '../mail/templates';
 import { findDuplicates } from '../receipts/receipt-dto';
 import { Receipt } from '../receipts/receipt.entity';
 import { RETURNABLE_LINE, RETURNABLE_UNTIL } from '../receipts/returns.service';
@@ -25,6 +26,8 @@ export interface AlertDeps {
 
 /** A core deposit or a return window is announced this many days ahead (our choice, the same as the issue's 7 for cores). */
 export const DAYS_AHEAD = 7;
+/** A warranty's end is announced this many days ahead: time to take a failing part back with its receipt (our choice). */
+export const WARRANTY_DAYS_AHEAD = 30;
 /** A receipt counts as a fresh duplicate for this long after upload; older ones are history, not news (our choice). */
 export const DUPLICATE_FRESH_DAYS = 30;
 
@@ -207,6 +210,49 @@ async function returnWindowAlerts(em: EntityManager, ctx: BuildContext): Promise
   }));
 }
 
+/**
+ * A warranty of whole months that ends within WARRANTY_DAYS_AHEAD, on a part still on the build (not sent back or
+ * sold). The key holds the end day, so a warranty the person changes afterwards is news again; the same one is not.
+ */
+async function warrantyEndingAlerts(em: EntityManager, ctx: BuildContext): Promise<DueAlert[]> {
+  const rows = await em.getConnection().execute<
+    { id: string; description: string; months: number; start: string; receipt_id: string | null; purchase_date: string | null; vendor_name: string | null }[]
+  >(
+    `select p.id, p.description, p.warranty_months as months, p.warranty_start::text as start, r.id as receipt_id,
+            r.purchase_date::text as purchase_date, v.name as vendor_name
+       from part p
+       left join receipt r on r.id = p.warranty_receipt_id
+       left join vendor v on v.id = r.vendor_id
+      where p.build_id = ? and p.warranty_months is not null and p.status not in ('returned', 'sold')
+      order by p.warranty_start, p.id`,
+    [ctx.build.id],
+  );
+  const last = addDays(ctx.today, WARRANTY_DAYS_AHEAD);
+  return rows.flatMap((row) => {
+    const ends = warrantyEnds(row.months, row.start)!;
+    if (ends < ctx.today || ends > last) return [];
+    const shop = row.vendor_name ?? 'an unknown shop';
+    return [
+      {
+        kind: 'warrantyEnding' as const,
+        keys: [`warranty-ends:${row.id}:${ends}`],
+        message: (to: string) =>
+          warrantyEndingMail({
+            to,
+            buildName: ctx.build.name,
+            description: row.description,
+            months: row.months,
+            ends: formatDay(ends, ctx.build.locale),
+            when: whenText(daysBetween(ctx.today, ends)),
+            receiptLabel: row.receipt_id ? (row.purchase_date ? `${shop} of ${formatDay(row.purchase_date, ctx.build.locale)}` : shop) : null,
+            link: row.receipt_id ? `${ctx.config.appUrl}/builds/${ctx.build.id}/receipts/${row.receipt_id}` : `${ctx.config.appUrl}/builds/${ctx.build.id}/parts`,
+            settingsLink: ctx.settingsLink,
+          }),
+      },
+    ];
+  });
+}
+
 function receiptLabel(receipt: Receipt, ctx: BuildContext): string {
   const parts = [`The receipt from ${receipt.vendor?.name ?? 'an unknown shop'}`];
   if (receipt.purchaseDate) parts.push(`of ${formatDay(receipt.purchaseDate, ctx.build.locale)}`);
@@ -322,6 +368,7 @@ const EVENTS_OF_BUILD: Record<Exclude<AlertKind, 'reviewDigest'>, (em: EntityMan
   budget: (em, ctx) => budgetAlerts(em, ctx),
   coreDue: (em, ctx) => coreDueAlerts(em, ctx),
   returnWindow: (em, ctx) => returnWindowAlerts(em, ctx),
+  warrantyEnding: (em, ctx) => warrantyEndingAlerts(em, ctx),
   duplicate: duplicateAlerts,
 };
 

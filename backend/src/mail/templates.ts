@@ -169,6 +169,33 @@ export function returnWindowMail(input: {
   });
 }
 
+export function warrantyEndingMail(input: {
+  to: string;
+  buildName: string;
+  description: string;
+  months: number;
+  ends: string;
+  /** "in 30 days", "today". */
+  when: string;
+  /** The receipt the warranty rests on, described ("Ashgrove Motor Spares, Mar 14, 2026"), or null when none is linked. */
+  receiptLabel: string | null;
+  link: string;
+  settingsLink: string;
+}): MailMessage {
+  return alertMail({
+    to: input.to,
+    subject: `Warranty ends ${input.ends}: ${input.description}`,
+    lines: [
+      `The ${input.months}-month warranty on "${input.description}" on "${input.buildName}" ends on ${input.ends} (${input.when}).`,
+      input.receiptLabel
+        ? `It rests on the receipt from ${input.receiptLabel}. If the part is failing, take it and the receipt to the shop before then.`
+        : 'No receipt is linked to it: find the proof of purchase now, in case the part fails before then.',
+    ],
+    link: input.receiptLabel ? { href: input.link, label: 'Open the receipt' } : { href: input.link, label: 'Open the parts' },
+    settingsLink: input.settingsLink,
+  });
+}
+
 export function duplicateReceiptMail(input: {
   to: string;
   buildName: string;

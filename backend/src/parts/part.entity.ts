@@ -6,11 +6,12 @@ import type { Decimal } from '../../../shared/money';
 import { UNITS, type Unit } from '../../../shared/units';
 import { Build } from '../builds/build.entity';
 import { DecimalType } from '../db/decimal-type';
+import { Receipt } from '../receipts/receipt.entity';
 import { partNumberKeySql } from '../suggestions/part-number-key';
 import { VehicleSystem } from '../systems/vehicle-system.entity';
 
 export class Part {
-  [OptionalProps]?: 'partNumber' | 'status' | 'storageLocation' | 'sourceUrl' | 'notes' | 'forSale' | 'askingPrice' | 'version' | 'createdAt' | 'updatedAt';
+  [OptionalProps]?: 'partNumber' | 'status' | 'storageLocation' | 'sourceUrl' | 'notes' | 'forSale' | 'askingPrice' | 'warrantyMonths' | 'warrantyLifetime' | 'warrantyStart' | 'warrantyReceipt' | 'version' | 'createdAt' | 'updatedAt';
   id: string = randomUUID();
   build!: Build;
   system!: VehicleSystem;
@@ -25,6 +26,11 @@ export class Part {
   notes = '';
   forSale = false;
   askingPrice: Decimal | null = null;
+  /** A warranty is a length in whole months or lifetime, never both (check constraints in the migration). */
+  warrantyMonths: number | null = null;
+  warrantyLifetime = false;
+  warrantyStart: string | null = null;
+  warrantyReceipt: Receipt | null = null;
   version = 1;
   createdAt: Date = new Date();
   updatedAt: Date = new Date();
@@ -54,6 +60,10 @@ export const PartSchema = new EntitySchema<Part>({
     notes: { type: 'text', default: '' },
     forSale: { type: 'boolean', default: false },
     askingPrice: { type: DecimalType, nullable: true },
+    warrantyMonths: { type: 'integer', nullable: true },
+    warrantyLifetime: { type: 'boolean', default: false },
+    warrantyStart: { type: 'date', nullable: true },
+    warrantyReceipt: { kind: 'm:1', entity: () => Receipt, nullable: true, deleteRule: 'set null' },
     version: { type: 'integer', version: true },
     createdAt: { type: 'datetime', defaultRaw: 'now()' },
     updatedAt: { type: 'datetime', defaultRaw: 'now()', onUpdate: () => new Date() },

@@ -7,7 +7,9 @@ import type { Unit } from '../../../shared/units';
 import type { Build } from '../builds/build.entity';
 import { NotFound, StaleVersion, ValidationFailed } from '../http/errors';
 import { checkBudget, findSystem, partEstimate } from '../systems/systems.service';
+import { warrantyEnds } from '../../../shared/warranty';
 import { Part } from './part.entity';
+import { changeWarranty, warrantyOf, type WarrantyChanges } from './part-warranty';
 
 export interface PartInput {
   systemId: string;
@@ -24,7 +26,7 @@ export interface PartInput {
   askingPrice: Decimal | null;
 }
 
-export type PartChanges = Partial<PartInput> & { version: number };
+export type PartChanges = Partial<PartInput> & WarrantyChanges & { version: number };
 
 export function partDto(part: Part, currency: string): PartDto {
   return {
@@ -42,6 +44,10 @@ export function partDto(part: Part, currency: string): PartDto {
     notes: part.notes,
     forSale: part.forSale,
     askingPrice: part.askingPrice === null ? null : toWire(part.askingPrice, minorUnits(currency)),
+    warranty: warrantyOf(part),
+    warrantyStart: part.warrantyStart,
+    warrantyEnds: warrantyEnds(warrantyOf(part), part.warrantyStart),
+    warrantyReceiptId: part.warrantyReceipt?.id ?? null,
     version: part.version,
     updatedAt: part.updatedAt.toISOString(),
   };
@@ -65,18 +71,22 @@ export async function listParts(em: EntityManager, build: Build, filter: { syste
     where += ' and p.status = ?';
     params.push(filter.status);
   }
-  const rows: (Omit<PartDto, 'updatedAt'> & { updatedAt: string })[] = await em.execute(
+  type PartRow = Omit<PartDto, 'warranty' | 'warrantyEnds'> & { warrantyMonths: number | null; warrantyLifetime: boolean };
+  const rows: PartRow[] = await em.execute(
     `select p.id, p.system_id as "systemId", p.description, p.part_number as "partNumber", p.quantity, p.unit,
             p.estimated_unit_cost as "estimatedUnitCost", round(p.quantity * p.estimated_unit_cost, ?) as "estimatedTotal",
             p.status, p.storage_location as "storageLocation", p.source_url as "sourceUrl", p.notes, p.for_sale as "forSale",
-            p.asking_price as "askingPrice", p.version, p.updated_at as "updatedAt"
+            p.asking_price as "askingPrice", p.warranty_months as "warrantyMonths", p.warranty_lifetime as "warrantyLifetime",
+            p.warranty_start::text as "warrantyStart", p.warranty_receipt_id as "warrantyReceiptId", p.version, p.updated_at as "updatedAt"
        from part p join vehicle_system s on s.id = p.system_id
       where ${where}
       order by s.sort_order asc, p.created_at asc`,
     params,
   );
-  return rows.map((row) => ({
+  return rows.map(({ warrantyMonths, warrantyLifetime, ...row }) => ({
     ...row,
+    warranty: warrantyOf({ warrantyMonths, warrantyLifetime }),
+    warrantyEnds: warrantyEnds(warrantyOf({ warrantyMonths, warrantyLifetime }), row.warrantyStart),
     quantity: storedToWire(row.quantity),
     estimatedUnitCost: storedToWire(row.estimatedUnitCost),
     estimatedTotal: storedToWire(row.estimatedTotal, places),
@@ -114,12 +124,13 @@ async function findPart(em: EntityManager, build: Build, partId: string): Promis
 
 export async function updatePart(em: EntityManager, build: Build, partId: string, changes: PartChanges | UpdatePartRequest): Promise<Part> {
   const part = await findPart(em, build, partId);
-  const { version, systemId, ...fields } = changes as PartChanges;
+  const { version, systemId, warranty, warrantyStart, warrantyReceiptId, ...fields } = changes as PartChanges;
   if (part.version !== version) throw new StaleVersion('This part', partDto(part, build.currency));
   if (fields.askingPrice) checkBudget(build, 'askingPrice', fields.askingPrice);
   checkEstimate(fields.quantity ?? part.quantity, fields.estimatedUnitCost ?? part.estimatedUnitCost);
   if (systemId !== undefined) part.system = await findSystem(em, build, systemId, 'systemId');
   for (const [key, value] of Object.entries(fields)) if (value !== undefined) (part as unknown as Record<string, unknown>)[key] = value;
+  await changeWarranty(em, build, part, { warranty, warrantyStart, warrantyReceiptId });
   await em.flush();
   return part;
 }

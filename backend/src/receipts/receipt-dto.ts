@@ -6,6 +6,7 @@ import { Decimal, minorUnits, storedToWire, toWire } from '../../../shared/money
 import { reconcile } from '../../../shared/receipt-math';
 import { ReceiptLine } from './receipt-line.entity';
 import { Receipt } from './receipt.entity';
+import { suggestWarranty } from './warranty-suggestion';
 
 /** A figure of a loaded entity (Decimal) or of a row read straight from SQL (stored text), as wire text. */
 const money = (value: Decimal | string | null, places: number) =>
@@ -32,6 +33,7 @@ export function lineDto(line: ReceiptLine, currency: string): ReceiptLineDto {
     returnOfLineId: line.returnOf?.id ?? null,
     box: line.box,
     confidence: line.confidence ?? {},
+    warrantySuggestion: line.kind === 'part' ? suggestWarranty(line.description) : null,
     version: line.version,
   };
 }

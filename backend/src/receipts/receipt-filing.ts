@@ -6,10 +6,12 @@ import { AllocationError, allocateCharges, reconcile, type MathLine } from '../.
 import type { User } from '../auth/user.entity';
 import { recordAudit } from '../audit/audit';
 import { Forbidden, StaleVersion, ValidationFailed } from '../http/errors';
+import { changeWarranty, warrantyOf } from '../parts/part-warranty';
 import { Core } from './core.entity';
 import { ReceiptLine } from './receipt-line.entity';
 import type { Receipt } from './receipt.entity';
 import { assertEditable, moneySnapshot } from './receipts.service';
+import { suggestWarranty } from './warranty-suggestion';
 
 /** Kinds that must land on a system; an unassigned fee or discount is spread over the other lines instead. */
 export const NEEDS_SYSTEM: ReadonlySet<string> = new Set(['part', 'return', 'core_charge', 'core_refund']);
@@ -94,6 +96,12 @@ export async function fileReceipt(
       }
     }
     if (line.part && line.kind === 'part' && (line.part.status === 'planned' || line.part.status === 'ordered')) line.part.status = 'on_hand';
+    // The warranty the line's words name goes to a part that has none yet, from the receipt's date: only a
+    // suggestion, which the person can change or remove on the part. A warranty already on the part stands.
+    const suggested = line.kind === 'part' ? suggestWarranty(line.description) : null;
+    if (line.part && suggested && warrantyOf(line.part) === null) {
+      await changeWarranty(em, receipt.build, line.part, { warranty: suggested, warrantyStart: receipt.purchaseDate, warrantyReceiptId: receipt.id });
+    }
     if (line.part && line.kind === 'return') line.part.status = 'returned';
   }
 

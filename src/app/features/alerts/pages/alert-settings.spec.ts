@@ -8,7 +8,7 @@ import type { AlertPreferencesDto } from '../../../../../shared/api/alerts';
 import { apiTestProviders } from '../../../../testing/api-test-providers';
 import { AlertSettings } from './alert-settings';
 
-const crewDefaults: AlertPreferencesDto = { budget: true, coreDue: true, returnWindow: true, duplicate: false, reviewDigest: false, chosen: false };
+const crewDefaults: AlertPreferencesDto = { budget: true, coreDue: true, returnWindow: true, warrantyEnding: true, duplicate: false, reviewDigest: false, chosen: false };
 
 async function renderWith(preferences: AlertPreferencesDto) {
   await render(AlertSettings, { providers: apiTestProviders(), bindings: [inputBinding('buildId', () => 'b-7')] });
@@ -26,10 +26,11 @@ describe('AlertSettings', () => {
   it('shows one switch per kind, set as loaded, each with its one-line explanation', async () => {
     await renderWith(crewDefaults);
 
-    expect(screen.getAllByRole('switch')).toHaveLength(5);
+    expect(screen.getAllByRole('switch')).toHaveLength(6);
     expect(checked('Budget reached')).toBe('true');
     expect(checked('Core deposit due')).toBe('true');
     expect(checked('Return window closing')).toBe('true');
+    expect(checked('Warranty ending')).toBe('true');
     expect(checked('Possible duplicate receipt')).toBe('false');
     expect(checked('Digest of filed receipts')).toBe('false');
     expect(screen.getByText('When a system has used 90 % and then 100 % of its budget.')).toBeTruthy();
@@ -45,7 +46,7 @@ describe('AlertSettings', () => {
 
     const request = http.expectOne('/api/builds/b-7/alert-preferences');
     expect(request.request.method).toBe('PUT');
-    expect(request.request.body).toEqual({ budget: true, coreDue: true, returnWindow: true, duplicate: true, reviewDigest: false });
+    expect(request.request.body).toEqual({ budget: true, coreDue: true, returnWindow: true, warrantyEnding: true, duplicate: true, reviewDigest: false });
     request.flush({ ...request.request.body, chosen: true });
 
     expect(await screen.findByText('Possible duplicate receipt: you will get these mails.')).toBeTruthy();

@@ -17,6 +17,8 @@ import { CurrentBuild } from '../../builds/services/current-build';
 import { SaleDialog, SaleDialogData } from '../components/sale-dialog';
 import { PartsApi } from '../services/parts-api';
 import { SystemsApi } from '../services/systems-api';
+import { WarrantyStatus } from '../components/warranty-status/warranty-status';
+import { openWarrantyDialog } from '../components/warranty-dialog/warranty-dialog';
 
 /** "Kit 2" before "Kit 10": numbers inside names sort as numbers. */
 const byDescription = (a: PartDto, b: PartDto) => a.description.localeCompare(b.description, undefined, { numeric: true });
@@ -29,7 +31,7 @@ interface LocationGroup {
 
 @Component({
   selector: 'th-inventory-page',
-  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, RouterLink, EmptyState, MoneyPipe],
+  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, RouterLink, EmptyState, MoneyPipe, WarrantyStatus],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     @if (loading() || busy()) {
@@ -67,6 +69,9 @@ interface LocationGroup {
                         }
                         · <span class="tabular">{{ part.quantity }}</span> {{ unitLabel(part) }}
                       </span>
+                      @if (part.warranty !== null) {
+                        <th-warranty-status [part]="part" [buildId]="buildId()" [locale]="locale()" />
+                      }
                       @if (part.forSale) {
                         <span class="sale-tag"
                           ><mat-icon aria-hidden="true" inline>sell</mat-icon> For sale at
@@ -76,6 +81,10 @@ interface LocationGroup {
                     </div>
                     @if (canEdit()) {
                       <div class="item-actions">
+                        <button mat-button type="button" (click)="openWarranty(part)" [disabled]="busy()" [attr.aria-label]="'Warranty of ' + part.description">
+                          <mat-icon aria-hidden="true">verified_user</mat-icon>
+                          Warranty
+                        </button>
                         @if (!part.forSale) {
                           <button mat-button type="button" (click)="offerForSale(part)" [disabled]="busy()" [attr.aria-label]="'Offer for sale: ' + part.description">
                             <mat-icon aria-hidden="true">sell</mat-icon>
@@ -264,6 +273,10 @@ export class InventoryPage {
         if (askingPrice === undefined) return;
         this.save(part, { forSale: true, askingPrice }, `${part.description} is offered for sale.`);
       });
+  }
+
+  protected openWarranty(part: PartDto): void {
+    openWarrantyDialog(this.dialog, this.buildId(), part).subscribe((saved) => saved && this.replace(saved));
   }
 
   protected takeOffSale(part: PartDto): void {

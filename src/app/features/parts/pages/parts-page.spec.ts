@@ -47,6 +47,20 @@ function cellsOf(row: HTMLElement): string[] {
 }
 
 describe('PartsPage', () => {
+  it('shows a part\'s warranty under its description, with a link to the receipt it rests on', async () => {
+    const { http } = await renderInBuild(PartsPage, { role: 'reviewer' });
+    http.expectOne('/api/builds/b-1/systems?archived=true').flush(overview);
+    const pump = part('p-pump', 's-cooling', 'Water pump', '1', '89.00', '89.00', { warranty: 12, warrantyStart: '2098-03-14', warrantyEnds: '2099-03-14', warrantyReceiptId: 'r-3' });
+    http.expectOne('/api/builds/b-1/parts').flush({ parts: [pump, parts[0]] });
+    await screen.findByText('Water pump');
+    expect(screen.getByText('Under warranty until Mar 14, 2099')).toBeTruthy();
+    expect(screen.getByRole('link', { name: 'Open the receipt for Water pump' }).getAttribute('href')).toBe('/builds/b-1/receipts/r-3');
+    // A part without a warranty says nothing about one.
+    expect(document.querySelectorAll('th-warranty-status')).toHaveLength(1);
+    // A reviewer reads it and changes nothing.
+    expect(screen.queryByRole('button', { name: /^Warranty of/ })).toBeNull();
+  });
+
   it('closes each system with a totals row: planned against budget, over budget in words with an icon', async () => {
     await renderAs('owner');
 

@@ -30,6 +30,8 @@ import { BudgetStanding, amountOf, budgetStanding, sumOf } from '../models/budge
 import { PartsApi } from '../services/parts-api';
 import { SystemsApi } from '../services/systems-api';
 import { SafetyNote } from '../../../ui/safety-note/safety-note';
+import { WarrantyStatus } from '../components/warranty-status/warranty-status';
+import { openWarrantyDialog } from '../components/warranty-dialog/warranty-dialog';
 
 /** A system as the table groups by it, with its estimate summed from the parts on screen. */
 interface SystemGroup {
@@ -56,7 +58,7 @@ const SORTERS: Record<string, (a: PartDto, b: PartDto) => number> = {
 
 @Component({
   selector: 'th-parts-page',
-  imports: [SafetyNote, 
+  imports: [SafetyNote, WarrantyStatus,
     MatButtonModule,
     MatCheckboxModule,
     MatFormFieldModule,
@@ -194,6 +196,15 @@ const SORTERS: Record<string, (a: PartDto, b: PartDto) => number> = {
                     {{ row.part.partNumber ? row.part.partNumber + ' · ' : '' }}{{ row.part.quantity }} {{ row.part.unit }} ×
                     {{ row.part.estimatedUnitCost | money: currency() : locale() : 4 }}{{ row.part.storageLocation ? ' · ' + row.part.storageLocation : '' }}
                   </span>
+                }
+                @if (row.part.warranty !== null) {
+                  <th-warranty-status class="warranty-line" [part]="row.part" [buildId]="buildId()" [locale]="locale()" />
+                }
+                <!-- A warranty matters once the part is bought. -->
+                @if (canEdit() && (row.part.warranty !== null || row.part.status === 'on_hand' || row.part.status === 'installed')) {
+                  <button type="button" class="link-button warranty-button" (click)="openWarranty(row.part)" [attr.aria-label]="'Warranty of ' + row.part.description">
+                    {{ row.part.warranty === null ? 'Add warranty' : 'Change warranty' }}
+                  </button>
                 }
               </td>
             </ng-container>
@@ -364,6 +375,14 @@ const SORTERS: Record<string, (a: PartDto, b: PartDto) => number> = {
     }
     .part-number {
       overflow-wrap: anywhere;
+    }
+    .warranty-line {
+      display: block;
+    }
+    .warranty-button {
+      display: block;
+      font: var(--mat-sys-body-small);
+      min-height: 32px;
     }
     .sub-line {
       display: block;
@@ -648,6 +667,10 @@ export class PartsPage {
 
   protected openEdit(part: PartDto): void {
     this.openPartForm({ part });
+  }
+
+  protected openWarranty(part: PartDto): void {
+    openWarrantyDialog(this.dialog, this.buildId(), part).subscribe((saved) => saved && this.replace(saved));
   }
 
   protected openImport(): void {

@@ -36,6 +36,7 @@ import { LINE_FIELD_LABELS, LINE_TEXT_FIELDS, lineGroup, type LineAction, type L
 import { AssignPicker, type Assignment } from '../components/assign-picker/assign-picker';
 import { LineCard } from '../components/line-card/line-card';
 import { LineMenu } from '../components/line-menu/line-menu';
+import { WarrantyHint } from '../components/warranty-hint/warranty-hint';
 import { injectNarrowScreen } from '../../../ui/narrow-screen';
 import { SafetyNote } from '../../../ui/safety-note/safety-note';
 import { ReceiptsApi } from '../services/receipts-api';
@@ -102,6 +103,7 @@ function caretAtEdge(input: HTMLInputElement, edge: 'start' | 'end'): boolean {
     ReviewPanel,
     ReviewVerdict,
     DuplicateNotice,
+    WarrantyHint,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './receipt-check.html',

@@ -34,6 +34,7 @@ const line = (id: string, description: string, amount: string, tax: string, ship
   returnOfLineId: null,
   box: null,
   confidence: {},
+  warrantySuggestion: null,
   version: 1,
 });
 

@@ -21,13 +21,14 @@ const pumpSuggestion: LineSuggestionDto = {
   reason: 'part number WP-880 is on the bill of materials',
 };
 
-async function renderCard(options: { editable: boolean; systemId?: string | null; partId?: string | null }) {
+async function renderCard(options: { editable: boolean; systemId?: string | null; partId?: string | null; warrantySuggestion?: 12 | 'lifetime' | null }) {
   const line = testLine('l-1', 0, 'Water pump, electric 12V', '178.00', options.systemId ?? null, {
     quantity: '2',
     unitPrice: '89.00',
     partNumber: 'WP-880',
     partId: options.partId ?? null,
     partDescription: options.partId ? 'Electric water pump' : null,
+    warrantySuggestion: options.warrantySuggestion ?? null,
   });
   const assigned: Assignment[] = [];
   const saved: LineField[] = [];
@@ -59,6 +60,12 @@ describe('LineCard', () => {
     expect(screen.getByText('$178.00')).toBeTruthy();
     expect(screen.getByText('2 × $89.00')).toBeTruthy();
     expect(screen.getByText('Part no. WP-880')).toBeTruthy();
+    expect(screen.queryByText(/warranty/)).toBeNull();
+  });
+
+  it('says the warranty the line\'s words suggest for its part', async () => {
+    await renderCard({ editable: true, systemId: 's-cooling', partId: 'p-pump', warrantySuggestion: 12 });
+    expect(screen.getByText('Says a 12-month warranty: its part gets it when filed, unless it has one')).toBeTruthy();
   });
 
   it('offers the best suggestion with its reason, and one tap assigns the part with its system', async () => {

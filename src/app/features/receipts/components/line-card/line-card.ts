@@ -16,10 +16,11 @@ import { moneyText } from '../../../../ui/money';
 import { LINE_FIELD_LABELS, LINE_TEXT_FIELDS, type LineAction, type LineField, type LineGroup } from '../../models/line-form';
 import { AssignPicker, type Assignment } from '../assign-picker/assign-picker';
 import { LineMenu } from '../line-menu/line-menu';
+import { WarrantyHint } from '../warranty-hint/warranty-hint';
 
 @Component({
   selector: 'th-line-card',
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, AssignPicker, LineMenu],
+  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, AssignPicker, LineMenu, WarrantyHint],
   templateUrl: './line-card.html',
   styleUrl: './line-card.css',
   changeDetection: ChangeDetectionStrategy.OnPush,
