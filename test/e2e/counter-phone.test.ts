@@ -1,6 +1,7 @@
 // In Debian's chromium at phone size with touch: the builder photographs a five-line counter slip whose part numbers
 // are on the bill of materials, accepts the suggestions and files it, in a counted handful of taps; then every route is
-// visited by owner, crew and reviewer at phone widths, and nothing may widen the page.
+// visited by owner, crew and reviewer at 360, 390 and 414 px: nothing may widen the page, scroll sideways inside it or
+// stand cut at the window's edge, and axe finds nothing.
 import type { Browser, Locator, Page } from 'playwright-core';
 import { startReadingWorker } from '../../backend/src/jobs/worker';
 import { readWithPageImages } from '../../backend/src/receipts/read-with-pages';
