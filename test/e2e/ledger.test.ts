@@ -23,8 +23,9 @@ afterAll(async () => {
 
 const usd = (amount: string) => formatMoney(toDecimal(amount), 'USD', 'en-US');
 
-it('shows the ledger of two filed receipts and the lines behind a figure', async () => {
-  const owner = await signedUpClient(t.app, 'e2e-ledger');
+/** A build with budgets on three systems, two calipers still to buy and two filed receipts (invented shops). */
+async function twoReceiptBuild(prefix: string) {
+  const owner = await signedUpClient(t.app, prefix);
   const { client } = owner;
   const buildId = (await client.post('/api/builds', { ...NEW_BUILD, name: 'Teal wagon swap', locale: 'en-US' })).body.id as string;
   const systems = (await client.get(`/api/builds/${buildId}/systems`)).body.systems as { id: string; name: string; version: number }[];
@@ -48,6 +49,11 @@ it('shows the ledger of two filed receipts and the lines behind a figure', async
     { kind: 'part', description: 'Radiator cap', amount: '15.00', systemId: system('Cooling').id },
     { kind: 'part', description: 'Starter', amount: '100.00', systemId: system('Engine').id },
   ]);
+  return { owner, client, buildId };
+}
+
+it('shows the ledger of two filed receipts and the lines behind a figure', async () => {
+  const { owner, client, buildId } = await twoReceiptBuild('e2e-ledger');
   const ledger = (await client.get(`/api/builds/${buildId}/ledger`)).body;
   // Engine net 69.85 + 11.00 + 90.00 = 170.85; Cooling 34.93 + 22.50 + 13.50 = 70.93 (over its 60.00); build 241.78.
   expect(ledger.total.netCost).toBe('241.78');
@@ -119,4 +125,57 @@ it('shows the ledger of two filed receipts and the lines behind a figure', async
   expect(await accessibilityViolations(page)).toEqual([]);
   await page.getByRole('link', { name: 'Go to Receipts' }).click();
   await page.getByRole('heading', { name: 'Receipts', level: 1 }).waitFor();
+});
+
+it('shows each named figure the same on the Overview, the Ledger and Budgets as the API gives it', async () => {
+  const { owner, client, buildId } = await twoReceiptBuild('e2e-same-figures');
+  const buildNow = (await client.get(`/api/builds/${buildId}`)).body as { version: number };
+  expect((await client.send('put', `/api/builds/${buildId}/contingency`, { contingencyBudget: '150.00', version: buildNow.version })).status).toBe(200);
+  // The figures come from the API here: each screen must show the API's value under the figure's name. The
+  // independent check, with every figure worked out by hand, is test/api/same-figures.test.ts.
+  const ledger = (await client.get(`/api/builds/${buildId}/ledger`)).body as {
+    total: Record<string, string>;
+    contingencyBudget: string;
+    budgetWithContingency: string;
+  };
+  const apiValue = (name: string) =>
+    name === 'contingency' ? ledger.contingencyBudget : name === 'budgetWithContingency' ? ledger.budgetWithContingency : ledger.total[name];
+
+  const page = await newPage(browser);
+  await signIn(page, t.url, owner.email);
+  const shown = new Map<string, Map<string, string>>();
+  for (const [screen, path, heading] of [
+    ['Overview', '', 'Teal wagon swap'],
+    ['Ledger', '/ledger', 'Ledger'],
+    ['Budgets', '/budgets', 'Budgets'],
+  ] as const) {
+    await page.goto(`${t.url}/builds/${buildId}${path}`);
+    await page.getByRole('heading', { name: heading, level: 1 }).waitFor();
+    await page.locator('[data-figure]').first().waitFor();
+    const figures = await page.locator('[data-figure]').evaluateAll((elements) =>
+      elements.map((element) => [element.getAttribute('data-figure') ?? '', element.getAttribute('data-value') ?? ''] as const),
+    );
+    expect(figures.length).toBeGreaterThan(0);
+    shown.set(screen, new Map(figures));
+  }
+  const mismatches: string[] = [];
+  for (const [screen, figures] of shown) {
+    for (const [name, value] of figures) {
+      if (apiValue(name) === undefined) mismatches.push(`${screen}: ${name} is not a figure of the ledger`);
+      else if (value !== apiValue(name)) mismatches.push(`${screen}: ${name} ${value}, the API ${apiValue(name)}`);
+      // Equal across screens too: a figure named on two screens has one value.
+      for (const [other, otherFigures] of shown) {
+        if (other !== screen && otherFigures.has(name) && otherFigures.get(name) !== value) mismatches.push(`${name}: ${screen} ${value}, ${other} ${otherFigures.get(name)}`);
+      }
+    }
+  }
+  expect(mismatches).toEqual([]);
+  // The screens between them show the budget, the contingency, the net cost and the comparison with the forecast.
+  const named = new Set([...shown.values()].flatMap((figures) => [...figures.keys()]));
+  for (const name of ['budget', 'budgetWithContingency', 'netCost', 'forecast', 'variance']) expect(named).toContain(name);
+  // The worked values of this build, so the check above compares real amounts: 400 + 60 + 900 budgeted, 150 held back.
+  expect(ledger.total.budget).toBe('1360.00');
+  expect(ledger.budgetWithContingency).toBe('1510.00');
+  expect(ledger.total.netCost).toBe('241.78');
+  await page.context().close();
 });

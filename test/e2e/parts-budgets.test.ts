@@ -180,8 +180,8 @@ it('budgets two systems, adds and imports parts, and shows each system against i
   await page.getByRole('textbox', { name: 'Budget for Engine' }).waitFor();
   await page.getByText('planned $262.50 over budget').first().waitFor();
   await page.getByText('planned $577.36 under budget').first().waitFor();
-  // Budget with contingency 2,000.00 + 1,200.00 + 150.00 = 3,350.00; planned 2,262.50 + 622.64 = 2,885.14, against the
-  // systems' budget 3,200.00 (the contingency is kept apart): 314.86 under.
+  // Budget with contingency 2,000.00 + 1,200.00 + 150.00 = 3,350.00; planned 2,262.50 + 622.64 = 2,885.14. Planned
+  // against budget compares with the systems' budget, the contingency kept apart: 3,200.00 - 2,885.14 = 314.86 under.
   await expect(page.locator('[data-figure="budgetWithContingency"]').getAttribute('data-value')).resolves.toBe('3350.00');
   await expect(page.locator('[data-figure="planned"]').getAttribute('data-value')).resolves.toBe('2885.14');
   await expect(page.locator('[data-figure="planningGap"]').getAttribute('data-value')).resolves.toBe('314.86');

@@ -40,21 +40,54 @@ export async function newPage(browser: Browser, options: { phone?: boolean; widt
   return context.newPage();
 }
 
+/** An element named by tag, id and class, as page script. */
+const NAME_ELEMENT = `(element) => element.tagName.toLowerCase() + (element.id ? '#' + element.id : '') + (element.className && typeof element.className === 'string' ? '.' + element.className.trim().split(/\\s+/).join('.') : '')`;
+
 /**
  * What scrolls sideways: whether the document is wider than the window, and each element whose content is wider than
  * its box while it lets the person scroll it sideways (a region to swipe inside), named by tag, id and class.
  */
 export async function sidewaysScroll(page: Page): Promise<{ page: boolean; regions: string[] }> {
   return page.evaluate(`(() => {
+    const name = ${NAME_ELEMENT};
     const root = document.documentElement;
     const regions = [];
     for (const element of document.querySelectorAll('body *')) {
       const overflow = getComputedStyle(element).overflowX;
       if ((overflow === 'auto' || overflow === 'scroll') && element.scrollWidth > element.clientWidth + 1) {
-        regions.push(element.tagName.toLowerCase() + (element.id ? '#' + element.id : '') + (element.className && typeof element.className === 'string' ? '.' + element.className.trim().split(/\\s+/).join('.') : ''));
+        regions.push(name(element));
       }
     }
     return { page: root.scrollWidth > window.innerWidth, regions };
+  })()`);
+}
+
+/**
+ * Text the window cuts: each visible element with text of its own whose box reaches past the window's left or right
+ * edge (a label or figure half off a phone's screen, which no scrolling shows), named as `sidewaysScroll` names them;
+ * text clipped away for screen readers only is left out.
+ */
+export async function cutAtEdge(page: Page): Promise<string[]> {
+  return page.evaluate(`(() => {
+    const name = ${NAME_ELEMENT};
+    const cut = [];
+    for (const element of document.querySelectorAll('body *')) {
+      const text = [...element.childNodes].some((node) => node.nodeType === Node.TEXT_NODE && node.textContent.trim() !== '');
+      if (!text) continue;
+      const box = element.getBoundingClientRect();
+      if (box.width === 0 || box.height === 0 || getComputedStyle(element).visibility === 'hidden') continue;
+      // Text for screen readers only (inside a box clipped to nothing) is not on the screen to be cut.
+      let clipped = false;
+      for (let box = element; box && !clipped; box = box.parentElement) {
+        const style = getComputedStyle(box);
+        clipped = (style.clip !== 'auto' && style.position === 'absolute') || style.clipPath.startsWith('inset(50%');
+      }
+      if (clipped) continue;
+      if (box.right > window.innerWidth + 1 || box.left < -1) {
+        cut.push(name(element) + ' "' + element.textContent.trim().slice(0, 30) + '"');
+      }
+    }
+    return cut;
   })()`);
 }
 

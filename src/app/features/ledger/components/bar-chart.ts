@@ -25,6 +25,20 @@ export interface ChartMarker {
   color: string;
 }
 
+/** About what fits a third of a phone's chart on one line of axis labels. */
+const LABEL_LINE_CHARACTERS = 14;
+
+/** A category's name in lines of whole words, each at most `width` characters unless one word is longer. */
+export function wrapLabel(label: string, width: number): string[] {
+  const lines: string[] = [];
+  for (const word of label.split(/\s+/).filter(Boolean)) {
+    const last = lines.length - 1;
+    if (last >= 0 && lines[last].length + 1 + word.length <= width) lines[last] += ` ${word}`;
+    else lines.push(word);
+  }
+  return lines.length > 0 ? lines : [''];
+}
+
 export interface BarClick {
   seriesIndex: number;
   index: number;
@@ -143,7 +157,11 @@ export class BarChart {
             ticks: { color: '#4b4641', maxRotation: 0, autoSkipPadding: 16, callback: (value) => axisFormat(Number(value)) },
             grid: { color: '#e8e1db' },
           },
-          [horizontal ? 'y' : 'x']: { ticks: { color: '#1d1b19' }, grid: { display: false } },
+          // A long name (a shop's, on a phone) goes on lines of its own words rather than off the canvas's edge.
+          [horizontal ? 'y' : 'x']: {
+            ticks: { color: '#1d1b19', callback: (_value, index) => wrapLabel(this.categories()[index] ?? '', LABEL_LINE_CHARACTERS) },
+            grid: { display: false },
+          },
         },
         onClick: (_event, elements) => {
           const hit = elements[0];
