@@ -178,7 +178,7 @@ export function readAmount(token: string, options: AmountOptions = {}): ReadAmou
  */
 function normaliseSeparators(text: string, requireDecimals: boolean, minorUnits: number, decimalComma: boolean): { text: string; commaDecimal: boolean } | null {
   const compact = text.trim();
-  if (!/^[0-9][0-9.,' ]*$/.test(compact) || /[.,' ]$/.test(compact)) return null;
+  if (!/^[0-9.,][0-9.,' ]*$/.test(compact) || !/[0-9]/.test(compact) || /[.,' ]$/.test(compact)) return null;
   const match = /^(.*?)([.,])([0-9]{1,4})$/.exec(compact);
   const wholeNumber = () => {
     if (requireDecimals) return null;
@@ -200,7 +200,9 @@ function normaliseSeparators(text: string, requireDecimals: boolean, minorUnits:
   if (separator === ',' && decimals.length !== 2 && !(decimals.length === 3 && (decimalComma || minorUnits === 3))) return null;
   // Two decimals for amounts; three or four only for unit prices (wire at 0.125 per foot).
   if (decimals.length === 1) return null;
-  const whole = integerPart === '' ? null : stripThousands(integerPart, separator);
+  // No whole part printed before the currency's decimals (".01", "RM .57"): less than one unit.
+  if (integerPart === '') return decimals.length === minorUnits ? { text: `0.${decimals}`, commaDecimal: separator === ',' } : null;
+  const whole = stripThousands(integerPart, separator);
   if (whole === null) return null;
   return { text: `${whole}.${decimals}`, commaDecimal: separator === ',' };
 }

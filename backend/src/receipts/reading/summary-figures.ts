@@ -81,7 +81,26 @@ export interface TaxTable {
   totalIndex: number | null;
 }
 
-export function chooseFigures(entries: SummaryEntry[], lineSum: Decimal | null, taxTable: TaxTable = { rows: [], total: null, totalIndex: null }): ChosenFigures {
+/**
+ * Cash-rounding rows as OCR and shops leave them: a figure beside a rounding word that is about the size of the total
+ * above it is the rounded total itself ("ROUNDING 45.35" under "TOTAL 45.34"), not an adjustment; and a figure whose
+ * word was lost, printed between two totals and exactly their difference, is the adjustment ("TOTAL 10.02", "0.02",
+ * "TOTAL 10.00").
+ */
+export function readRoundingRows(entries: SummaryEntry[]): SummaryEntry[] {
+  const sums = entries.filter((entry) => entry.role === 'total' || entry.role === 'final_total' || entry.role === 'subtotal');
+  return entries.map((entry) => {
+    const above = sums.filter((sum) => sum.index < entry.index);
+    const below = sums.filter((sum) => sum.index > entry.index);
+    if (entry.role === 'rounding' && above.some((sum) => sum.value.isPositive() && entry.value.abs().times(2).greaterThan(sum.value))) return { ...entry, role: 'total' };
+    const between = (first: SummaryEntry, last: SummaryEntry) => !entry.value.isZero() && (first.value.plus(entry.value).equals(last.value) || first.value.minus(entry.value).equals(last.value));
+    if (entry.role === 'unlabelled' && above.some((first) => below.some((last) => between(first, last)))) return { ...entry, role: 'rounding' };
+    return entry;
+  });
+}
+
+export function chooseFigures(printed: SummaryEntry[], lineSum: Decimal | null, taxTable: TaxTable = { rows: [], total: null, totalIndex: null }): ChosenFigures {
+  const entries = readRoundingRows(printed);
   const ofRole = (...roles: SummaryEntry['role'][]) => entries.filter((entry) => roles.includes(entry.role));
   const firstTotal = ofRole('total', 'final_total')[0];
   // Below the payment block come tax tables, card slips and loyalty lines: their "totals" are not the receipt's.
