@@ -84,8 +84,8 @@ export interface TaxTable {
 /**
  * Cash-rounding rows as OCR and shops leave them: a figure beside a rounding word that is about the size of the total
  * above it is the rounded total itself ("ROUNDING 45.35" under "TOTAL 45.34"), not an adjustment; and a figure whose
- * word was lost, printed between two totals and exactly their difference, is the adjustment ("TOTAL 10.02", "0.02",
- * "TOTAL 10.00").
+ * word was lost, printed between two totals, less than one unit and exactly their difference, is the adjustment
+ * ("TOTAL 10.02", "0.02", "TOTAL 10.00").
  */
 export function readRoundingRows(entries: SummaryEntry[]): SummaryEntry[] {
   const sums = entries.filter((entry) => entry.role === 'total' || entry.role === 'final_total' || entry.role === 'subtotal');
@@ -93,7 +93,10 @@ export function readRoundingRows(entries: SummaryEntry[]): SummaryEntry[] {
     const above = sums.filter((sum) => sum.index < entry.index);
     const below = sums.filter((sum) => sum.index > entry.index);
     if (entry.role === 'rounding' && above.some((sum) => sum.value.isPositive() && entry.value.abs().times(2).greaterThan(sum.value))) return { ...entry, role: 'total' };
-    const between = (first: SummaryEntry, last: SummaryEntry) => !entry.value.isZero() && (first.value.plus(entry.value).equals(last.value) || first.value.minus(entry.value).equals(last.value));
+    // Cash is rounded to a fraction of the currency's unit (5 sen, 5 or 10 cents, half a krona): a gap of a whole unit or
+    // more between two sums is something else, a tax row between a gross and a net.
+    const adjustment = !entry.value.isZero() && entry.value.abs().lessThan(1);
+    const between = (first: SummaryEntry, last: SummaryEntry) => adjustment && (first.value.plus(entry.value).equals(last.value) || first.value.minus(entry.value).equals(last.value));
     if (entry.role === 'unlabelled' && above.some((first) => below.some((last) => between(first, last)))) return { ...entry, role: 'rounding' };
     return entry;
   });

@@ -107,6 +107,11 @@ describe('cash rounding rows as tills and OCR leave them (Malaysia\'s 5-sen roun
     expect(receipt.agreements).toEqual(['it is printed beside a total word', 'the total plus the rounding adjustment gives it', 'the lines and charges add up to it']);
   });
 
+  it('takes no figure of a unit or more between two sums for an adjustment (a tax row between a gross and a net)', () => {
+    const receipt = read(['KEDAI SETIA', 'UBAT SAPU  20.50', 'TOTAL SALES (INCLUSIVE OF GST)  20.50', 'SR 6  1.16', 'TOTAL : 19.34'], 'en-MY');
+    expect([receipt.total.value, receipt.lines.map((line) => line.amount)]).toEqual(['20.50', ['20.50']]);
+  });
+
   it('keeps a small figure between two equal totals as no adjustment', () => {
     const receipt = read(['KEDAI SETIA', 'FIUS 10A  3.12', 'PITA PENEBAT  5.40', 'TOTAL: 8.52', '0.02', 'TOTAL 8.52'], 'en-MY');
     expect([receipt.total.value, receipt.lines.map((line) => line.amount)]).toEqual(['8.52', ['3.12', '5.40']]);
