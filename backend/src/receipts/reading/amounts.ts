@@ -96,8 +96,9 @@ export function readAmount(token: string, options: AmountOptions = {}): ReadAmou
     .replace(/^\*+|\*+$/g, '')
     .replace(/(?<=[0-9][.,][0-9]{2})[A-HJ-NP-Z]$/, '');
   let confidence = 1;
-  // A stray stroke OCR put before an amount ("/18.00"): the slash of a date or a fraction never stands first.
-  if (/^\/[0-9]+[.,][0-9]+$/.test(text)) {
+  // A stray stroke OCR put before an amount ("/18.00", "~50.00", "=0.01"): a slash, tilde or equals sign glued before
+  // the digits is no part of them (a minus read as "=" loses its sign; the rounding rules try both signs).
+  if (/^[/~=][0-9]+[.,][0-9]+$/.test(text)) {
     text = text.slice(1);
     confidence = 0.8;
   }

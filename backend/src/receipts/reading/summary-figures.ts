@@ -159,7 +159,9 @@ export function chooseFigures(printed: SummaryEntry[], lineSum: Decimal | null, 
         const printed = candidates.get(key(rounded));
         if (rounded.isNegative() || (!printed && rounding !== roundingEntry.value)) continue;
         const target = printed ?? candidate(rounded, null);
-        addFact(target, printed ? 3 : 2, 'the total plus the rounding adjustment gives it');
+        // With the rounded line lost, the total plus the adjustment as printed is still the amount paid: it outweighs
+        // the unrounded total's word alone.
+        addFact(target, printed ? 3 : 2.5, 'the total plus the rounding adjustment gives it');
         target.rounding = rounding;
         const unrounded = candidates.get(key(entry.value));
         if (unrounded && unrounded !== target && printed) unrounded.score -= 3;

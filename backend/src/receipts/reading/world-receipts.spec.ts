@@ -107,6 +107,18 @@ describe('cash rounding rows as tills and OCR leave them (Malaysia\'s 5-sen roun
     expect(receipt.agreements).toEqual(['it is printed beside a total word', 'the total plus the rounding adjustment gives it', 'the lines and charges add up to it']);
   });
 
+  it('takes the total plus the adjustment as paid when OCR lost the rounded line', () => {
+    const receipt = read(['KEDAI SETIA', 'FIUS 10A  3.13', 'PITA PENEBAT  5.40', 'TOTAL SALES (INCL GST 6%) RM 8.53', 'ROUNDING ADJUSTMENT RM 0.02'], 'en-MY');
+    expect([receipt.total.value, receipt.lines.map((line) => line.amount)]).toEqual(['8.55', ['3.13', '5.40', '0.02']]);
+    expect(receipt.agreements).toEqual(['the total plus the rounding adjustment gives it', 'the lines and charges add up to it']);
+  });
+
+  it('reads a minus OCR turned into "=" before an adjustment, and a "~" before the cash, as marks of no value', () => {
+    const receipt = read(['KEDAI SETIA', 'FIUS 10A  3.12', 'PITA PENEBAT  5.40', 'Total (Inclusive of GST): 8.52', 'Rounding Adj: =0.02', 'TOTAL: 8.50', 'Cash ~10.00', 'CHANGE 1.50'], 'en-MY');
+    expect([receipt.total.value, receipt.lines.map((line) => line.amount)]).toEqual(['8.50', ['3.12', '5.40', '-0.02']]);
+    expect(receipt.agreements).toContain('the amount tendered minus the change matches it');
+  });
+
   it('takes no figure of a unit or more between two sums for an adjustment (a tax row between a gross and a net)', () => {
     const receipt = read(['KEDAI SETIA', 'UBAT SAPU  20.50', 'TOTAL SALES (INCLUSIVE OF GST)  20.50', 'SR 6  1.16', 'TOTAL : 19.34'], 'en-MY');
     expect([receipt.total.value, receipt.lines.map((line) => line.amount)]).toEqual(['20.50', ['20.50']]);
@@ -115,6 +127,22 @@ describe('cash rounding rows as tills and OCR leave them (Malaysia\'s 5-sen roun
   it('keeps a small figure between two equal totals as no adjustment', () => {
     const receipt = read(['KEDAI SETIA', 'FIUS 10A  3.12', 'PITA PENEBAT  5.40', 'TOTAL: 8.52', '0.02', 'TOTAL 8.52'], 'en-MY');
     expect([receipt.total.value, receipt.lines.map((line) => line.amount)]).toEqual(['8.52', ['3.12', '5.40']]);
+  });
+});
+
+describe('total words with their qualifiers (common practice)', () => {
+  it.each([
+    ['en-MY', 'Total RM Incl. of GST 31.47'],
+    ['de-DE', 'Summe EUR inkl. MwSt 31,47'],
+    ['fr-FR', 'Total TTC en EUR 31,47'],
+  ])('%s: "%s" is the total, not an item', (locale, row) => {
+    const receipt = read(['KEDAI SETIA', 'ARTICLE A  20,00'.replace(',', locale === 'en-MY' ? '.' : ','), 'ARTICLE B  11,47'.replace(',', locale === 'en-MY' ? '.' : ','), row], locale);
+    expect([receipt.total.value, receipt.lines.map((line) => line.amount)]).toEqual(['31.47', ['20.00', '11.47']]);
+  });
+
+  it('still reads a long description that holds a total word as an item', () => {
+    const receipt = read(['KEDAI SETIA', 'TOTAL SHINE CAR WAX POLISH KIT  12.00', 'TOTAL  12.00'], 'en-MY');
+    expect([receipt.total.value, receipt.lines.map((line) => line.description)]).toEqual(['12.00', ['TOTAL SHINE CAR WAX POLISH KIT']]);
   });
 });
 
