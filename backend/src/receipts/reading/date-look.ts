@@ -109,9 +109,7 @@ export async function lookAgainAtDate(pool: OcrPool, image: NormalisedImage, lin
   const readings: Array<string | null> = [];
   for (const scale of DATE_SCALES) {
     const texts = new Map<number, string>();
-    // With no date read at all, the date may be on a line beside the one that looks like it (a time printed under a
-    // date whose digits OCR lost): the band from the line above to the line below is read.
-    for (const index of targets) texts.set(index, await rereadLines(pool, image, first.value === null ? besideLines(lines, index) : [lines[index]], scale, first.value === null ? 6 : 2));
+    for (const index of targets) texts.set(index, await rereadLines(pool, image, [lines[index]], scale, 2));
     const value = dateOf(lines, texts, locale, limits);
     if (first.value === null && value !== null) return { date: { value, confidence: 0.6 }, reread: targets.length };
     if (first.value !== null && value === first.value) return { date: { value, confidence: Math.max(first.confidence, 0.8) }, reread: targets.length };
@@ -120,6 +118,16 @@ export async function lookAgainAtDate(pool: OcrPool, image: NormalisedImage, lin
   // Two further readings agreeing on another real date outvote the unsure first one.
   if (first.value !== null && readings.length === 2 && readings[0] !== null && readings[0] === readings[1]) {
     return { date: { value: readings[0], confidence: 0.6 }, reread: targets.length };
+  }
+  if (first.value === null) {
+    // Still no date: it may be on a line beside the one that looks like it (a time printed under a date line OCR
+    // garbled past recognition). The band from the line above to the line below is read, at both sizes.
+    for (const scale of DATE_SCALES) {
+      const texts = new Map<number, string>();
+      for (const index of targets) texts.set(index, await rereadLines(pool, image, besideLines(lines, index), scale, 6));
+      const value = dateOf(lines, texts, locale, limits);
+      if (value !== null) return { date: { value, confidence: 0.6 }, reread: targets.length };
+    }
   }
   return { date: first, reread: targets.length };
 }
