@@ -160,8 +160,9 @@ export function chooseFigures(printed: SummaryEntry[], lineSum: Decimal | null, 
         if (rounded.isNegative() || (!printed && rounding !== roundingEntry.value)) continue;
         const target = printed ?? candidate(rounded, null);
         // With the rounded line lost, the total plus the adjustment as printed is still the amount paid: it outweighs
-        // the unrounded total's word alone.
-        addFact(target, printed ? 3 : 2.5, 'the total plus the rounding adjustment gives it');
+        // the unrounded total's word alone, but rests on that printed total only, so it is no independent fact.
+        if (printed) addFact(target, 3, 'the total plus the rounding adjustment gives it');
+        else addFact(target, 2.5, 'it is printed as a total before its rounding adjustment');
         target.rounding = rounding;
         const unrounded = candidates.get(key(entry.value));
         if (unrounded && unrounded !== target && printed) unrounded.score -= 3;

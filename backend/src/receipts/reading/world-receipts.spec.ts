@@ -110,7 +110,7 @@ describe('cash rounding rows as tills and OCR leave them (Malaysia\'s 5-sen roun
   it('takes the total plus the adjustment as paid when OCR lost the rounded line', () => {
     const receipt = read(['KEDAI SETIA', 'FIUS 10A  3.13', 'PITA PENEBAT  5.40', 'TOTAL SALES (INCL GST 6%) RM 8.53', 'ROUNDING ADJUSTMENT RM 0.02'], 'en-MY');
     expect([receipt.total.value, receipt.lines.map((line) => line.amount)]).toEqual(['8.55', ['3.13', '5.40', '0.02']]);
-    expect(receipt.agreements).toEqual(['the total plus the rounding adjustment gives it', 'the lines and charges add up to it']);
+    expect(receipt.agreements).toEqual(['it is printed as a total before its rounding adjustment', 'the lines and charges add up to it']);
   });
 
   it('reads a minus OCR turned into "=" before an adjustment, and a "~" before the cash, as marks of no value', () => {
