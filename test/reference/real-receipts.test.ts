@@ -68,17 +68,32 @@ whenPresent('the parser on the true text of real receipts (SROIE truth, box/ fil
     expect(read.agreements).toEqual(['the subtotal plus tax matches it', 'the lines and charges add up to it', 'net plus tax in the tax table gives it', 'the lines add up to the subtotal']);
   });
 
+  it('takes a figure beside a rounding word that is the size of the total for the rounded total (receipt 186)', () => {
+    // Printed: TOTAL SALES (INCLUSIVE GST) RM 45.34, ROUNDING ADJUSTMENT RM .01, ROUNDING RM 45.35, CREDIT 45.35, CHANGE .00.
+    const read = parseTrue('186');
+    expect(read.total.value).toBe('45.35');
+    expect(roundingLine(read)).toBe('0.01');
+    expect(read.agreements).toEqual(['it is printed beside a total word', 'the total plus the rounding adjustment gives it', 'the lines and charges add up to it', 'net plus tax in the tax table gives it']);
+  });
+
+  it('takes a figure printed without its word between two totals, and their difference, for the adjustment (receipt 104)', () => {
+    // Printed: TOTAL: 102.39, then 0.01 alone, then TOTAL 102.40.
+    const read = parseTrue('104');
+    expect(read.total.value).toBe('102.40');
+    expect(roundingLine(read)).toBe('0.01');
+  });
+
   it('takes the amount tendered minus the change as a check of the total (receipt 003)', () => {
     const read = parseTrue('003');
     expect(read.total.value).toBe('80.90');
     expect(read.agreements).toContain('the amount tendered minus the change matches it');
   });
 
-  it('reads 95 % of the 200 totals and 99 % of the dates from the true text (measured: 95.0 % and 99.5 %)', () => {
+  it('reads 96.5 % of the 200 totals and 99 % of the dates from the true text (measured: 96.5 % and 99.5 %)', () => {
     const receipts = loadRealReceipts(folder!);
     const results: RealResult[] = receipts.map((truth) => ({ truth, read: parseReceipt([trueTextPage(truth.boxFile)], { locale: REAL_LOCALE, minorUnits: 2 }), ms: 0 }));
     const share = (test: (result: RealResult) => boolean) => results.filter(test).length / results.length;
-    expect(share(totalRight)).toBeGreaterThanOrEqual(0.95);
+    expect(share(totalRight)).toBeGreaterThanOrEqual(0.965);
     expect(share(dateRight)).toBeGreaterThanOrEqual(0.99);
   });
 });

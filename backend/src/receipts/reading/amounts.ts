@@ -96,8 +96,9 @@ export function readAmount(token: string, options: AmountOptions = {}): ReadAmou
     .replace(/^\*+|\*+$/g, '')
     .replace(/(?<=[0-9][.,][0-9]{2})[A-HJ-NP-Z]$/, '');
   let confidence = 1;
-  // A stray stroke OCR put before an amount ("/18.00"): the slash of a date or a fraction never stands first.
-  if (/^\/[0-9]+[.,][0-9]+$/.test(text)) {
+  // A stray stroke OCR put before an amount ("/18.00", "~50.00", "=0.01"): a slash, tilde or equals sign glued before
+  // the digits is no part of them (a minus read as "=" loses its sign; the rounding rules try both signs).
+  if (/^[/~=][0-9]+[.,][0-9]+$/.test(text)) {
     text = text.slice(1);
     confidence = 0.8;
   }
@@ -178,7 +179,7 @@ export function readAmount(token: string, options: AmountOptions = {}): ReadAmou
  */
 function normaliseSeparators(text: string, requireDecimals: boolean, minorUnits: number, decimalComma: boolean): { text: string; commaDecimal: boolean } | null {
   const compact = text.trim();
-  if (!/^[0-9][0-9.,' ]*$/.test(compact) || /[.,' ]$/.test(compact)) return null;
+  if (!/^[0-9.,][0-9.,' ]*$/.test(compact) || !/[0-9]/.test(compact) || /[.,' ]$/.test(compact)) return null;
   const match = /^(.*?)([.,])([0-9]{1,4})$/.exec(compact);
   const wholeNumber = () => {
     if (requireDecimals) return null;
@@ -200,7 +201,9 @@ function normaliseSeparators(text: string, requireDecimals: boolean, minorUnits:
   if (separator === ',' && decimals.length !== 2 && !(decimals.length === 3 && (decimalComma || minorUnits === 3))) return null;
   // Two decimals for amounts; three or four only for unit prices (wire at 0.125 per foot).
   if (decimals.length === 1) return null;
-  const whole = integerPart === '' ? null : stripThousands(integerPart, separator);
+  // No whole part printed before the currency's decimals (".01", "RM .57"): less than one unit.
+  if (integerPart === '') return decimals.length === minorUnits ? { text: `0.${decimals}`, commaDecimal: separator === ',' } : null;
+  const whole = stripThousands(integerPart, separator);
   if (whole === null) return null;
   return { text: `${whole}.${decimals}`, commaDecimal: separator === ',' };
 }

@@ -59,3 +59,34 @@ describe('lookAgainAtDate', () => {
     expect(await look(firstReading([['THANK', 0.9], ['YOU', 0.9]]), { value: null, confidence: 0 })).toEqual({ date: { value: null, confidence: 0 }, reread: 0 });
   });
 });
+
+describe('lookAgainAtDate beside a time (invented slip; tills print the time under the date: common practice)', () => {
+  let twoLines: NormalisedImage;
+  beforeAll(async () => {
+    const svg =
+      '<svg xmlns="http://www.w3.org/2000/svg" width="900" height="200"><rect width="900" height="200" fill="#fff"/>' +
+      '<text x="40" y="75" font-family="DejaVu Sans Mono" font-size="32" fill="#000">DATE: 25/01/2018</text>' +
+      '<text x="40" y="135" font-family="DejaVu Sans Mono" font-size="32" fill="#000">TIME: 13:22</text></svg>';
+    const { data, info } = await sharp(Buffer.from(svg)).greyscale().png().toBuffer({ resolveWithObject: true });
+    twoLines = { png: data, width: info.width, height: info.height };
+  });
+
+  it('reads the band from the line above to the line below a time when the date line itself read as no date at all', async () => {
+    const lines = [
+      makeLine([
+        { text: 'Dale', confidence: 0.3, box: { page: 0, x: 42, y: 51, w: 76, h: 27 } },
+        { text: 'Sinn', confidence: 0.2, box: { page: 0, x: 137, y: 51, w: 76, h: 27 } },
+      ]),
+      makeLine([
+        { text: 'TIME:', confidence: 0.9, box: { page: 0, x: 42, y: 111, w: 95, h: 27 } },
+        { text: '13:22', confidence: 0.9, box: { page: 0, x: 156, y: 111, w: 95, h: 27 } },
+      ]),
+    ];
+    expect(await lookAgainAtDate(pool, twoLines, lines, { value: null, confidence: 0 }, 'en-MY', LIMITS)).toEqual({ date: { value: '2018-01-25', confidence: 0.6 }, reread: 1 });
+  });
+
+  it('reads again a date whose separators the first reading lost ("25012018")', async () => {
+    const lines = firstReading([['DATE:', 0.9], ['25012018', 0.6], ['13:22', 0.9]]);
+    expect(await look(lines, { value: null, confidence: 0 })).toEqual({ date: { value: '2018-01-25', confidence: 0.6 }, reread: 1 });
+  });
+});

@@ -10,7 +10,7 @@ import { keywordOf } from './label-words';
 import type { NormalisedImage } from './normalise';
 import type { OcrPool } from './ocr';
 import { DATE_WORDS, chooseReceiptDate } from './receipt-date';
-import { type TextLine, lineText } from './text-lines';
+import { type TextLine, lineText, unionBox } from './text-lines';
 
 /** The sizes the date lines are read at, in turn: larger first (faint small digits), then a little smaller. */
 export const DATE_SCALES = [2, 0.875];
@@ -19,8 +19,11 @@ const UNSURE_DATE = 0.7;
 /** At most this many lines are read again: a receipt prints its date on one or two. */
 const MOST_LINES = 3;
 
-/** Text that may be a date OCR garbled ("3G/D3/26318", "0f/03/2016") or a time printed beside one ("20:01"). */
-const DATE_LIKE = /[0-9A-Za-z]{1,2}\s?[/.-]\s?[0-9A-Za-z]{1,3}\s?[/.-]\s?[0-9A-Za-z]{2,5}|\b[0-2]?[0-9]:[0-5][0-9]\b/;
+/**
+ * Text that may be a date OCR garbled ("3G/D3/26318", "0f/03/2016"), one whose separators it lost ("21032018" for
+ * 27/03/2018, day-month-year or year-month-day), or a time printed beside one ("20:01").
+ */
+const DATE_LIKE = /[0-9A-Za-z]{1,2}\s?[/.-]\s?[0-9A-Za-z]{1,3}\s?[/.-]\s?[0-9A-Za-z]{2,5}|\b[0-2]?[0-9]:[0-5][0-9]\b|\b(?:[0-3][0-9][01][0-9](?:19|20)[0-9]{2}|(?:19|20)[0-9]{2}[01][0-9][0-3][0-9])\b/;
 
 const keywordsOf = (text: string) => text.split(/\s+/).map(keywordOf).filter((word) => word !== '');
 
@@ -48,19 +51,33 @@ function dateConfidence(line: TextLine, value: string, locale: string, limits: D
   return lowest;
 }
 
-async function rereadLine(pool: OcrPool, image: NormalisedImage, line: TextLine, scale: number): Promise<string> {
-  const margin = Math.round(line.box.h * 0.6);
-  const left = Math.max(0, line.box.x - 2 * line.box.h);
-  const top = Math.max(0, line.box.y - margin);
-  const width = Math.min(image.width, line.box.x + line.box.w + 2 * line.box.h) - left;
-  const height = Math.min(image.height, line.box.y + line.box.h + margin) - top;
-  if (width < 8 || height < 8) return lineText(line);
+/**
+ * The text of some lines read again together, from a crop around them enlarged or shrunk by the scale, with a margin
+ * of some rows' heights at either side (wider for a band: the first reading's boxes of a garbled line need not cover
+ * its print).
+ */
+async function rereadLines(pool: OcrPool, image: NormalisedImage, lines: TextLine[], scale: number, sideRows: number): Promise<string> {
+  const box = unionBox(lines.map((line) => line.box));
+  const rowHeight = Math.max(...lines.map((line) => line.box.h));
+  const margin = Math.round(rowHeight * 0.6);
+  const left = Math.max(0, box.x - sideRows * rowHeight);
+  const top = Math.max(0, box.y - margin);
+  const width = Math.min(image.width, box.x + box.w + sideRows * rowHeight) - left;
+  const height = Math.min(image.height, box.y + box.h + margin) - top;
+  if (width < 8 || height < 8) return lines.map(lineText).join(' ');
   const band = await sharp(image.png)
     .extract({ left, top, width, height })
     .resize({ width: Math.round(width * scale), kernel: 'lanczos3' })
     .png({ compressionLevel: 1 })
     .toBuffer();
   return (await pool.read(band, 0)).lines.map(lineText).join(' ');
+}
+
+/** A line with the lines just above and below it, those printed within three rows of it. */
+function besideLines(lines: TextLine[], index: number): TextLine[] {
+  const line = lines[index];
+  const near = (other: TextLine) => Math.abs(other.box.y + other.box.h / 2 - (line.box.y + line.box.h / 2)) <= 3 * line.box.h;
+  return lines.slice(Math.max(0, index - 1), index + 2).filter((other) => other === line || near(other));
 }
 
 export interface DateLook {
@@ -92,7 +109,7 @@ export async function lookAgainAtDate(pool: OcrPool, image: NormalisedImage, lin
   const readings: Array<string | null> = [];
   for (const scale of DATE_SCALES) {
     const texts = new Map<number, string>();
-    for (const index of targets) texts.set(index, await rereadLine(pool, image, lines[index], scale));
+    for (const index of targets) texts.set(index, await rereadLines(pool, image, [lines[index]], scale, 2));
     const value = dateOf(lines, texts, locale, limits);
     if (first.value === null && value !== null) return { date: { value, confidence: 0.6 }, reread: targets.length };
     if (first.value !== null && value === first.value) return { date: { value, confidence: Math.max(first.confidence, 0.8) }, reread: targets.length };
@@ -101,6 +118,16 @@ export async function lookAgainAtDate(pool: OcrPool, image: NormalisedImage, lin
   // Two further readings agreeing on another real date outvote the unsure first one.
   if (first.value !== null && readings.length === 2 && readings[0] !== null && readings[0] === readings[1]) {
     return { date: { value: readings[0], confidence: 0.6 }, reread: targets.length };
+  }
+  if (first.value === null) {
+    // Still no date: it may be on a line beside the one that looks like it (a time printed under a date line OCR
+    // garbled past recognition). The band from the line above to the line below is read, at both sizes.
+    for (const scale of DATE_SCALES) {
+      const texts = new Map<number, string>();
+      for (const index of targets) texts.set(index, await rereadLines(pool, image, besideLines(lines, index), scale, 6));
+      const value = dateOf(lines, texts, locale, limits);
+      if (value !== null) return { date: { value, confidence: 0.6 }, reread: targets.length };
+    }
   }
   return { date: first, reread: targets.length };
 }

@@ -88,9 +88,12 @@ type Candidate = Omit<ReadDate, 'start' | 'end'> & { index: number; length: numb
 function numericCandidates(text: string, locale: string): Candidate[] {
   const found: Candidate[] = [];
   const pattern = /(?<![0-9A-Za-z])([0-9OolIS]{1,4})([-/.])([0-9OolIS]{1,2})\2([0-9OolIS]{2,4})(?![0-9A-Za-z])/g;
-  for (const match of text.matchAll(pattern)) {
-    const [whole, firstText, , secondText, lastText] = match.map((part) => fixDigits(part ?? ''));
-    const corrected = whole !== match[0];
+  // A faint second separator OCR lost before a four-digit year ("22/122017"): read, a little less sure.
+  const lostSeparator = /(?<![0-9A-Za-z])([0-9]{1,2})([-/.])([0-9]{2})()((?:19|20)[0-9]{2})(?![0-9A-Za-z])/g;
+  const matches = [...[...text.matchAll(pattern)].map((match) => ({ match, lost: false })), ...[...text.matchAll(lostSeparator)].map((match) => ({ match, lost: true }))];
+  for (const { match, lost } of matches) {
+    const [whole, firstText, , secondText, lastText] = lost ? [match[0], match[1], '', match[3], match[5]] : match.map((part) => fixDigits(part ?? ''));
+    const corrected = lost || whole !== match[0];
     const penalty = corrected ? 0.8 : 1;
     const index = match.index ?? 0;
     if (firstText.length === 4) {

@@ -115,7 +115,11 @@ function matchLabel(label: string[]): LabelReading {
   if (matches.length === 0) return { role: null, notASum: false };
   // A description that merely contains a summary word ("DELIVERY VAN MIRROR LEFT") is an item.
   const best = matches.sort((a, b) => b.phrase.joined.length - a.phrase.joined.length || a.start - b.start)[0];
-  if (label.length > best.length + 3) return { role: null, notASum: false };
+  // Words that only qualify a total (a tax word, "INCL", "OF", a currency's letters, OCR's stray letters) say nothing of
+  // an item: "Total RM Incl. of GST 31.47" is a total.
+  const covered = new Set(matches.flatMap((match) => Array.from({ length: match.length }, (_, offset) => match.start + offset)));
+  const describing = label.filter((word, index) => !covered.has(index) && word.length > 2 && !hasWord([word], ...INCLUDING_WORDS, ...EXCLUDING_WORDS));
+  if (describing.length > 3) return { role: null, notASum: false };
   const roles = new Set(matches.map((match) => match.phrase.role));
   let role = best.phrase.role;
   const totalish = role === 'total' || role === 'final_total' || role === 'subtotal';

@@ -81,7 +81,29 @@ export interface TaxTable {
   totalIndex: number | null;
 }
 
-export function chooseFigures(entries: SummaryEntry[], lineSum: Decimal | null, taxTable: TaxTable = { rows: [], total: null, totalIndex: null }): ChosenFigures {
+/**
+ * Cash-rounding rows as OCR and shops leave them: a figure beside a rounding word that is about the size of the total
+ * above it is the rounded total itself ("ROUNDING 45.35" under "TOTAL 45.34"), not an adjustment; and a figure whose
+ * word was lost, printed between two totals, less than one unit and exactly their difference, is the adjustment
+ * ("TOTAL 10.02", "0.02", "TOTAL 10.00").
+ */
+export function readRoundingRows(entries: SummaryEntry[]): SummaryEntry[] {
+  const sums = entries.filter((entry) => entry.role === 'total' || entry.role === 'final_total' || entry.role === 'subtotal');
+  return entries.map((entry) => {
+    const above = sums.filter((sum) => sum.index < entry.index);
+    const below = sums.filter((sum) => sum.index > entry.index);
+    if (entry.role === 'rounding' && above.some((sum) => sum.value.isPositive() && entry.value.abs().times(2).greaterThan(sum.value))) return { ...entry, role: 'total' };
+    // Cash is rounded to a fraction of the currency's unit (5 sen, 5 or 10 cents, half a krona): a gap of a whole unit or
+    // more between two sums is something else, a tax row between a gross and a net.
+    const adjustment = !entry.value.isZero() && entry.value.abs().lessThan(1);
+    const between = (first: SummaryEntry, last: SummaryEntry) => adjustment && (first.value.plus(entry.value).equals(last.value) || first.value.minus(entry.value).equals(last.value));
+    if (entry.role === 'unlabelled' && above.some((first) => below.some((last) => between(first, last)))) return { ...entry, role: 'rounding' };
+    return entry;
+  });
+}
+
+export function chooseFigures(printed: SummaryEntry[], lineSum: Decimal | null, taxTable: TaxTable = { rows: [], total: null, totalIndex: null }): ChosenFigures {
+  const entries = readRoundingRows(printed);
   const ofRole = (...roles: SummaryEntry['role'][]) => entries.filter((entry) => roles.includes(entry.role));
   const firstTotal = ofRole('total', 'final_total')[0];
   // Below the payment block come tax tables, card slips and loyalty lines: their "totals" are not the receipt's.
@@ -137,7 +159,10 @@ export function chooseFigures(entries: SummaryEntry[], lineSum: Decimal | null, 
         const printed = candidates.get(key(rounded));
         if (rounded.isNegative() || (!printed && rounding !== roundingEntry.value)) continue;
         const target = printed ?? candidate(rounded, null);
-        addFact(target, printed ? 3 : 2, 'the total plus the rounding adjustment gives it');
+        // With the rounded line lost, the total plus the adjustment as printed is still the amount paid: it outweighs
+        // the unrounded total's word alone, but rests on that printed total only, so it is no independent fact.
+        if (printed) addFact(target, 3, 'the total plus the rounding adjustment gives it');
+        else addFact(target, 2.5, 'it is printed as a total before its rounding adjustment');
         target.rounding = rounding;
         const unrounded = candidates.get(key(entry.value));
         if (unrounded && unrounded !== target && printed) unrounded.score -= 3;

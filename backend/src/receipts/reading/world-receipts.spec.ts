@@ -88,6 +88,64 @@ describe('cash rounding', () => {
   });
 });
 
+describe('cash rounding rows as tills and OCR leave them (Malaysia\'s 5-sen rounding mechanism: common practice)', () => {
+  it('takes a figure beside a rounding word that is the size of the total for the rounded total, not an adjustment', () => {
+    const receipt = read(['KEDAI SETIA', 'FIUS 10A  3.14', 'PITA PENEBAT  5.40', 'TOTAL SALES (INCLUSIVE GST) RM 8.54', 'ROUNDING ADJUSTMENT RM .01', 'ROUNDING RM 8.55', 'CASH RM 10.00', 'CHANGE RM 1.45'], 'en-MY');
+    expect(receipt.total.value).toBe('8.55');
+    expect(receipt.lines.map((line) => [line.kind, line.description, line.amount])).toEqual([
+      ['part', 'FIUS 10A', '3.14'],
+      ['part', 'PITA PENEBAT', '5.40'],
+      ['fee', 'Rounding adjustment', '0.01'],
+    ]);
+    expect(receipt.agreements).toEqual(['it is printed beside a total word', 'the total plus the rounding adjustment gives it', 'the amount tendered minus the change matches it', 'the lines and charges add up to it']);
+  });
+
+  it('takes a figure whose word was lost between two totals, and their difference, for the rounding adjustment', () => {
+    const receipt = read(['KEDAI SETIA', 'FIUS 10A  3.12', 'PITA PENEBAT  5.40', 'TOTAL: 8.52', '0.02', 'TOTAL 8.50'], 'en-MY');
+    expect(receipt.total.value).toBe('8.50');
+    expect(receipt.lines.map((line) => line.amount)).toEqual(['3.12', '5.40', '-0.02']);
+    expect(receipt.agreements).toEqual(['it is printed beside a total word', 'the total plus the rounding adjustment gives it', 'the lines and charges add up to it']);
+  });
+
+  it('takes the total plus the adjustment as paid when OCR lost the rounded line', () => {
+    const receipt = read(['KEDAI SETIA', 'FIUS 10A  3.13', 'PITA PENEBAT  5.40', 'TOTAL SALES (INCL GST 6%) RM 8.53', 'ROUNDING ADJUSTMENT RM 0.02'], 'en-MY');
+    expect([receipt.total.value, receipt.lines.map((line) => line.amount)]).toEqual(['8.55', ['3.13', '5.40', '0.02']]);
+    expect(receipt.agreements).toEqual(['it is printed as a total before its rounding adjustment', 'the lines and charges add up to it']);
+  });
+
+  it('reads a minus OCR turned into "=" before an adjustment, and a "~" before the cash, as marks of no value', () => {
+    const receipt = read(['KEDAI SETIA', 'FIUS 10A  3.12', 'PITA PENEBAT  5.40', 'Total (Inclusive of GST): 8.52', 'Rounding Adj: =0.02', 'TOTAL: 8.50', 'Cash ~10.00', 'CHANGE 1.50'], 'en-MY');
+    expect([receipt.total.value, receipt.lines.map((line) => line.amount)]).toEqual(['8.50', ['3.12', '5.40', '-0.02']]);
+    expect(receipt.agreements).toContain('the amount tendered minus the change matches it');
+  });
+
+  it('takes no figure of a unit or more between two sums for an adjustment (a tax row between a gross and a net)', () => {
+    const receipt = read(['KEDAI SETIA', 'UBAT SAPU  20.50', 'TOTAL SALES (INCLUSIVE OF GST)  20.50', 'SR 6  1.16', 'TOTAL : 19.34'], 'en-MY');
+    expect([receipt.total.value, receipt.lines.map((line) => line.amount)]).toEqual(['20.50', ['20.50']]);
+  });
+
+  it('keeps a small figure between two equal totals as no adjustment', () => {
+    const receipt = read(['KEDAI SETIA', 'FIUS 10A  3.12', 'PITA PENEBAT  5.40', 'TOTAL: 8.52', '0.02', 'TOTAL 8.52'], 'en-MY');
+    expect([receipt.total.value, receipt.lines.map((line) => line.amount)]).toEqual(['8.52', ['3.12', '5.40']]);
+  });
+});
+
+describe('total words with their qualifiers (common practice)', () => {
+  it.each([
+    ['en-MY', 'Total RM Incl. of GST 31.47'],
+    ['de-DE', 'Summe EUR inkl. MwSt 31,47'],
+    ['fr-FR', 'Total TTC en EUR 31,47'],
+  ])('%s: "%s" is the total, not an item', (locale, row) => {
+    const receipt = read(['KEDAI SETIA', 'ARTICLE A  20,00'.replace(',', locale === 'en-MY' ? '.' : ','), 'ARTICLE B  11,47'.replace(',', locale === 'en-MY' ? '.' : ','), row], locale);
+    expect([receipt.total.value, receipt.lines.map((line) => line.amount)]).toEqual(['31.47', ['20.00', '11.47']]);
+  });
+
+  it('still reads a long description that holds a total word as an item', () => {
+    const receipt = read(['KEDAI SETIA', 'TOTAL SHINE CAR WAX POLISH KIT  12.00', 'TOTAL  12.00'], 'en-MY');
+    expect([receipt.total.value, receipt.lines.map((line) => line.description)]).toEqual(['12.00', ['TOTAL SHINE CAR WAX POLISH KIT']]);
+  });
+});
+
 describe('tendered minus change', () => {
   it('finds the total when its word is lost, from cash minus change and the lines', () => {
     const receipt = read(['KEDAI SETIA', 'FIUS 10A        3.10', 'PITA PENEBAT    5.40', '%%%% ::         8.50', 'CASH           10.00', 'CHANGE          1.50'], 'en-MY');
@@ -138,6 +196,11 @@ describe('amounts as printed around the world', () => {
     ['9.00*', {}, '9.00'],
     ['1.250', { minorUnits: 3 }, '1.250'],
     ['1,250', { minorUnits: 3 }, '1.250'],
+    // No whole part before the decimals, as some tills print amounts under one unit (from memory).
+    ['.01', {}, '0.01'],
+    ['RM .57', {}, '0.57'],
+    ['-.02', {}, '-0.02'],
+    [',50', { decimalComma: true }, '0.50'],
   ])('reads %s (%j) as %s', (printed, options, value) => {
     expect(readAmount(printed, options)?.value).toBe(value);
   });
