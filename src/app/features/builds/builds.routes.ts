@@ -1,7 +1,7 @@
 // Routes of the builds feature; the moment date adapter is provided here because only these pages pick dates.
 import { provideMomentDateAdapter } from '@angular/material-moment-adapter';
 import { Routes } from '@angular/router';
-import { BuildShell } from '../../core/layout/build-shell';
+import { BuildShell } from './layout/build-shell';
 import { BuildForm } from './pages/build-form';
 import { BuildList } from './pages/build-list';
 import { BuildOverview } from './pages/build-overview';

@@ -4,9 +4,9 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatMenuModule } from '@angular/material/menu';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
-import { CurrentBuild } from '../../features/builds/services/current-build';
-import { CaptureStatus } from '../../features/receipts/components/capture-status';
-import { CaptureQueue } from '../../features/receipts/services/capture-queue';
+import { CurrentBuild } from '../services/current-build';
+import { CaptureStatus } from '../../receipts/components/capture-status';
+import { CaptureQueue } from '../../receipts/services/capture-queue';
 
 export interface BuildSection {
   /** Relative to /builds/:buildId. */

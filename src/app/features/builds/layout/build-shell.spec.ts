@@ -6,13 +6,13 @@ import { HttpTestingController } from '@angular/common/http/testing';
 import { Router } from '@angular/router';
 import { render, screen, waitFor } from '@testing-library/angular/zoneless';
 import userEvent from '@testing-library/user-event';
-import type { BuildRole } from '../../../../shared/enums';
-import { apiTestProviders } from '../../../testing/api-test-providers';
-import { testBuild } from '../../../testing/build-fixtures';
-import { CAPTURE_DATABASE, CaptureQueue } from '../../features/receipts/services/capture-queue';
+import type { BuildRole } from '../../../../../shared/enums';
+import { apiTestProviders } from '../../../../testing/api-test-providers';
+import { testBuild } from '../../../../testing/build-fixtures';
+import { CAPTURE_DATABASE, CaptureQueue } from '../../receipts/services/capture-queue';
 import { clear, createStore } from 'idb-keyval';
-import { ReceiptUploads } from '../../features/receipts/services/receipt-uploads';
-import { Session } from '../auth/session';
+import { ReceiptUploads } from '../../receipts/services/receipt-uploads';
+import { Session } from '../../../core/auth/session';
 import { BuildShell } from './build-shell';
 
 async function renderAs(role: BuildRole) {
