@@ -169,6 +169,25 @@ describe('upload and reading', () => {
   });
 });
 
+describe('the build tells the reader what a date can be', () => {
+  it('passes the upload day and the earliest believable day (the build start less the years bought ahead) to the reader', async () => {
+    const { client } = await signedUpClient(t.app, 'reading-limits');
+    const build = (await client.post('/api/builds', { ...NEW_BUILD, startedOn: '2026-02-01' })).body;
+    const uploaded = (await upload(client, build.id, [{ name: 'slip.png', bytes: fixture('counter-2.png') }])).body.receipts[0];
+    await waitForState(client, build.id, uploaded.id, ['to_check']);
+    await t.orm.em.fork().nativeUpdate(Receipt, { id: uploaded.id }, { state: 'reading' });
+    const contexts: unknown[] = [];
+    const spy: typeof readWithPageImages = (bytes, locale, context) => {
+      contexts.push(context);
+      return readWithPageImages(bytes, locale, context);
+    };
+    expect(await readQueuedReceipt({ orm: t.orm, store: t.store, read: spy }, uploaded.id, false)).toBe('read');
+    const uploadDay = (await t.orm.em.fork().findOneOrFail(Receipt, { id: uploaded.id })).createdAt.toISOString().slice(0, 10);
+    // 2026-02-01 less 5 years (YEARS_BOUGHT_AHEAD in receipt-date.ts).
+    expect(contexts).toEqual([expect.objectContaining({ currency: 'USD', readOn: uploadDay, notBefore: '2021-02-01' })]);
+  });
+});
+
 describe('checking and filing', () => {
   it('allocates tax to taxable lines and shipping to all, to the cent, and opens a core deposit (worked by hand)', async () => {
     const { client, build, system } = await newBuild();

@@ -8,6 +8,7 @@ import { ReceiptLine } from '../receipts/receipt-line.entity';
 import { Receipt } from '../receipts/receipt.entity';
 import { vendorNamed } from '../receipts/receipts.service';
 import { Vendor } from '../receipts/vendor.entity';
+import { earliestReceiptDay } from '../receipts/reading/receipt-date';
 import { UnreadableDocumentError } from '../receipts/reading/sniff';
 import type { ObjectStore } from '../storage/object-store';
 
@@ -27,6 +28,8 @@ export interface ReadingContext {
   currency: string;
   /** ISO date the receipt was uploaded: no receipt is dated after it. */
   readOn: string;
+  /** ISO date before which no receipt of this build can be dated. */
+  notBefore?: string;
   knownVendors: string[];
   /** The stored document's type (a mailed message is read from its body). */
   contentType?: string;
@@ -73,7 +76,13 @@ export async function readQueuedReceipt(deps: ReadReceiptDeps, receiptId: string
     const bytes = await deps.store.get(receipt.documentKey);
     await setProgress(em, receipt.id, 25);
     const knownVendors = (await em.find(Vendor, { build: receipt.build }, { fields: ['name'], limit: 500 })).map((vendor) => vendor.name);
-    result = await deps.read(bytes, receipt.build.locale, { currency: receipt.build.currency, readOn: receipt.createdAt.toISOString().slice(0, 10), knownVendors, contentType: receipt.contentType });
+    result = await deps.read(bytes, receipt.build.locale, {
+      currency: receipt.build.currency,
+      readOn: receipt.createdAt.toISOString().slice(0, 10),
+      notBefore: earliestReceiptDay(receipt.build.startedOn) ?? undefined,
+      knownVendors,
+      contentType: receipt.contentType,
+    });
   } catch (error) {
     console.error(`[worker] reading receipt ${receipt.id} failed:`, error);
     if (error instanceof UnreadableDocumentError || finalAttempt) {

@@ -49,6 +49,7 @@ export async function readWithPageImages(bytes: Buffer, locale: string, context?
     locale,
     currency: context?.currency,
     readOn: context?.readOn,
+    notBefore: context?.notBefore,
     knownVendors: context?.knownVendors,
     contentType: context?.contentType,
   });

@@ -20,6 +20,8 @@ export interface ReadOptions {
   currency?: string;
   /** ISO date the receipt was uploaded: no receipt is dated after it. */
   readOn?: string;
+  /** ISO date before which no receipt of this build can be dated (see earliestReceiptDay). */
+  notBefore?: string;
   /** Shops the build already knows. */
   knownVendors?: string[];
   /** The stored document's type when it is known; only a mailed message (message/rfc822) is read by it, not sniffed. */
@@ -78,6 +80,7 @@ export async function readDocumentWithImages(bytes: Buffer, options: ReadOptions
     locale,
     minorUnits: options.currency ? minorUnits(options.currency) : undefined,
     readOn: options.readOn,
+    notBefore: options.notBefore,
     knownVendors: options.knownVendors,
   };
   if (options.contentType === MAIL_CONTENT_TYPE) return { reading: parseReceipt([await mailTextPage(bytes)], parseOptions), images: [] };
@@ -105,7 +108,7 @@ export async function readDocumentWithImages(bytes: Buffer, options: ReadOptions
   const page = (lines: TextPage['lines']): TextPage => ({ width: image.width, height: image.height, source: 'ocr', lines });
   const reading = await readFigures(pool, image, first.lines, page, parseOptions);
   // The date is looked at again on its own: its lines are few, and the figures' second look does not read them.
-  const { date } = await lookAgainAtDate(pool, image, first.lines, reading.date, locale, dateLimits(options.readOn));
+  const { date } = await lookAgainAtDate(pool, image, first.lines, reading.date, locale, dateLimits(options.readOn, options.notBefore));
   // So is the heading, when the shop's name in its large print was lost.
   const vendor = await lookAgainAtHeading(pool, image, first.lines, reading.vendor, options.knownVendors);
   return { reading: date === reading.date && vendor === reading.vendor ? reading : { ...reading, date, vendor }, images: [image] };

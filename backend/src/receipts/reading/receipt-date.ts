@@ -21,6 +21,17 @@ export interface DateChoice {
   note: string | null;
 }
 
+/** Parts are often bought well ahead of a build, but not this many years before it began (our choice). */
+export const YEARS_BOUGHT_AHEAD = 5;
+
+/** The earliest day a receipt of a build that began on `buildStartedOn` can carry; null when the start is not set. */
+export function earliestReceiptDay(buildStartedOn: string | null): string | null {
+  if (!buildStartedOn) return null;
+  const [year, month, day] = buildStartedOn.split('-').map(Number);
+  // Date.UTC rolls a 29 February into 1 March of a common year.
+  return new Date(Date.UTC(year - YEARS_BOUGHT_AHEAD, month - 1, day)).toISOString().slice(0, 10);
+}
+
 /** Upload day and the earliest believable day; without them, today and twenty-five years before it. */
 export function dateLimits(readOn?: string, notBefore?: string): DateLimits {
   const today = readOn ?? new Date().toISOString().slice(0, 10);
