@@ -1,5 +1,5 @@
 import { Decimal } from './money';
-import { isAboveLowest, itemKey, lineUnitPrice, percentAbove } from './price-history';
+import { isAboveLowest, itemKey, lineUnitPrice, lowestOf, percentAbove } from './price-history';
 
 const d = (text: string) => new Decimal(text);
 
@@ -63,5 +63,18 @@ describe('percentAbove and the 10 % hint', () => {
     expect(percentAbove(d('25.00'), d('30.00'))).toBe(-17);
     expect(isAboveLowest(d('5.00'), d('0'))).toBe(false);
     expect(percentAbove(d('5.00'), d('0'))).toBeNull();
+  });
+});
+
+describe('lowestOf', () => {
+  it('finds the lowest price, the earliest of equal ones', () => {
+    const prices = [
+      { unitPrice: '31.00', receiptId: 'a' },
+      { unitPrice: '30.00', receiptId: 'b' },
+      { unitPrice: '30.00', receiptId: 'c' },
+      { unitPrice: '30.50', receiptId: 'd' },
+    ];
+    expect(lowestOf(prices)?.receiptId).toBe('b');
+    expect(lowestOf([])).toBeUndefined();
   });
 });

@@ -49,3 +49,12 @@ export function isAboveLowest(price: Decimal, lowest: Decimal): boolean {
   return exactPercentAbove(price, lowest).greaterThan(PRICE_HINT_PERCENT);
 }
 
+
+/** The lowest of some prices paid (the earliest of equal ones, the list being in date order); undefined for none. */
+export function lowestOf<Paid extends { unitPrice: string }>(prices: readonly Paid[]): Paid | undefined {
+  let lowest: Paid | undefined;
+  for (const price of prices) {
+    if (!lowest || toDecimal(price.unitPrice).lessThan(toDecimal(lowest.unitPrice))) lowest = price;
+  }
+  return lowest;
+}
