@@ -25,6 +25,7 @@ import { receiptsRoutes } from './receipts/receipts.routes';
 import { suggestionsRoutes } from './suggestions/suggestions.routes';
 import { exportsRoutes } from './exports/exports.routes';
 import { ledgerRoutes } from './ledger/ledger.routes';
+import { priceHistoryRoutes } from './prices/price-history.routes';
 import { reviewRoutes } from './review/review.routes';
 import { inboundMailRoutes } from './inbox/inbound-mail.routes';
 import { inboxRoutes } from './inbox/inbox.routes';
@@ -110,6 +111,7 @@ export function createApp({ orm, config, mailer, store, queue }: AppDeps): Runni
   api.use('/builds/:buildId', suggestionsRoutes());
   api.use('/builds/:buildId', exportsRoutes({ store }));
   api.use('/builds/:buildId', ledgerRoutes());
+  api.use('/builds/:buildId', priceHistoryRoutes());
   api.use('/builds/:buildId', reviewRoutes({ mailer, config }));
   api.use('/builds/:buildId', inboxRoutes(config));
   api.use(() => {

@@ -3,6 +3,8 @@ import type { BuildDto } from '../../shared/api/builds';
 import type { PartDto, SystemDto, SystemsResponse } from '../../shared/api/parts';
 import type { CoreDto, ReceiptDto, ReceiptLineDto, ReceiptSummaryDto } from '../../shared/api/receipts';
 import type { BuildRole } from '../../shared/enums';
+import type { PriceHistoryItemDto, PricePaidDto } from '../../shared/api/price-history';
+import { lowestOf } from '../../shared/price-history';
 
 /** Build b-1 as its API answers it to a member with `role`. */
 export function testBuild(role: BuildRole, overrides: Partial<BuildDto> = {}): BuildDto {
@@ -151,4 +153,15 @@ export function testCore(id: string, overrides: Partial<CoreDto> = {}): CoreDto 
     version: 1,
     ...overrides,
   };
+}
+
+/** A price paid on a receipt, one item unless the quantity says otherwise. */
+export function testPricePaid(receiptId: string, vendor: string | null, purchaseDate: string, unitPrice: string, quantity = '1'): PricePaidDto {
+  return { receiptId, vendor, purchaseDate, unitPrice, quantity };
+}
+
+/** An item of the price history with its prices (in date order); the lowest and the last worked out from them. */
+export function testPriceItem(key: string, description: string, prices: PricePaidDto[], partNumber = ''): PriceHistoryItemDto {
+  const point = ({ receiptId, vendor, purchaseDate, unitPrice }: PricePaidDto) => ({ receiptId, vendor, purchaseDate, unitPrice });
+  return { key, partNumber, description, prices, lowest: point(lowestOf(prices)!), last: point(prices[prices.length - 1]) };
 }

@@ -226,6 +226,7 @@ const ROUTES: RouteCase[] = [
   { name: 'GET /api/builds/:buildId/ledger', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/ledger`), expected: readable },
   { name: 'GET /api/builds/:buildId/ledger/spend', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/ledger/spend?by=week`), expected: readable },
   { name: 'GET /api/builds/:buildId/ledger/vendors', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/ledger/vendors`), expected: readable },
+  { name: 'GET /api/builds/:buildId/price-history', call: (f, a) => f.clients[a].get(`/api/builds/${f.buildId}/price-history`), expected: readable },
   {
     name: 'GET /api/builds/:buildId/ledger/lines',
     call: async (f, a) => {

@@ -7,7 +7,7 @@ import { UNITS, type Unit } from '../../../shared/units';
 import { Build } from '../builds/build.entity';
 import { DecimalType } from '../db/decimal-type';
 import { Receipt } from '../receipts/receipt.entity';
-import { partNumberKeySql } from '../suggestions/part-number-key';
+import { partNumberKeySql } from '../../../shared/part-number-key';
 import { VehicleSystem } from '../systems/vehicle-system.entity';
 
 export class Part {

@@ -6,7 +6,7 @@ import { Decimal } from '../../../shared/money';
 import { Build } from '../builds/build.entity';
 import { DecimalType } from '../db/decimal-type';
 import { Part } from '../parts/part.entity';
-import { partNumberKeySql } from '../suggestions/part-number-key';
+import { partNumberKeySql } from '../../../shared/part-number-key';
 import { VehicleSystem } from '../systems/vehicle-system.entity';
 import { Receipt } from './receipt.entity';
 

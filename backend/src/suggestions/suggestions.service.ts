@@ -10,7 +10,7 @@ import { NEEDS_SYSTEM } from '../receipts/receipt-filing';
 import { ReceiptLine } from '../receipts/receipt-line.entity';
 import type { Receipt } from '../receipts/receipt.entity';
 import { VehicleSystem } from '../systems/vehicle-system.entity';
-import { partNumberKey, partNumberKeySql } from './part-number-key';
+import { partNumberKey, partNumberKeySql } from '../../../shared/part-number-key';
 import { descriptionScore, HISTORY_SIMILARITY, historyScore, partNumberScore, roundScore, tradeWordScore } from './suggestion-scores';
 import { systemIsOfKind, tradeWordMatches } from './trade-word-match';
 

@@ -3,7 +3,7 @@ import { screen, within } from '@testing-library/angular/zoneless';
 import userEvent from '@testing-library/user-event';
 import type { PartDto, SystemDto, SystemsResponse } from '../../../../../shared/api/parts';
 import type { BuildRole } from '../../../../../shared/enums';
-import { testPart, testSystem } from '../../../../testing/build-fixtures';
+import { testPart, testPriceItem, testPricePaid, testSystem } from '../../../../testing/build-fixtures';
 import { renderInBuild } from '../../../../testing/render-in-build';
 import { PartsPage } from './parts-page';
 
@@ -47,6 +47,18 @@ function cellsOf(row: HTMLElement): string[] {
 }
 
 describe('PartsPage', () => {
+  it('loads the price history once and shows the lowest and last price under a part bought on two receipts', async () => {
+    const { http } = await renderInBuild(PartsPage, { role: 'reviewer' });
+    http.expectOne('/api/builds/b-1/systems?archived=true').flush(overview);
+    http.expectOne('/api/builds/b-1/parts').flush({ parts });
+    const prices = [testPricePaid('r-1', 'Fernhill Auto Spares', '2026-03-03', '44.00'), testPricePaid('r-2', 'Fernhill Auto Spares', '2026-04-10', '47.50')];
+    http.expectOne('/api/builds/b-1/price-history').flush({ currency: 'USD', items: [testPriceItem('number:hc101', 'Clamps', prices, 'HC 101')] });
+    expect(await screen.findByText('Paid before: lowest $44.00, last $47.50')).toBeTruthy();
+    // Only the clamps (HC-101) were bought twice.
+    expect(screen.getAllByText(/Paid before/)).toHaveLength(1);
+    http.expectNone('/api/builds/b-1/price-history');
+  });
+
   it('shows a part\'s warranty under its description, with a link to the receipt it rests on', async () => {
     const { http } = await renderInBuild(PartsPage, { role: 'reviewer' });
     http.expectOne('/api/builds/b-1/systems?archived=true').flush(overview);

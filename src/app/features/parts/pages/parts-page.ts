@@ -15,6 +15,7 @@ import { MatSortModule, Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
 import { forkJoin } from 'rxjs';
+import type { PriceHistoryResponse } from '../../../../../shared/api/price-history';
 import type { ImportResultDto, PartDto, SystemDto } from '../../../../../shared/api/parts';
 import { PART_STATUSES, PART_STATUS_LABELS, PartStatus } from '../../../../../shared/enums';
 import { compareWithBudget, comparisonWords } from '../../../../../shared/build-figures';
@@ -29,7 +30,9 @@ import { PartFormData, PartFormDialog, PartFormResult } from '../components/part
 import { BudgetStanding, amountOf, budgetStanding, sumOf } from '../models/budget-math';
 import { PartsApi } from '../services/parts-api';
 import { SystemsApi } from '../services/systems-api';
+import { PriceHistoryApi } from '../../receipts/services/price-history-api';
 import { SafetyNote } from '../../../ui/safety-note/safety-note';
+import { PricesPaid } from '../components/prices-paid/prices-paid';
 import { WarrantyStatus } from '../components/warranty-status/warranty-status';
 import { openWarrantyDialog } from '../components/warranty-dialog/warranty-dialog';
 
@@ -58,7 +61,7 @@ const SORTERS: Record<string, (a: PartDto, b: PartDto) => number> = {
 
 @Component({
   selector: 'th-parts-page',
-  imports: [SafetyNote, WarrantyStatus,
+  imports: [SafetyNote, WarrantyStatus, PricesPaid,
     MatButtonModule,
     MatCheckboxModule,
     MatFormFieldModule,
@@ -81,6 +84,7 @@ const SORTERS: Record<string, (a: PartDto, b: PartDto) => number> = {
 export class PartsPage {
   private readonly partsApi = inject(PartsApi);
   private readonly systemsApi = inject(SystemsApi);
+  private readonly priceHistoryApi = inject(PriceHistoryApi);
   private readonly dialog = inject(MatDialog);
   private readonly snackBar = inject(MatSnackBar);
   protected readonly current = inject(CurrentBuild);
@@ -94,6 +98,8 @@ export class PartsPage {
   protected readonly parts = signal<PartDto[]>([]);
   protected readonly systems = signal<SystemDto[]>([]);
   protected readonly currency = signal('');
+  /** What the build paid for items bought on more than one receipt; null until it arrives (or when it cannot be had). */
+  protected readonly priceHistory = signal<PriceHistoryResponse | null>(null);
   protected readonly loading = signal(false);
   protected readonly loaded = signal(false);
   protected readonly busy = signal(false);
@@ -421,5 +427,6 @@ export class PartsPage {
       },
       error: () => this.loading.set(false),
     });
+    this.priceHistoryApi.priceHistory(buildId).subscribe({ next: (history) => this.priceHistory.set(history), error: () => this.priceHistory.set(null) });
   }
 }

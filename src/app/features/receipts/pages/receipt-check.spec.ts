@@ -5,13 +5,14 @@ import { HttpTestingController } from '@angular/common/http/testing';
 import { render, screen, waitFor } from '@testing-library/angular/zoneless';
 import userEvent from '@testing-library/user-event';
 import type { SystemDto } from '../../../../../shared/api/parts';
+import type { PriceHistoryResponse } from '../../../../../shared/api/price-history';
 import type { ReceiptDto } from '../../../../../shared/api/receipts';
 import type { ReceiptSuggestionsDto } from '../../../../../shared/api/suggestions';
 import type { BuildRole } from '../../../../../shared/enums';
 import { apiTestProviders } from '../../../../testing/api-test-providers';
 import { CurrentBuild } from '../../builds/services/current-build';
 import { ReceiptCheck } from './receipt-check';
-import { testBuild, testLine, testSystem } from '../../../../testing/build-fixtures';
+import { testBuild, testLine, testPriceItem, testPricePaid, testSystem } from '../../../../testing/build-fixtures';
 
 // The first test pays the compilation of the check screen with its image and review panels, and the typing tests
 // type many keys: on a busy 2-core machine they came near jest's 5 s default.
@@ -58,7 +59,12 @@ const receipt = (extra: Partial<ReceiptDto> = {}): ReceiptDto => ({
   ...extra,
 });
 
-async function renderAs(role: BuildRole, shown: ReceiptDto, suggestions: ReceiptSuggestionsDto = { threshold: 0.6, lines: [] }) {
+async function renderAs(
+  role: BuildRole,
+  shown: ReceiptDto,
+  suggestions: ReceiptSuggestionsDto = { threshold: 0.6, lines: [] },
+  priceHistory: PriceHistoryResponse = { currency: 'USD', items: [] },
+) {
   await render(ReceiptCheck, {
     providers: [
       ...apiTestProviders(),
@@ -83,6 +89,7 @@ async function renderAs(role: BuildRole, shown: ReceiptDto, suggestions: Receipt
   await screen.findByRole('heading', { name: 'Ridgeback Parts' });
   // An editable receipt asks for the reader's suggestions once it shows.
   for (const request of http.match('/api/builds/b-1/receipts/r-1/suggestions')) request.flush(suggestions);
+  for (const request of http.match('/api/builds/b-1/price-history?minReceipts=1')) request.flush(priceHistory);
   return http;
 }
 
@@ -93,6 +100,20 @@ const reconciliationText = () =>
     .join(' ');
 
 describe('ReceiptCheck', () => {
+  it('loads every price filed before once and hints under a line more than 10 % above the lowest', async () => {
+    // Brake hose pair at 30.00 against 26.00 paid on another receipt: 15.38 %, shown as 15 %. Shop rags at 10.00 against 9.10: 9.89 %, no hint.
+    const http = await renderAs('owner', receipt(), undefined, {
+      currency: 'USD',
+      items: [
+        testPriceItem('description:brake hose pair', 'Brake hose pair', [testPricePaid('r-0', 'Fernhill Auto Spares', '2026-01-09', '26.00')]),
+        testPriceItem('description:shop rags', 'Shop rags', [testPricePaid('r-0', 'Fernhill Auto Spares', '2026-01-09', '9.10')]),
+      ],
+    });
+    expect(await screen.findByText('15 % above the lowest this build paid: $26.00 at Fernhill Auto Spares, Jan 9, 2026')).toBeTruthy();
+    expect(screen.getAllByText(/above the lowest/)).toHaveLength(1);
+    http.expectNone('/api/builds/b-1/price-history?minReceipts=1');
+  });
+
   it('recomputes the reconciliation live as an amount is typed, with the difference in words', async () => {
     await renderAs('crew', receipt());
     expect(reconciliationText()).toBe('Lines $40.00 + tax $2.00 + shipping $0.00 − discount $0.00 = $42.00 check_circle Adds up to the printed total of $42.00.');

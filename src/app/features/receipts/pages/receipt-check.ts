@@ -14,6 +14,7 @@ import { RouterLink } from '@angular/router';
 import { Observable, Subscription, firstValueFrom, of, switchMap, takeWhile, timer } from 'rxjs';
 import type { PartDto, SystemDto } from '../../../../../shared/api/parts';
 import type { FileReceiptRequest, ReceiptDto, ReceiptLineDto, UpdateLineRequest, UpdateReceiptRequest } from '../../../../../shared/api/receipts';
+import type { PriceHistoryResponse } from '../../../../../shared/api/price-history';
 import type { LineSuggestionDto } from '../../../../../shared/api/suggestions';
 import { RECEIPT_LINE_KINDS, RECEIPT_LINE_KIND_LABELS, RECEIPT_STATE_LABELS } from '../../../../../shared/enums';
 import { parseMoney } from '../../../../../shared/money';
@@ -36,9 +37,11 @@ import { LINE_FIELD_LABELS, LINE_TEXT_FIELDS, lineGroup, type LineAction, type L
 import { AssignPicker, type Assignment } from '../components/assign-picker/assign-picker';
 import { LineCard } from '../components/line-card/line-card';
 import { LineMenu } from '../components/line-menu/line-menu';
+import { PriceHint } from '../components/price-hint/price-hint';
 import { WarrantyHint } from '../components/warranty-hint/warranty-hint';
 import { injectNarrowScreen } from '../../../ui/narrow-screen';
 import { SafetyNote } from '../../../ui/safety-note/safety-note';
+import { PriceHistoryApi } from '../services/price-history-api';
 import { ReceiptsApi } from '../services/receipts-api';
 
 /** Below this reading confidence a field is marked "check this". */
@@ -104,6 +107,7 @@ function caretAtEdge(input: HTMLInputElement, edge: 'start' | 'end'): boolean {
     ReviewVerdict,
     DuplicateNotice,
     WarrantyHint,
+    PriceHint,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './receipt-check.html',
@@ -113,6 +117,7 @@ export class ReceiptCheck {
   private readonly receiptsApi = inject(ReceiptsApi);
   private readonly partsApi = inject(PartsApi);
   private readonly systemsApi = inject(SystemsApi);
+  private readonly priceHistoryApi = inject(PriceHistoryApi);
   private readonly dialog = inject(MatDialog);
   private readonly destroyRef = inject(DestroyRef);
   private readonly host = inject<ElementRef<HTMLElement>>(ElementRef);
@@ -140,6 +145,8 @@ export class ReceiptCheck {
   /** Each line's suggestions by line id; empty until they arrive (and when they cannot be had). */
   protected readonly suggestions = signal<Partial<Record<string, LineSuggestionDto[]>>>({});
   protected readonly suggestionThreshold = signal(1);
+  /** Every price filed before, for the hint under a line priced well above the lowest; null until it arrives (or when it cannot be had). */
+  protected readonly priceHistory = signal<PriceHistoryResponse | null>(null);
   /** Phones get one card per line instead of the table. */
   protected readonly narrow = injectNarrowScreen();
   protected readonly lineProblems = signal<Partial<Record<string, string>>>({});
@@ -243,6 +250,7 @@ export class ReceiptCheck {
       untracked(() => {
         this.partsApi.list(buildId).subscribe({ next: (parts) => this.parts.set(parts), error: () => this.parts.set([]) });
         this.systemsApi.list(buildId).subscribe({ next: (response) => this.systems.set(response.systems), error: () => this.systems.set([]) });
+        this.priceHistoryApi.priceHistory(buildId, 1).subscribe({ next: (history) => this.priceHistory.set(history), error: () => this.priceHistory.set(null) });
       });
     });
     this.header.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => this.bump());

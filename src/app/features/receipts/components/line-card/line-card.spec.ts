@@ -3,8 +3,9 @@
 import { inputBinding, outputBinding } from '@angular/core';
 import { render, screen } from '@testing-library/angular/zoneless';
 import userEvent from '@testing-library/user-event';
+import type { PriceHistoryResponse } from '../../../../../../shared/api/price-history';
 import type { LineSuggestionDto } from '../../../../../../shared/api/suggestions';
-import { testLine, testPart, testSystem } from '../../../../../testing/build-fixtures';
+import { testLine, testPart, testPriceItem, testPricePaid, testSystem } from '../../../../../testing/build-fixtures';
 import { lineGroup, type LineAction, type LineField } from '../../models/line-form';
 import type { Assignment } from '../assign-picker/assign-picker';
 import { LineCard } from './line-card';
@@ -21,7 +22,13 @@ const pumpSuggestion: LineSuggestionDto = {
   reason: 'part number WP-880 is on the bill of materials',
 };
 
-async function renderCard(options: { editable: boolean; systemId?: string | null; partId?: string | null; warrantySuggestion?: 12 | 'lifetime' | null }) {
+async function renderCard(options: {
+  editable: boolean;
+  systemId?: string | null;
+  partId?: string | null;
+  warrantySuggestion?: 12 | 'lifetime' | null;
+  priceHistory?: PriceHistoryResponse | null;
+}) {
   const line = testLine('l-1', 0, 'Water pump, electric 12V', '178.00', options.systemId ?? null, {
     quantity: '2',
     unitPrice: '89.00',
@@ -45,6 +52,8 @@ async function renderCard(options: { editable: boolean; systemId?: string | null
       inputBinding('parts', () => parts),
       inputBinding('systems', () => systems),
       inputBinding('suggestions', () => [pumpSuggestion]),
+      inputBinding('receiptId', () => 'r-checking'),
+      inputBinding('priceHistory', () => options.priceHistory ?? null),
       outputBinding<Assignment>('assign', (value) => assigned.push(value)),
       outputBinding<LineField>('save', (value) => saved.push(value)),
       outputBinding<LineAction>('action', (value) => actions.push(value)),
@@ -61,6 +70,20 @@ describe('LineCard', () => {
     expect(screen.getByText('2 × $89.00')).toBeTruthy();
     expect(screen.getByText('Part no. WP-880')).toBeTruthy();
     expect(screen.queryByText(/warranty/)).toBeNull();
+  });
+
+  it('says how far the unit price is above the lowest the build paid on another receipt', async () => {
+    // 89.00 against 79.00 is 12.66 %: 13 %.
+    await renderCard({
+      editable: true,
+      priceHistory: { currency: 'USD', items: [testPriceItem('number:wp880', 'Water pump', [testPricePaid('r-old', 'Fernhill Auto Spares', '2026-03-03', '79.00')], 'WP 880')] },
+    });
+    expect(screen.getByText('13 % above the lowest this build paid: $79.00 at Fernhill Auto Spares, Mar 3, 2026')).toBeTruthy();
+  });
+
+  it('shows no price hint without a history', async () => {
+    await renderCard({ editable: true });
+    expect(screen.queryByText(/above the lowest/)).toBeNull();
   });
 
   it('says the warranty the line\'s words suggest for its part', async () => {

@@ -8,6 +8,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import type { PartDto, SystemDto } from '../../../../../../shared/api/parts';
+import type { PriceHistoryResponse } from '../../../../../../shared/api/price-history';
 import type { ReceiptLineDto } from '../../../../../../shared/api/receipts';
 import type { LineSuggestionDto } from '../../../../../../shared/api/suggestions';
 import { RECEIPT_LINE_KINDS, RECEIPT_LINE_KIND_LABELS } from '../../../../../../shared/enums';
@@ -16,11 +17,12 @@ import { moneyText } from '../../../../ui/money';
 import { LINE_FIELD_LABELS, LINE_TEXT_FIELDS, type LineAction, type LineField, type LineGroup } from '../../models/line-form';
 import { AssignPicker, type Assignment } from '../assign-picker/assign-picker';
 import { LineMenu } from '../line-menu/line-menu';
+import { PriceHint } from '../price-hint/price-hint';
 import { WarrantyHint } from '../warranty-hint/warranty-hint';
 
 @Component({
   selector: 'th-line-card',
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, AssignPicker, LineMenu, WarrantyHint],
+  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, AssignPicker, LineMenu, WarrantyHint, PriceHint],
   templateUrl: './line-card.html',
   styleUrl: './line-card.css',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -36,6 +38,9 @@ export class LineCard {
   readonly parts = input.required<readonly PartDto[]>();
   readonly systems = input.required<readonly SystemDto[]>();
   readonly suggestions = input<readonly LineSuggestionDto[]>([]);
+  readonly receiptId = input('');
+  /** Every price filed before, for the price hint; null until it arrives. */
+  readonly priceHistory = input<PriceHistoryResponse | null>(null);
   readonly problem = input('');
   readonly busy = input(false);
 
