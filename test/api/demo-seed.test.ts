@@ -14,6 +14,7 @@ import { DEMO_BUDGETS, DEMO_BUILD, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_REFUSED_MAIL
 import { MailRefusal } from '../../backend/src/inbox/mail-refusal.entity';
 import { seedDemo } from '../../backend/src/seed/seed-demo';
 import { ApiClient } from '../support/api-client';
+import { expectOneValuePerFigure } from '../support/same-figures';
 import { startTestApp, type TestApp } from '../support/test-app';
 
 jest.setTimeout(180_000);
@@ -155,4 +156,14 @@ it('stores every receipt document and page image the way an upload does, and fil
   const fileEvents = await em.count(AuditEvent, { build, entity: 'receipt', action: 'file' });
   expect(fileEvents).toBe(filed.length);
   await expect(t.store.get(`builds/${build.id}/receipts/no-such-receipt/original.png`)).rejects.toThrow();
+});
+
+it('says each named figure of the demo build the same on the ledger, Parts and Budgets, the build sheet, the lines and the core list', async () => {
+  const owner = DEMO_PEOPLE.find((person) => person.role === 'owner')!;
+  const client = await new ApiClient(t.app).init();
+  expect((await client.post('/api/auth/sign-in', { email: owner.email, password: DEMO_PASSWORD })).status).toBe(200);
+  const { ledger, cores } = await expectOneValuePerFigure(client, build.id, 2);
+  // The demo has money in every figure the agreement is checked on, so no check passes on zeros.
+  for (const figure of ['spent', 'netCost', 'planned', 'coreDepositsOutstanding'] as const) expect([figure, ledger.total[figure]]).not.toEqual([figure, '0.00']);
+  expect(cores.length).toBeGreaterThan(0);
 });
