@@ -145,9 +145,15 @@ export function compareWithBudget(basis: BudgetBasis, figure: string, budget: st
  * "forecast $45.48 over budget", "planned $120.00 under budget", "net cost at budget".
  */
 export function comparisonWords(comparison: BudgetComparison, formattedAmount: string): string {
-  if (comparison.noBudget) return 'no budget set';
-  if (toDecimal(comparison.amount).isZero()) return `${comparison.basis} at budget`;
-  return `${comparison.basis} ${formattedAmount} ${comparison.over ? 'over' : 'under'} budget`;
+  const { before, amount, after } = comparisonParts(comparison, formattedAmount);
+  return [before, amount, after].filter(Boolean).join(' ');
+}
+
+/** The same words in their three parts, for a screen that sets the amount apart from the words around it. */
+export function comparisonParts(comparison: BudgetComparison, formattedAmount: string): { before: string; amount: string; after: string } {
+  if (comparison.noBudget) return { before: 'no budget set', amount: '', after: '' };
+  if (toDecimal(comparison.amount).isZero()) return { before: `${comparison.basis} at budget`, amount: '', after: '' };
+  return { before: comparison.basis, amount: formattedAmount, after: `${comparison.over ? 'over' : 'under'} budget` };
 }
 
 /**

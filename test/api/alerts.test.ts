@@ -4,26 +4,23 @@ import { Core } from '../../backend/src/receipts/core.entity';
 import { Part } from '../../backend/src/parts/part.entity';
 import { Receipt } from '../../backend/src/receipts/receipt.entity';
 import { sendDueAlerts, type AlertDeps } from '../../backend/src/alerts/alerts.service';
-import { loadConfig } from '../../backend/src/config';
-import { createMailer, type Mailer } from '../../backend/src/mail/mailer';
 import type { CaughtMail } from '../../backend/src/mail/fake-mail-server';
 import { ApiClient, NEW_BUILD, signedUpClient } from '../support/api-client';
 import { filedReceipt, uploadSlip } from '../support/receipts';
+import { alertDepsFor } from '../support/alert-deps';
 import { startTestApp, type TestApp } from '../support/test-app';
 
 jest.setTimeout(90_000);
 let t: TestApp;
-let mailer: Mailer;
 let deps: AlertDeps;
+let closeMailer: () => void;
 
 beforeAll(async () => {
   t = await startTestApp();
-  mailer = createMailer({ ...loadConfig().smtp, port: t.mail.smtpPort });
-  const base = loadConfig({ ...process.env, PGDATABASE: process.env.PGDATABASE ?? 'tallyhood_test' });
-  deps = { orm: t.orm, mailer, config: { ...base, appUrl: t.url } };
+  ({ deps, close: closeMailer } = alertDepsFor(t));
 });
 afterAll(async () => {
-  mailer.close();
+  closeMailer();
   await t.close();
 });
 

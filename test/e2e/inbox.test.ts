@@ -2,12 +2,13 @@
 // many shops send them) is mailed to it through the fake SMTP server, and it shows up in the receipts list with its
 // lines read from the body; the builder assigns and files it.
 import nodemailer from 'nodemailer';
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { startReadingWorker } from '../../backend/src/jobs/worker';
 import { readWithPageImages } from '../../backend/src/receipts/read-with-pages';
 import { closeReaders } from '../../backend/src/receipts/reading/read-document';
 import { NEW_BUILD, signedUpClient } from '../support/api-client';
 import { accessibilityViolations, launchBrowser, newPage, screenshot, signIn } from '../support/browser';
+import { assignSystem } from '../support/check-screen';
 import { startTestApp, type TestApp } from '../support/test-app';
 
 jest.setTimeout(240_000);
@@ -45,15 +46,6 @@ afterAll(async () => {
   await t?.close();
   await closeReaders();
 });
-
-async function assignSystem(page: Page, lineNumber: number, system: string) {
-  const saved = page.waitForResponse((response) => response.request().method() === 'PATCH' && response.url().includes('/lines/'));
-  const field = page.getByRole('combobox', { name: `Assign line ${lineNumber}: type a part, a part number or a system` });
-  await field.click();
-  await field.fill(system);
-  await page.getByRole('group', { name: 'A system only' }).getByRole('option', { name: system, exact: true }).click();
-  expect((await saved).status()).toBe(200);
-}
 
 it('turns a mailed order confirmation into a receipt the builder checks and files', async () => {
   const owner = await signedUpClient(t.app, 'e2e-inbox');

@@ -1,12 +1,13 @@
 // In Debian's chromium: the owner photographs a receipt (a generated slip with a core charge), watches it being read,
 // assigns its lines to systems on the check screen, files it, sees it Filed in the list, and records the core handed in.
 import path from 'node:path';
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { startReadingWorker } from '../../backend/src/jobs/worker';
 import { readWithPageImages } from '../../backend/src/receipts/read-with-pages';
 import { closeReaders } from '../../backend/src/receipts/reading/read-document';
 import { NEW_BUILD, signedUpClient } from '../support/api-client';
 import { accessibilityViolations, isFocused, launchBrowser, newPage, screenshot, signIn } from '../support/browser';
+import { assignSystem } from '../support/check-screen';
 import { startTestApp, type TestApp } from '../support/test-app';
 
 jest.setTimeout(240_000);
@@ -27,16 +28,6 @@ afterAll(async () => {
   await t?.close();
   await closeReaders();
 });
-
-async function assignSystem(page: Page, lineNumber: number, system: string) {
-  const saved = page.waitForResponse((response) => response.request().method() === 'PATCH' && response.url().includes('/lines/'));
-  // One assign field per line: typing the system's name narrows the list to it under "A system only".
-  const field = page.getByRole('combobox', { name: `Assign line ${lineNumber}: type a part, a part number or a system` });
-  await field.click();
-  await field.fill(system);
-  await page.getByRole('group', { name: 'A system only' }).getByRole('option', { name: system, exact: true }).click();
-  expect((await saved).status()).toBe(200);
-}
 
 it('reads an uploaded slip, checks and files it, and tracks its core deposit', async () => {
   const owner = await signedUpClient(t.app, 'e2e-receipts');

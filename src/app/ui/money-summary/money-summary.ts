@@ -3,7 +3,7 @@
 import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import { LEDGER_LINE_FIGURES, type LedgerDto, type LedgerLineFigure } from '../../../../shared/api/ledger';
-import { FIGURE_WORDS, compareWithBudget, comparisonWords, type BudgetComparison, type FigureName } from '../../../../shared/build-figures';
+import { FIGURE_WORDS, compareWithBudget, comparisonParts, type BudgetComparison, type FigureName } from '../../../../shared/build-figures';
 import { toDecimal } from '../../../../shared/money';
 import { moneyText } from '../money';
 
@@ -66,16 +66,9 @@ export class MoneySummary {
         const compared = name === 'variance' ? total.forecast : total.planned;
         const comparison = compareWithBudget(basis, compared, total.budget);
         figure.comparison = comparison;
-        const amount = money(comparison.amount);
-        const words = comparisonWords(comparison, amount);
-        const at = words.indexOf(amount);
-        if (at >= 0) {
-          figure.before = words.slice(0, at).trim();
-          figure.text = amount;
-          figure.after = words.slice(at + amount.length).trim();
-        } else {
-          figure.text = words;
-        }
+        const { before, amount, after } = comparisonParts(comparison, money(comparison.amount));
+        if (amount) Object.assign(figure, { before, text: amount, after });
+        else figure.text = before;
         figure.hint = comparison.noBudget
           ? 'Set the systems’ budgets to compare.'
           : `${FIGURE_WORDS[name === 'variance' ? 'forecast' : 'planned'].label} ${money(compared)} against a budget of ${money(total.budget)}.`;
