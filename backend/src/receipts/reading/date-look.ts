@@ -12,8 +12,20 @@ import type { OcrPool } from './ocr';
 import { DATE_WORDS, chooseReceiptDate } from './receipt-date';
 import { type TextLine, lineText, unionBox } from './text-lines';
 
-/** The sizes the date lines are read at, in turn: larger first (faint small digits), then a little smaller. */
+/** The sizes a band of lines around a date is read at, in turn: larger first (faint small digits), then a little smaller. */
 export const DATE_SCALES = [2, 0.875];
+
+/**
+ * The looks taken at a date line, in turn: as part of a block at the band's two sizes, then as one line (tesseract's
+ * single-line mode) larger and between. Measured on the real scans, each way reads dates the others misread: at the
+ * slip's own size OCR merges a 7 with the slash after it, and the single-line mode keeps faint separators.
+ */
+const DATE_LOOKS: Array<{ scale: number; layout: 'block' | 'line' }> = [
+  { scale: 2, layout: 'block' },
+  { scale: 0.875, layout: 'block' },
+  { scale: 2, layout: 'line' },
+  { scale: 1.5, layout: 'line' },
+];
 /** Below this OCR confidence a date's digits are worth a second look (measured on real scans: 0.7). */
 const UNSURE_DATE = 0.7;
 /** At most this many lines are read again: a receipt prints its date on one or two. */
@@ -41,8 +53,9 @@ function dateOf(lines: TextLine[], texts: Map<number, string>, locale: string, l
 function dateConfidence(line: TextLine, value: string, locale: string, limits: DateLimits): number | null {
   const found = findDates(lineText(line), locale, limits).find((date) => date.value === value);
   if (!found) return null;
+  // A date read as a guess (separators lost, a year mended) counts as unsure, however clear its words.
+  let lowest = found.confidence < 0.45 ? found.confidence : 1;
   let start = 0;
-  let lowest = 1;
   for (const word of line.words) {
     const end = start + word.text.length;
     if (end > found.start && start < found.end) lowest = Math.min(lowest, word.confidence);
@@ -56,7 +69,7 @@ function dateConfidence(line: TextLine, value: string, locale: string, limits: D
  * of some rows' heights at either side (wider for a band: the first reading's boxes of a garbled line need not cover
  * its print).
  */
-async function rereadLines(pool: OcrPool, image: NormalisedImage, lines: TextLine[], scale: number, sideRows: number): Promise<string> {
+async function rereadLines(pool: OcrPool, image: NormalisedImage, lines: TextLine[], scale: number, sideRows: number, layout: 'block' | 'line' = 'block'): Promise<string> {
   const box = unionBox(lines.map((line) => line.box));
   const rowHeight = Math.max(...lines.map((line) => line.box.h));
   const margin = Math.round(rowHeight * 0.6);
@@ -70,7 +83,7 @@ async function rereadLines(pool: OcrPool, image: NormalisedImage, lines: TextLin
     .resize({ width: Math.round(width * scale), kernel: 'lanczos3' })
     .png({ compressionLevel: 1 })
     .toBuffer();
-  return (await pool.read(band, 0)).lines.map(lineText).join(' ');
+  return (await pool.read(band, 0, layout)).lines.map(lineText).join(' ');
 }
 
 /** A line with the lines just above and below it, those printed within three rows of it. */
@@ -88,8 +101,8 @@ export interface DateLook {
 
 /**
  * The date after a second look, or the first reading's when that was sure. With no date at first, the first real
- * date another size gives is taken, a little less sure; an unsure first date is replaced only when two further
- * readings agree on another, and confirmed when one agrees with it.
+ * date another look gives is taken, a little less sure; an unsure first date is replaced only when at least two
+ * looks agree on another and outnumber those that read the first, and confirmed when one agrees with it.
  */
 export async function lookAgainAtDate(pool: OcrPool, image: NormalisedImage, lines: TextLine[], first: ReadField<string>, locale: string, limits: DateLimits): Promise<DateLook> {
   let targets: number[];
@@ -106,18 +119,23 @@ export async function lookAgainAtDate(pool: OcrPool, image: NormalisedImage, lin
     targets = [...new Set([...worded, ...like])].slice(0, MOST_LINES);
     if (targets.length === 0) return { date: first, reread: 0 };
   }
-  const readings: Array<string | null> = [];
-  for (const scale of DATE_SCALES) {
+  const readings: string[] = [];
+  for (const { scale, layout } of DATE_LOOKS) {
     const texts = new Map<number, string>();
-    for (const index of targets) texts.set(index, await rereadLines(pool, image, [lines[index]], scale, 2));
+    for (const index of targets) texts.set(index, await rereadLines(pool, image, [lines[index]], scale, 2, layout));
     const value = dateOf(lines, texts, locale, limits);
     if (first.value === null && value !== null) return { date: { value, confidence: 0.6 }, reread: targets.length };
-    if (first.value !== null && value === first.value) return { date: { value, confidence: Math.max(first.confidence, 0.8) }, reread: targets.length };
-    readings.push(value);
+    if (value !== null) readings.push(value);
   }
-  // Two further readings agreeing on another real date outvote the unsure first one.
-  if (first.value !== null && readings.length === 2 && readings[0] !== null && readings[0] === readings[1]) {
-    return { date: { value: readings[0], confidence: 0.6 }, reread: targets.length };
+  if (first.value !== null) {
+    // Every look votes. Another real date that at least two looks read, and more of them than read the first one,
+    // outvotes the unsure first reading; a look that agrees with it confirms it.
+    const votes = (value: string) => readings.filter((reading) => reading === value).length;
+    const best = [...new Set(readings)].sort((a, b) => votes(b) - votes(a))[0];
+    if (best !== undefined && best !== first.value && votes(best) >= 2 && votes(best) > votes(first.value)) {
+      return { date: { value: best, confidence: 0.6 }, reread: targets.length };
+    }
+    if (votes(first.value) > 0) return { date: { value: first.value, confidence: Math.max(first.confidence, 0.8) }, reread: targets.length };
   }
   if (first.value === null) {
     // Still no date: it may be on a line beside the one that looks like it (a time printed under a date line OCR

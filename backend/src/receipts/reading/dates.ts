@@ -138,6 +138,28 @@ function numericCandidates(text: string, locale: string): Candidate[] {
   return found;
 }
 
+/**
+ * Eight digits whose separators OCR lost ("27032018" for 27/03/2018): read in the locale's order, or year first
+ * (20180327), and much less sure than a printed date, so any date printed plainly wins.
+ */
+function runTogetherCandidates(text: string, locale: string): Candidate[] {
+  const found: Candidate[] = [];
+  const order = numericOrder(locale);
+  for (const match of text.matchAll(/(?<![0-9A-Za-z])([0-9]{8})(?![0-9A-Za-z])/g)) {
+    const digits = match[1];
+    const [a, b] = [Number(digits.slice(0, 2)), Number(digits.slice(2, 4))];
+    const yearLast = Number(digits.slice(4));
+    const value =
+      /^(19|20)/.test(digits) && order === 'ymd'
+        ? iso(Number(digits.slice(0, 4)), Number(digits.slice(4, 6)), Number(digits.slice(6)))
+        : /^(19|20)/.test(digits.slice(4))
+          ? order === 'mdy' ? iso(yearLast, a, b) : iso(yearLast, b, a)
+          : /^(19|20)/.test(digits) ? iso(Number(digits.slice(0, 4)), Number(digits.slice(4, 6)), Number(digits.slice(6))) : null;
+    if (value) found.push({ value, confidence: 0.4, note: null, index: match.index ?? 0, length: digits.length });
+  }
+  return found;
+}
+
 function foldAccents(text: string): string {
   return text.normalize('NFD').replace(/\p{M}/gu, '');
 }
@@ -182,11 +204,43 @@ export function addDays(isoDate: string, days: number): string {
   return date.toISOString().slice(0, 10);
 }
 
-/** Every date in a piece of text, in reading order; dates outside the limits (OCR's 2048 for 2018) are refused. */
+/**
+ * A date whose year cannot be (OCR's 2518 for 2018) with its year mended, when exactly one digit changed gives a year
+ * within the limits: OCR misreads one digit far more often than two. Null when none or several would do.
+ */
+function mendedYear(candidate: Candidate, within: (value: string) => boolean): Candidate | null {
+  const [year, month, day] = candidate.value.split('-');
+  const mended = new Set<string>();
+  for (let position = 0; position < 4; position += 1) {
+    for (let digit = 0; digit <= 9; digit += 1) {
+      const other = `${year.slice(0, position)}${digit}${year.slice(position + 1)}`;
+      const value = other === year ? null : iso(Number(other), Number(month), Number(day));
+      if (value && within(value)) mended.add(value);
+    }
+  }
+  if (mended.size !== 1) return null;
+  const [value] = mended;
+  return {
+    ...candidate,
+    value,
+    confidence: Math.min(candidate.confidence, 0.4),
+    note: `The year of the date printed reads as ${year}, which cannot be; read as ${describe(value)}. Check it against the receipt.`,
+  };
+}
+
+/**
+ * Every date in a piece of text, in reading order; a date outside the limits (OCR's 2048 for 2018) is refused unless
+ * one digit of its year mends it.
+ */
 export function findDates(text: string, locale: string, limits: DateLimits = {}): ReadDate[] {
   const latest = limits.notAfter ? addDays(limits.notAfter, 1) : null;
-  const candidates = [...wordCandidates(text), ...numericCandidates(text, locale)]
-    .filter((candidate) => (latest === null || candidate.value <= latest) && (limits.notBefore === undefined || candidate.value >= limits.notBefore))
+  const within = (value: string) => (latest === null || value <= latest) && (limits.notBefore === undefined || value >= limits.notBefore);
+  const candidates = [...wordCandidates(text), ...numericCandidates(text, locale), ...runTogetherCandidates(text, locale)]
+    .flatMap((candidate) => {
+      if (within(candidate.value)) return [candidate];
+      const mended = mendedYear(candidate, within);
+      return mended ? [mended] : [];
+    })
     .sort((a, b) => a.index - b.index);
   // A month-word match and a numeric one can overlap ("14-Nov-26" is not numeric, but be safe): keep the first.
   const kept: Candidate[] = [];

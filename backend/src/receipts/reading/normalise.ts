@@ -90,13 +90,15 @@ async function decodeAndPrepare(bytes: Buffer, type: ReceiptFileType, options: {
   const targetWidth = Math.min(MAX_WIDTH, Math.round(crop.width * scale));
   let pipeline = sharp(grey.data, raw).extract(crop);
   if (Math.abs(targetWidth - crop.width) > 4) pipeline = pipeline.resize({ width: targetWidth, kernel: targetWidth > crop.width ? 'lanczos3' : 'lanczos2' });
-  // A crooked slip is turned straight from the slant of its print rows (paper.ts), after enlarging so the turn blurs
-  // the letters less: cheaper than tesseract's rotateAuto, which spends a whole layout pass finding the angle.
-  if (Math.abs(layout.skewDegrees) >= MIN_SKEW_DEGREES) pipeline = (await settled(pipeline)).rotate(-layout.skewDegrees, { background: '#ffffff' });
   // Uneven light: local contrast first, so a shadow across the slip does not swallow its print. It costs about a
   // second of CPU on a slip, so an evenly lit one (most scans, with or without a dark border) is only stretched.
   if (layout.unevenLight) pipeline = pipeline.clahe({ width: 64, height: 64, maxSlope: 3 });
+  // Stretched before any turn: the white corners a turn adds would count as the paper's brightest tone and leave grey
+  // paper grey, which tesseract's own threshold then takes for ink (a whole slip read as nothing).
   pipeline = stretched(await pipeline.raw().toBuffer({ resolveWithObject: true }));
+  // A crooked slip is turned straight from the slant of its print rows (paper.ts), after enlarging so the turn blurs
+  // the letters less: cheaper than tesseract's rotateAuto, which spends a whole layout pass finding the angle.
+  if (Math.abs(layout.skewDegrees) >= MIN_SKEW_DEGREES) pipeline = (await settled(pipeline)).rotate(-layout.skewDegrees, { background: '#ffffff' });
   pipeline = pipeline.toColourspace('b-w');
   const { data, info } = await pipeline.png({ compressionLevel: 1 }).toBuffer({ resolveWithObject: true });
   return { png: data, width: info.width, height: info.height };

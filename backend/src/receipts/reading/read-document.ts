@@ -124,7 +124,9 @@ async function readFigures(pool: OcrPool, image: NormalisedImage, lines: TextPag
     const reread = await rereadSummaryBand(pool, image, lines, !linesAddUp(reading), scale);
     if (!reread) break;
     const second = parseReceipt([page(reread)], parseOptions);
-    if (secondLookBetter(reading, second)) return second;
+    // The band was read again for its figures: the date and the shop's name stay as the first reading found them,
+    // unless it found none (a band may cut through a date line and misread it).
+    if (secondLookBetter(reading, second)) return { ...second, date: reading.date.value !== null ? reading.date : second.date, vendor: reading.vendor.value !== null ? reading.vendor : second.vendor };
   }
   return reading;
 }

@@ -243,10 +243,32 @@ describe('amounts as printed around the world', () => {
 describe('dates that can be true', () => {
   it('refuses years after the upload day and long before it, as OCR misreads of the year', () => {
     const limits = { notAfter: '2026-06-30', notBefore: '2001-06-30' };
+    // 2048: one digit changed gives 2008 or 2018, both possible, so neither is guessed.
     expect(findDates('25/12/2048', 'en-GB', limits)).toEqual([]);
-    expect(findDates('25/12/2625', 'en-GB', limits)).toEqual([]);
+    // 1925: no single digit changed gives a year within the limits.
     expect(findDates('25/12/1925', 'en-GB', limits)).toEqual([]);
     expect(findDates('25/12/2025', 'en-GB', limits).map((date) => date.value)).toEqual(['2025-12-25']);
+  });
+
+  it('mends an impossible year when exactly one changed digit makes it possible, unsure and with a note', () => {
+    const limits = { notAfter: '2026-06-30', notBefore: '2001-06-30' };
+    const [mended] = findDates('12/03/2518 13:07', 'en-MY', limits);
+    expect(mended.value).toBe('2018-03-12');
+    expect(mended.confidence).toBeLessThan(0.45);
+    expect(mended.note).toBe('The year of the date printed reads as 2518, which cannot be; read as 12 March 2018. Check it against the receipt.');
+    expect(findDates('25/12/2625', 'en-GB', limits).map((date) => date.value)).toEqual(['2025-12-25']);
+  });
+
+  it('reads eight digits whose separators OCR lost in the locale order or year first, less sure than a printed date', () => {
+    expect(findDates('27032018 No.:CS-20242', 'en-MY').map((date) => [date.value, date.confidence])).toEqual([['2018-03-27', 0.4]]);
+    expect(findDates('03272018', 'en-US').map((date) => date.value)).toEqual(['2018-03-27']);
+    expect(findDates('20180327', 'en-GB').map((date) => date.value)).toEqual(['2018-03-27']);
+    // Not a calendar day in any order, or part of a longer number: no date.
+    expect(findDates('45032018', 'en-GB')).toEqual([]);
+    expect(findDates('000364929024 1270320181', 'en-GB')).toEqual([]);
+    // A date printed plainly on the slip wins over run-together digits.
+    const receipt = read(['KEDAI SETIA', 'DOC 26032018', 'TARIKH: 27/03/2018 10:02', 'TOTAL 5.00'], 'en-MY');
+    expect(receipt.date.value).toBe('2018-03-27');
   });
 
   it('takes the issue date beside its word over a later expiry date, and refuses an impossible year on the slip', () => {
