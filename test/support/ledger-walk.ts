@@ -12,9 +12,10 @@ export type WalkAction = (typeof WALK_ACTIONS)[number];
 
 export interface WalkResult {
   steps: number;
-  /** Steps the app carried out (2xx), by action; a step with nothing to act on, or refused, counts under none. */
+  /** Steps the app carried out (2xx), by action; a step with nothing to act on counts in neither. */
   applied: Record<WalkAction, number>;
-  refused: number;
+  /** Steps the app refused (4xx: a stale version, a part already fitted), by action and status. */
+  refused: Record<string, number>;
 }
 
 interface LineDto {
@@ -37,7 +38,7 @@ export async function walkLedger(send: Send, buildId: string, options: { steps: 
   const receiptsIn = async (state: string) => (await get(`/receipts?state=${state}`)).receipts as { id: string }[];
   const receipt = async (id: string) => (await get(`/receipts/${id}`)) as { id: string; version: number; lines: LineDto[] };
 
-  const result: WalkResult = { steps: options.steps, applied: Object.fromEntries(WALK_ACTIONS.map((a) => [a, 0])) as Record<WalkAction, number>, refused: 0 };
+  const result: WalkResult = { steps: options.steps, applied: Object.fromEntries(WALK_ACTIONS.map((a) => [a, 0])) as Record<WalkAction, number>, refused: {} };
   for (let step = 0; step < options.steps; step += 1) {
     const action = pick(WALK_ACTIONS)!;
     let answer: { status: number } | undefined;
@@ -79,7 +80,7 @@ export async function walkLedger(send: Send, buildId: string, options: { steps: 
     }
     if (answer && answer.status >= 500) throw new Error(`step ${step} (${action}) answered ${answer.status}`);
     if (answer && answer.status < 300) result.applied[action] += 1;
-    else if (answer) result.refused += 1;
+    else if (answer) result.refused[`${action} ${answer.status}`] = (result.refused[`${action} ${answer.status}`] ?? 0) + 1;
   }
   return result;
 }
