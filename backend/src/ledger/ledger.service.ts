@@ -1,5 +1,6 @@
-// The ledger: budget, estimate and money spent per system, aggregated in SQL; rounding and the forecast through
-// the shared money module, so the systems always add up to the build total to the cent.
+// The ledger: budget, estimate and money spent per system, from the parts and the running totals of the filed lines
+// (ledger-totals.ts); rounding and the forecast through the shared money module, so the systems always add up to the
+// build total to the cent.
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { OVERRUN_MIN_SAMPLE, type LedgerDto } from '../../../shared/api/ledger';
 import { addSystemFigures, budgetWithContingency, systemFigures } from '../../../shared/build-figures';
