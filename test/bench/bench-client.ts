@@ -11,14 +11,12 @@ export class BenchClient {
     private readonly clientAddress?: string,
   ) {}
 
-  request(method: 'GET' | 'POST', url: string, body?: unknown): Promise<{ status: number; text: string }> {
+  request(method: 'GET' | 'POST' | 'PATCH' | 'DELETE', url: string, body?: unknown): Promise<{ status: number; text: string }> {
     const payload = body === undefined ? undefined : JSON.stringify(body);
     const headers: Record<string, string> = { cookie: [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ') };
     if (this.clientAddress) headers['x-forwarded-for'] = this.clientAddress;
-    if (payload !== undefined) {
-      headers['content-type'] = 'application/json';
-      headers['x-xsrf-token'] = decodeURIComponent(this.cookies.get('XSRF-TOKEN') ?? '');
-    }
+    if (payload !== undefined) headers['content-type'] = 'application/json';
+    if (method !== 'GET') headers['x-xsrf-token'] = decodeURIComponent(this.cookies.get('XSRF-TOKEN') ?? '');
     return new Promise((resolve, reject) => {
       const req = http.request({ host: '127.0.0.1', port: this.port, path: url, method, headers, agent: this.agent }, (res) => {
         for (const cookie of res.headers['set-cookie'] ?? []) {

@@ -1,7 +1,10 @@
-// Ledger and export figures on large builds seeded here: the ledger's p50/p95 beside the bare SQL aggregate, and
-// the tax-ledger export's rows per second and peak memory. Runs against its own throw-away database.
+// Ledger and export figures on large builds seeded here: the ledger's p50/p95 beside the bare SQL aggregate, what a
+// write pays to bring the running totals up to date, the tax-ledger export's rows per second and peak memory, and a
+// seeded random walk of changes through the API after which the running totals must equal a fresh aggregate.
+// Runs against throw-away databases of its own.
 import { runSection } from './print-figures';
 import { MikroORM } from '@mikro-orm/postgresql';
+import http from 'node:http';
 import { Writable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import { User } from '../../backend/src/auth/user.entity';
@@ -11,10 +14,18 @@ import { loadConfig } from '../../backend/src/config';
 import { ormConfig } from '../../backend/src/db/mikro-orm.config';
 import { taxLedgerCsv } from '../../backend/src/exports/tax-ledger';
 import { buildLedger } from '../../backend/src/ledger/ledger.service';
+import { refreshLedgerTotals, totalsBesideFreshAggregate } from '../../backend/src/ledger/ledger-totals';
+import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../backend/src/seed/demo-scenario';
+import { walkLedger } from '../support/ledger-walk';
+import { BenchClient } from './bench-client';
 import { recreateDatabase } from './bench-db';
 import { percentile } from './percentile';
+import { withDemoApp } from './seeded-demo';
 
 const BENCH_DB = 'tallyhood_bench';
+const WALK_DB = 'tallyhood_bench_walk';
+const WALK_STEPS = 200;
+const WALK_SEED = 20261203;
 
 /** Receipts of 10 lines each, spread over the build's systems, filed, with cents that vary. */
 async function seedLines(orm: MikroORM, build: Build, userId: string, lineCount: number, options: { analyse: boolean } = { analyse: true }) {
@@ -35,6 +46,52 @@ async function seedLines(orm: MikroORM, build: Build, userId: string, lineCount:
     [build.id],
   );
   if (options.analyse) await connection.execute('analyze');
+}
+
+/**
+ * The lines were written by SQL, outside a request: the triggers marked the build, and its running totals are brought up
+ * to date with the function a writing request runs before it commits. Answers the milliseconds that took: what one
+ * write pays at this size.
+ */
+async function refreshTotals(orm: MikroORM, build: Build): Promise<number> {
+  const started = performance.now();
+  await orm.em.fork().transactional((tx) => refreshLedgerTotals(tx, build.id));
+  return performance.now() - started;
+}
+
+/** A seeded random walk of changes through the API on the demo build; the running totals must equal a fresh aggregate. */
+async function walkDemoBuild(): Promise<Record<string, string | number>> {
+  return withDemoApp(WALK_DB, async ({ port, build, orm }) => {
+    const agent = new http.Agent({ keepAlive: true });
+    try {
+      const client = new BenchClient(port, agent);
+      const owner = DEMO_PEOPLE.find((person) => person.role === 'owner')!;
+      await client.request('GET', '/api/auth/me');
+      const signIn = await client.request('POST', '/api/auth/sign-in', { email: owner.email, password: DEMO_PASSWORD });
+      if (signIn.status !== 200) throw new Error(`sign-in answered ${signIn.status}: ${signIn.text}`);
+      const walk = await walkLedger(
+        async (method, url, body) => {
+          const res = await client.request(method.toUpperCase() as 'GET', url, body);
+          return { status: res.status, body: res.text ? JSON.parse(res.text) : undefined };
+        },
+        build.id,
+        { steps: WALK_STEPS, seed: WALK_SEED },
+      );
+      const { stored, fresh } = await totalsBesideFreshAggregate(orm.em.fork(), build.id);
+      const equal = stored.length > 0 && JSON.stringify(stored) === JSON.stringify(fresh);
+      if (!equal) {
+        console.error('stored totals:', stored, '\nfresh aggregate:', fresh);
+        throw new Error(`running totals differ from a fresh aggregate after ${WALK_STEPS} steps of the random walk`);
+      }
+      return {
+        'running totals equal fresh aggregate': `yes (${WALK_STEPS} steps)`,
+        'random walk: changes made, by kind': Object.entries(walk.applied).map(([action, count]) => `${action} ${count}`).join(', '),
+        'random walk: refused, by kind and status': Object.entries(walk.refused).map(([what, count]) => `${what}: ${count}`).join(', ') || 'none',
+      };
+    } finally {
+      agent.destroy();
+    }
+  });
 }
 
 async function time(fn: () => Promise<unknown>, runs: number): Promise<number[]> {
@@ -58,11 +115,12 @@ export async function benchLedger(): Promise<Record<string, string | number>> {
     const em = orm.em.fork();
     const user = em.create(User, { email: 'bench@example.test', displayName: 'Bench', passwordHash: 'x' });
     await em.flush();
-    for (const lines of [20_000, 200_000]) {
+    for (const lines of [2_000, 20_000, 200_000]) {
       const build = await createBuild(em, user, { name: `Bench ${lines}`, vehicle: '', currency: 'USD', locale: 'en-US', status: 'active' });
       const seeded = performance.now();
       await seedLines(orm, build, user.id, lines);
       figures[`ledger ${lines} lines: seed s`] = ((performance.now() - seeded) / 1000).toFixed(1);
+      figures[`ledger ${lines} lines: totals recompute ms`] = (await refreshTotals(orm, build)).toFixed(1);
       const bareSql = `select system_id, sum(amount + allocated_tax + allocated_shipping - allocated_discount) from receipt_line where build_id = ? group by system_id`;
       const bare = await time(() => orm.em.getConnection().execute(bareSql, [build.id]), 20);
       const ledger = await time(() => buildLedger(orm.em.fork(), build), 20);
@@ -81,6 +139,7 @@ export async function benchLedger(): Promise<Record<string, string | number>> {
          from receipt_line, generate_series(1, 800) as n where build_id = ?`,
       [single.id],
     );
+    figures['ledger 1 receipt 8010 lines: totals recompute ms'] = (await refreshTotals(orm, single)).toFixed(1);
     const one = await time(() => buildLedger(orm.em.fork(), single), 5);
     figures['ledger 1 receipt 8010 lines: p50 ms'] = percentile(one, 50).toFixed(1);
     // The export of 100,000 lines: the first 10,000 receipts of the large build.
@@ -108,7 +167,7 @@ export async function benchLedger(): Promise<Record<string, string | number>> {
   } finally {
     await orm.close(true);
   }
-  return figures;
+  return { ...figures, ...(await walkDemoBuild()) };
 }
 
 if (require.main === module) runSection(benchLedger);

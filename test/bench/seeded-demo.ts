@@ -53,7 +53,7 @@ export async function withSeededDemo<T>(dbName: string, work: (demo: SeededDemo)
  * Runs `work` with the app listening on a loopback port in this process, on a fresh database holding the demo build,
  * with a fake mail server to take what it sends. No job runs: the seed reads its receipts itself.
  */
-export async function withDemoApp<T>(dbName: string, work: (app: { port: number; build: Build; mail: FakeMailServer }) => Promise<T>): Promise<T> {
+export async function withDemoApp<T>(dbName: string, work: (app: { port: number; build: Build; mail: FakeMailServer; orm: MikroORM }) => Promise<T>): Promise<T> {
   return withSeededDemo(dbName, async ({ orm, store, config, build }) => {
     const mail = await startFakeMailServer({ quiet: true });
     const mailer = createMailer({ ...config.smtp, port: mail.smtpPort });
@@ -64,7 +64,7 @@ export async function withDemoApp<T>(dbName: string, work: (app: { port: number;
       server = await new Promise<http.Server>((resolve) => {
         const listening = running.app.listen(0, '127.0.0.1', () => resolve(listening));
       });
-      return await work({ port: (server.address() as AddressInfo).port, build, mail });
+      return await work({ port: (server.address() as AddressInfo).port, build, mail, orm });
     } finally {
       if (server) await new Promise((resolve) => server!.close(resolve));
       await running.close();

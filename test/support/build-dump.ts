@@ -2,14 +2,14 @@
 // (nor the accounts and invites around it) changed, down to versions and timestamps.
 import type { MikroORM } from '@mikro-orm/postgresql';
 
-const BUILD_TABLES = ['vehicle_system', 'part', 'vendor', 'receipt', 'receipt_line', 'core', 'audit_event', 'comment', 'not_duplicate', 'invite', 'membership', 'alert_sent'];
+const BUILD_TABLES = ['vehicle_system', 'part', 'vendor', 'receipt', 'receipt_line', 'core', 'audit_event', 'comment', 'not_duplicate', 'invite', 'membership', 'alert_sent', 'ledger_system_total', 'ledger_part_total', 'ledger_stale'];
 
 export async function dumpBuild(orm: MikroORM, buildId: string): Promise<string> {
   const connection = orm.em.fork().getConnection();
   const dump: Record<string, unknown> = {};
   [dump.build] = await connection.execute(`select row_to_json(b)::text as row from build b where id = ?`, [buildId]);
   for (const table of BUILD_TABLES) {
-    dump[table] = await connection.execute(`select row_to_json(t)::text as row from "${table}" t where build_id = ? order by id`, [buildId]);
+    dump[table] = await connection.execute(`select row_to_json(t)::text as row from "${table}" t where build_id = ? order by 1`, [buildId]);
   }
   dump.app_user = await connection.execute(
     `select row_to_json(u)::text as row from app_user u where id in (select user_id from membership where build_id = ?) order by id`,

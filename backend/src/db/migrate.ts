@@ -1,5 +1,6 @@
 // Applies pending migrations from migrations/ (run by npm start and npm test before anything else).
 import { MikroORM } from '@mikro-orm/postgresql';
+import { refreshAllStaleLedgerTotals } from '../ledger/ledger-totals';
 import { ormConfig } from './mikro-orm.config';
 
 async function main() {
@@ -7,6 +8,9 @@ async function main() {
   try {
     const applied = await orm.getMigrator().up();
     console.log(applied.length ? `Applied ${applied.length} migration(s): ${applied.map((m) => m.name).join(', ')}` : 'Database is up to date.');
+    // The ledger's running totals of builds a migration (or a writer outside a request) left marked stale.
+    const refreshed = await refreshAllStaleLedgerTotals(orm.em.fork());
+    if (refreshed) console.log(`Ledger totals recomputed for ${refreshed} build(s).`);
   } finally {
     await orm.close(true);
   }

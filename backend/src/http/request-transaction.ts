@@ -8,6 +8,7 @@
 import { RequestContext } from '@mikro-orm/core';
 import type { EntityManager, MikroORM } from '@mikro-orm/postgresql';
 import type { RequestHandler, Response } from 'express';
+import { refreshMarkedLedgerTotals } from '../ledger/ledger-totals';
 
 const READING_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
@@ -67,7 +68,8 @@ function holdAnswerUntilSettled(res: Response, em: EntityManager, waiting: After
     if (settled) return end(...args);
     settled = true;
     const refused = res.statusCode >= 400 || abandoned;
-    const settle = refused ? em.rollback() : em.commit(); // commit flushes first
+    // The ledger's running totals are brought up to date last, in the same transaction, after every change is flushed.
+    const settle = refused ? em.rollback() : em.flush().then(() => refreshMarkedLedgerTotals(em)).then(() => em.commit());
     settle.then(
       () => {
         end(...args);

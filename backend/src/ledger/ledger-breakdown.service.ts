@@ -14,7 +14,7 @@ import type { ReceiptLineKind } from '../../../shared/enums';
 import { minorUnits, roundHalfUp, sum, toDecimal, toWire } from '../../../shared/money';
 import type { Build } from '../builds/build.entity';
 import { NotFound } from '../http/errors';
-import { FIGURE_FILTER, filedLines, LINE_TOTAL } from './ledger.service';
+import { FIGURE_FILTER, filedLines, LINE_TOTAL } from './figure-lines';
 
 /** The label of a purchase's period: a month 2026-07 or an ISO 8601 week 2026-W27 (the week's Thursday decides its year). */
 const PERIOD_LABEL: Record<SpendPeriod, string> = {

@@ -1,11 +1,13 @@
-// The ledger: budget, estimate and money spent per system, aggregated in SQL; rounding and the forecast through
-// the shared money module, so the systems always add up to the build total to the cent.
+// The ledger: budget, estimate and money spent per system, from the parts and the running totals of the filed lines
+// (ledger-totals.ts); rounding and the forecast through the shared money module, so the systems always add up to the
+// build total to the cent.
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { OVERRUN_MIN_SAMPLE, type LedgerDto, type LedgerLineFigure } from '../../../shared/api/ledger';
+import { OVERRUN_MIN_SAMPLE, type LedgerDto } from '../../../shared/api/ledger';
 import { addSystemFigures, budgetWithContingency, systemFigures } from '../../../shared/build-figures';
 import { Decimal, minorUnits, roundHalfUp, toDecimal, toWire } from '../../../shared/money';
 import { needsSafetyCaution } from '../../../shared/safety';
 import type { Build } from '../builds/build.entity';
+import { ensureLedgerTotals } from './ledger-totals';
 
 export { OVERRUN_MIN_SAMPLE };
 
@@ -21,57 +23,14 @@ interface SystemRow {
   returns_awaiting: string;
 }
 
-// A line's full cost: its amount with its share of the receipt's tax and shipping, less its share of the discount.
-export const LINE_TOTAL = `(l.amount + l.allocated_tax + l.allocated_shipping - l.allocated_discount)`;
-
-/**
- * The rows every money figure is summed from: lines of filed receipts that carry a system (an unassigned fee or
- * discount was spread over the other lines at filing, so counting it too would count it twice). One parameter: the
- * build's id. Aliases: l (line), r (receipt), c (its core, if a core charge); `joins` adds tables for a breakdown.
- */
-export function filedLines(joins = ''): string {
-  return `
-      from receipt_line l
-      join receipt r on r.id = l.receipt_id and r.state = 'filed'
-      left join core c on c.charge_line_id = l.id ${joins}
-     where l.build_id = ? and l.system_id is not null`;
-}
-
-/**
- * Which of filedLines() each figure counts: the ledger, its spend over time, its vendors and the lines behind a
- * figure all use these, so the lines shown always add up to the figure shown.
- */
-export const FIGURE_FILTER: Record<LedgerLineFigure, string> = {
-  // Net cash out: everything, money back included.
-  spent: `true`,
-  netCost: `(l.kind in ('part', 'fee', 'discount', 'return') or (l.kind = 'core_charge' and c.state = 'forfeited'))`,
-  coreDepositsOutstanding: `(l.kind = 'core_charge' and c.state in ('owed', 'dropped_off'))`,
-  // Parts sent back with no filed return line yet: what was paid for them is owed back.
-  // Each set is found once (a hashed subplan), never looked up per line: a correlated "not exists" ran once per line
-  // even for lines without a part (null in "in (...)" is not false, so "and" went on), a scan of every line each time:
-  // 13.5 s for a receipt of 8,000 lines, 18 ms this way. The "is not null" filters keep "not in" away from nulls.
-  returnsAwaitingRefund: `(l.kind = 'part' and l.part_id is not null
-      and l.part_id in (select p.id from part p where p.status = 'returned')
-      and l.id not in (select rl.return_of_id from receipt_line rl join receipt rr on rr.id = rl.receipt_id and rr.state = 'filed'
-                        where rl.kind = 'return' and rl.return_of_id is not null)
-      and l.part_id not in (select rl.part_id from receipt_line rl join receipt rr on rr.id = rl.receipt_id and rr.state = 'filed'
-                        where rl.kind = 'return' and rl.part_id is not null))`,
-};
-
+// The lines' sums come from the running totals (ledger-totals.ts), which hold exactly what an aggregate of the filed
+// lines would give; a system with a row there has filed lines, as one with a group in that aggregate had.
 const SYSTEM_FIGURES = `
   with parts as (
     select p.system_id,
            sum(round(p.quantity * p.estimated_unit_cost, ?)) as estimate,
            sum(round(p.quantity * p.estimated_unit_cost, ?)) filter (where p.status = 'planned') as remaining_estimate
       from part p where p.build_id = ? group by p.system_id
-  ), lines as (
-    select l.system_id,
-           sum(${LINE_TOTAL}) filter (where ${FIGURE_FILTER.spent}) as spent,
-           sum(${LINE_TOTAL}) filter (where ${FIGURE_FILTER.netCost}) as net_cost,
-           sum(${LINE_TOTAL}) filter (where ${FIGURE_FILTER.coreDepositsOutstanding}) as cores_outstanding,
-           sum(${LINE_TOTAL}) filter (where ${FIGURE_FILTER.returnsAwaitingRefund}) as returns_awaiting
-      ${filedLines()}
-     group by l.system_id
   )
   select s.id, s.name,
          -- An archived system's budget has left the build's budget; its parts and money stay in the figures.
@@ -81,20 +40,17 @@ const SYSTEM_FIGURES = `
          coalesce(lines.cores_outstanding, 0) as cores_outstanding, coalesce(lines.returns_awaiting, 0) as returns_awaiting
     from vehicle_system s
     left join parts on parts.system_id = s.id
-    left join lines on lines.system_id = s.id
-   where s.build_id = ? and (s.archived_at is null or lines.spent is not null)
+    left join ledger_system_total lines on lines.system_id = s.id
+   where s.build_id = ? and (s.archived_at is null or lines.system_id is not null)
    order by s.sort_order, s.created_at`;
 
-/** Actual cost over estimate for bought parts that carry filed purchase lines. */
+/** Actual cost (the running total of each part's filed purchase lines) over estimate, for bought parts. */
 const OVERRUN = `
-  select count(*) as sample, coalesce(sum(actual), 0) as actual, coalesce(sum(estimate), 0) as estimate from (
-    select p.id, round(p.quantity * p.estimated_unit_cost, ?) as estimate, sum(${LINE_TOTAL}) as actual
-      from part p
-      join receipt_line l on l.part_id = p.id and l.kind = 'part'
-      join receipt r on r.id = l.receipt_id and r.state = 'filed'
-     where p.build_id = ? and p.estimated_unit_cost > 0
-     group by p.id
-  ) bought`;
+  select count(*) as sample, coalesce(sum(bought.actual), 0) as actual,
+         coalesce(sum(round(p.quantity * p.estimated_unit_cost, ?)), 0) as estimate
+    from part p
+    join ledger_part_total bought on bought.part_id = p.id
+   where p.build_id = ? and p.estimated_unit_cost > 0`;
 
 export interface OverrunFactor {
   factor: Decimal;
@@ -113,7 +69,8 @@ export async function overrunFactor(em: EntityManager, build: Build): Promise<Ov
 
 export async function buildLedger(em: EntityManager, build: Build): Promise<LedgerDto> {
   const places = minorUnits(build.currency);
-  const rows = await em.execute<SystemRow[]>(SYSTEM_FIGURES, [places, places, build.id, build.id, build.id]);
+  await ensureLedgerTotals(em, build.id);
+  const rows = await em.execute<SystemRow[]>(SYSTEM_FIGURES, [places, places, build.id, build.id]);
   const { factor, sample } = await overrunFactor(em, build);
   const money = (value: string) => roundHalfUp(toDecimal(String(value)), places);
   const systems = rows.map((row) => ({

@@ -4,7 +4,7 @@ import type { AwaitingRefundItemDto, RefundedItemDto, ReturnableItemDto, Returns
 import type { PartStatus } from '../../../shared/enums';
 import { minorUnits, roundHalfUp, toDecimal, toWire } from '../../../shared/money';
 import type { Build } from '../builds/build.entity';
-import { FIGURE_FILTER, LINE_TOTAL, filedLines } from '../ledger/ledger.service';
+import { FIGURE_FILTER, LINE_TOTAL, filedLines } from '../ledger/figure-lines';
 
 /** A returnable line stays listed this many days after its window closed, marked closed, so a late return is still in sight (our choice). */
 export const CLOSED_WINDOW_GRACE_DAYS = 14;

@@ -8,6 +8,7 @@ import { Membership } from '../builds/membership.entity';
 import { createBuild } from '../builds/builds.service';
 import { loadConfig, type AppConfig } from '../config';
 import { ormConfig } from '../db/mikro-orm.config';
+import { refreshLedgerTotals } from '../ledger/ledger-totals';
 import { Decimal } from '../../../shared/money';
 import type { PartStatus } from '../../../shared/enums';
 import type { Unit } from '../../../shared/units';
@@ -36,6 +37,8 @@ export async function seedDemo(deps: { orm: MikroORM; store: ObjectStore; config
     // Loaded only when there is something to seed, so a start with data already in place stays quick.
     const { seedHistory } = await import('./demo-receipts');
     await seedHistory(deps, buildId);
+    // The history was filed outside any request: its ledger totals are brought up to date as a request's would be.
+    await em.transactional((tx) => refreshLedgerTotals(tx, buildId));
   } catch (error) {
     // A half-made history would stop the next start from seeding at all: take it all away again.
     const cleanup = deps.orm.em.fork();
