@@ -162,6 +162,11 @@ describe('sign-up and sign-in', () => {
     expect(expired.status).toBe(400);
     expect(expired.body.error.fields).toEqual({ token: 'This sign-up link has expired or was already used. Sign up again for a new one.' });
     expect(await userCount(late)).toBe(0);
+    // The next sign-up, of anyone, deletes the expired one with its password hash.
+    const next = uniqueEmail('link-next');
+    await (await new ApiClient(t.app).init()).post('/api/auth/sign-up', { email: next, displayName: 'Next One', password: TEST_PASSWORD });
+    await signUpToken(t.mail, next);
+    expect(await t.orm.em.fork().count(PendingSignUp, { email: late })).toBe(0);
 
     const madeUp = await (await new ApiClient(t.app).init()).post('/api/auth/sign-up/confirm', { token: 'x'.repeat(43) });
     expect(madeUp.status).toBe(400);

@@ -73,7 +73,8 @@ async function mailSignUp(em: EntityManager, mailer: Mailer, config: AppConfig, 
     return;
   }
   const { token, tokenHash } = newToken();
-  await em.nativeDelete(PendingSignUp, { email: pending.email, expiresAt: { $lte: new Date() } });
+  // Expired sign-ups (everyone's) go here, so unconfirmed password hashes are kept a day at most past their expiry.
+  await em.nativeDelete(PendingSignUp, { expiresAt: { $lte: new Date() } });
   em.create(PendingSignUp, { ...pending, tokenHash, expiresAt: new Date(Date.now() + SIGN_UP_LIFETIME_MS) });
   await em.flush();
   await mailer.send(signUpLinkMail({ to: pending.email, displayName: pending.displayName, link: `${config.appUrl}/sign-up/confirm/${token}` }));
