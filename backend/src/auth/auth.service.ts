@@ -87,7 +87,7 @@ const signUpLinkRefused = () =>
  * Makes the account of a pending sign-up, once; every pending sign-up of the address is deleted with it (their
  * password hashes too), so another link for the same address is then refused like a used one. All of the address's
  * pending rows are locked in one order first: links of one address opened at once run one after the other (locking
- * only the link's own row let two of them deadlock, each waiting for the other's account or rows).
+ * only the link's own row would let two of them deadlock, each waiting for the other's new account or rows).
  */
 export async function confirmSignUp(em: EntityManager, token: string): Promise<User> {
   return em.transactional(async (tx) => {
