@@ -42,6 +42,20 @@ export const resetConfirmRequest = z.object({
 });
 export type ResetConfirmRequest = z.infer<typeof resetConfirmRequest>;
 
+export const signUpConfirmRequest = z.object({
+  token: z.string({ error: 'The sign-up link is incomplete.' }).min(20, 'The sign-up link is incomplete.').max(200),
+});
+export type SignUpConfirmRequest = z.infer<typeof signUpConfirmRequest>;
+
+/**
+ * POST /api/auth/sign-up without an invite answers 202 with this, word for word the same whether or not the address
+ * has an account; the mail says which (a link to finish, or a note that the account exists).
+ */
+export interface SignUpMailedResponse {
+  status: 'check-mail';
+  message: string;
+}
+
 export interface UserDto {
   id: string;
   email: string;

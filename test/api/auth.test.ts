@@ -1,7 +1,9 @@
-// Accounts against the real PostgreSQL: sign-up, sign-in, sign-out, CSRF, rate limits and password reset.
+// Accounts against the real PostgreSQL: sign-up by a mailed link, sign-in, sign-out, CSRF, rate limits and password reset.
 import { PasswordReset } from '../../backend/src/auth/password-reset.entity';
+import { PendingSignUp } from '../../backend/src/auth/pending-sign-up.entity';
 import { User } from '../../backend/src/auth/user.entity';
 import { ApiClient, TEST_PASSWORD, signedUpClient, uniqueEmail } from '../support/api-client';
+import { SIGN_UP_LINK_SUBJECT, signUpToken } from '../support/caught-mail';
 import { startTestApp, type TestApp } from '../support/test-app';
 
 let t: TestApp;
@@ -14,6 +16,27 @@ async function userCount(email: string) {
   return t.orm.em.fork().count(User, { email: email.toLowerCase() });
 }
 
+/**
+ * Holds the app's mail back while `ask` runs: the answer's status when it came without waiting for the mail, or
+ * "waited for the mail" when it did not come within 2 s. The held mail goes out afterwards.
+ */
+async function withMailHeld(ask: () => Promise<{ status: number }>): Promise<number | 'waited for the mail'> {
+  const send = t.mailer.send;
+  let release!: () => void;
+  const held = new Promise<void>((resolve) => (release = resolve));
+  t.mailer.send = async (message) => {
+    await held;
+    return send.call(t.mailer, message);
+  };
+  try {
+    const answer = await Promise.race([ask(), new Promise<'waited for the mail'>((resolve) => setTimeout(() => resolve('waited for the mail'), 2000))]);
+    return answer === 'waited for the mail' ? answer : answer.status;
+  } finally {
+    t.mailer.send = send;
+    release();
+  }
+}
+
 describe('health', () => {
   it('reports the database as up', async () => {
     const res = await new ApiClient(t.app).get('/api/health');
@@ -23,13 +46,31 @@ describe('health', () => {
 });
 
 describe('sign-up and sign-in', () => {
-  it('creates an account, signs it in, and signs it out', async () => {
+  it('mails a link to a new address; opening it makes the account, signs it in, and signing out works', async () => {
     const client = await new ApiClient(t.app).init();
     const email = uniqueEmail('Mixed.Case');
-    const created = await client.post('/api/auth/sign-up', { email, displayName: 'Sam Ferrule', password: TEST_PASSWORD });
+    const asked = await client.post('/api/auth/sign-up', { email, displayName: 'Sam Ferrule', password: TEST_PASSWORD });
+    expect(asked.status).toBe(202);
+    expect(asked.body).toEqual({ status: 'check-mail', message: `We sent a message to ${email.toLowerCase()}. Open the link in it to finish creating your account; it works for 24 hours.` });
+    expect(await userCount(email)).toBe(0);
+    expect((await client.get('/api/auth/me')).body).toEqual({ user: null });
+
+    const mail = await t.mail.waitFor((m) => m.to.includes(email.toLowerCase()));
+    expect(mail.subject).toBe(SIGN_UP_LINK_SUBJECT);
+    expect(mail.text).toContain('Welcome to Tallyhood, Sam Ferrule.');
+    expect(mail.text).toContain('24 hours');
+    const token = await signUpToken(t.mail, email);
+    // Only the token's hash is kept, with the password's hash.
+    const [pending] = await t.orm.em.fork().find(PendingSignUp, { email: email.toLowerCase() });
+    expect(pending.tokenHash).toMatch(/^[0-9a-f]{64}$/);
+    expect(pending.tokenHash).not.toBe(token);
+    expect(pending.passwordHash).toMatch(/^\$argon2id\$/);
+
+    const created = await client.post('/api/auth/sign-up/confirm', { token });
     expect(created.status).toBe(201);
-    expect(created.body.user).toEqual({ id: expect.any(String), email: email.toLowerCase(), displayName: 'Sam Ferrule' });
+    expect(created.body).toEqual({ user: { id: expect.any(String), email: email.toLowerCase(), displayName: 'Sam Ferrule' } });
     expect(([] as string[]).concat(created.headers['set-cookie'] ?? []).join(';')).toMatch(/tallyhood\.sid=.*HttpOnly.*SameSite=Lax/i);
+    expect(await t.orm.em.fork().count(PendingSignUp, { email: email.toLowerCase() })).toBe(0);
 
     expect((await client.get('/api/auth/me')).body.user.email).toBe(email.toLowerCase());
     expect((await client.post('/api/auth/sign-out')).status).toBe(204);
@@ -57,15 +98,98 @@ describe('sign-up and sign-in', () => {
     expect(Object.keys(res.body.error.fields).sort()).toEqual(['displayName', 'email', 'password']);
     expect(res.body.error.fields.password).toBe('Use at least 10 characters for the password.');
     expect(await userCount(email)).toBe(0);
+    expect(await t.orm.em.fork().count(PendingSignUp, { email })).toBe(0);
   });
 
-  it('refuses a second account for the same address, naming the field', async () => {
-    const { email } = await signedUpClient(t.app, 'twice');
-    const other = await new ApiClient(t.app).init();
-    const res = await other.post('/api/auth/sign-up', { email: email.toUpperCase(), displayName: 'Other', password: TEST_PASSWORD });
-    expect(res.status).toBe(409);
-    expect(res.body.error.fields).toEqual({ email: 'An account with this e-mail already exists.' });
+  it('answers a known address byte for byte as a new one, mails its owner instead, and leaves the account as it was', async () => {
+    const { email: known, userId } = await signedUpClient(t.app, 'known');
+    const before = await t.orm.em.fork().findOneOrFail(User, { id: userId });
+    const unknown = uniqueEmail('unknown');
+    const ask = async (email: string) => (await new ApiClient(t.app).init()).post('/api/auth/sign-up', { email, displayName: 'Someone Else', password: 'another-password-1' });
+    const [forKnown, forUnknown] = [await ask(known), await ask(unknown)];
+
+    const shape = (res: Awaited<ReturnType<typeof ask>>, email: string) => ({
+      status: res.status,
+      body: res.text.replace(email, '<address>'),
+      contentType: res.headers['content-type'],
+      cookies: ([] as string[]).concat(res.headers['set-cookie'] ?? []).map((cookie) => cookie.split('=')[0]),
+    });
+    expect(forKnown.status).toBe(202);
+    expect(shape(forKnown, known)).toEqual(shape(forUnknown, unknown));
+
+    const toKnown = await t.mail.waitFor((m) => m.to.includes(known));
+    expect(toKnown.subject).toBe('You already have a Tallyhood account');
+    expect(toKnown.text).toContain('Nothing was changed.');
+    expect(toKnown.text).toContain(`Sign in: ${t.url}/sign-in`);
+    expect(toKnown.text).toContain(`Choose a new password: ${t.url}/reset-password`);
+    expect(toKnown.text).not.toMatch(/sign-up\/confirm/);
+    expect((await t.mail.waitFor((m) => m.to.includes(unknown))).subject).toBe(SIGN_UP_LINK_SUBJECT);
+
+    const after = await t.orm.em.fork().findOneOrFail(User, { id: userId });
+    expect(after.passwordHash).toBe(before.passwordHash);
+    expect(after.displayName).toBe(before.displayName);
+    expect(await userCount(known)).toBe(1);
+    expect(await t.orm.em.fork().count(PendingSignUp, { email: known })).toBe(0);
+    expect((await (await new ApiClient(t.app).init()).post('/api/auth/sign-in', { email: known, password: TEST_PASSWORD })).status).toBe(200);
+  });
+
+  it('answers sign-up before the mail is sent, for a known and a new address', async () => {
+    const { email: known } = await signedUpClient(t.app, 'signup-fast');
+    const unknown = uniqueEmail('signup-fast-new');
+    for (const email of [known, unknown]) {
+      const answer = await withMailHeld(() => new ApiClient(t.app).init().then((c) => c.post('/api/auth/sign-up', { email, displayName: 'Quick', password: TEST_PASSWORD })));
+      expect(answer).toBe(202);
+    }
+    expect((await t.mail.waitFor((m) => m.to.includes(unknown))).subject).toBe(SIGN_UP_LINK_SUBJECT);
+  });
+
+  it('refuses a used, an expired and a made-up sign-up link, naming the field, and makes no account', async () => {
+    const email = uniqueEmail('link-once');
+    const client = await new ApiClient(t.app).init();
+    await client.post('/api/auth/sign-up', { email, displayName: 'Once Only', password: TEST_PASSWORD });
+    const token = await signUpToken(t.mail, email);
+    expect((await client.post('/api/auth/sign-up/confirm', { token })).status).toBe(201);
+    const used = await (await new ApiClient(t.app).init()).post('/api/auth/sign-up/confirm', { token });
+    expect(used.status).toBe(400);
+    expect(used.body.error.fields).toEqual({ token: 'This sign-up link has expired or was already used. Sign up again for a new one.' });
     expect(await userCount(email)).toBe(1);
+
+    const late = uniqueEmail('link-late');
+    await (await new ApiClient(t.app).init()).post('/api/auth/sign-up', { email: late, displayName: 'Too Late', password: TEST_PASSWORD });
+    const lateToken = await signUpToken(t.mail, late);
+    await t.orm.em.fork().nativeUpdate(PendingSignUp, { email: late }, { expiresAt: new Date(Date.now() - 1000) });
+    const expired = await (await new ApiClient(t.app).init()).post('/api/auth/sign-up/confirm', { token: lateToken });
+    expect(expired.status).toBe(400);
+    expect(expired.body.error.fields).toEqual({ token: 'This sign-up link has expired or was already used. Sign up again for a new one.' });
+    expect(await userCount(late)).toBe(0);
+    // The next sign-up, of anyone, deletes the expired one with its password hash.
+    const next = uniqueEmail('link-next');
+    await (await new ApiClient(t.app).init()).post('/api/auth/sign-up', { email: next, displayName: 'Next One', password: TEST_PASSWORD });
+    await signUpToken(t.mail, next);
+    expect(await t.orm.em.fork().count(PendingSignUp, { email: late })).toBe(0);
+
+    const madeUp = await (await new ApiClient(t.app).init()).post('/api/auth/sign-up/confirm', { token: 'x'.repeat(43) });
+    expect(madeUp.status).toBe(400);
+    expect(Object.keys(madeUp.body.error.fields)).toEqual(['token']);
+    const garbage = await (await new ApiClient(t.app).init()).post('/api/auth/sign-up/confirm', { token: 'short' });
+    expect(garbage.status).toBe(400);
+    expect(garbage.body.error.fields).toEqual({ token: 'The sign-up link is incomplete.' });
+  });
+
+  it('makes one account from two sign-ups of one address: the second link is refused once the first is used', async () => {
+    const email = uniqueEmail('two-links');
+    await (await new ApiClient(t.app).init()).post('/api/auth/sign-up', { email, displayName: 'First Try', password: TEST_PASSWORD });
+    const first = await signUpToken(t.mail, email);
+    await (await new ApiClient(t.app).init()).post('/api/auth/sign-up', { email, displayName: 'Second Try', password: 'second-password-2' });
+    const second = await signUpToken(t.mail, email);
+    expect(second).not.toBe(first);
+
+    expect((await (await new ApiClient(t.app).init()).post('/api/auth/sign-up/confirm', { token: second })).body.user.displayName).toBe('Second Try');
+    const refused = await (await new ApiClient(t.app).init()).post('/api/auth/sign-up/confirm', { token: first });
+    expect(refused.status).toBe(400);
+    expect(Object.keys(refused.body.error.fields)).toEqual(['token']);
+    expect(await userCount(email)).toBe(1);
+    expect((await (await new ApiClient(t.app).init()).post('/api/auth/sign-in', { email, password: 'second-password-2' })).status).toBe(200);
   });
 
   it('answers 401 with one message for a wrong password and an unknown address', async () => {
@@ -190,23 +314,8 @@ describe('password reset', () => {
 
   it('answers before the mail is sent, so a known address does not answer slower than an unknown one', async () => {
     const { email } = await signedUpClient(t.app, 'reset-fast');
-    const send = t.mailer.send;
-    let release!: () => void;
-    const held = new Promise<void>((resolve) => (release = resolve));
-    t.mailer.send = async (message) => {
-      await held;
-      return send.call(t.mailer, message);
-    };
-    try {
-      const answer = await Promise.race([
-        (await new ApiClient(t.app).init()).post('/api/auth/password-reset', { email }),
-        new Promise<'waited for the mail'>((resolve) => setTimeout(() => resolve('waited for the mail'), 2000)),
-      ]);
-      expect(answer === 'waited for the mail' ? answer : answer.status).toBe(202);
-    } finally {
-      t.mailer.send = send;
-      release();
-    }
+    const answer = await withMailHeld(() => new ApiClient(t.app).init().then((c) => c.post('/api/auth/password-reset', { email })));
+    expect(answer).toBe(202);
     expect((await t.mail.waitFor((m) => m.to.includes(email))).subject).toBe('Reset your Tallyhood password');
   });
 

@@ -63,6 +63,33 @@ it('lets a new person create an account from the invite link', async () => {
   expect(members.invites).toEqual([]);
 });
 
+it('makes an account from an invite only for the invited address: another address gets 400 naming the field, and nothing changes', async () => {
+  const { client: owner, build } = await ownerWithBuild();
+  const invited = uniqueEmail('invited-here');
+  await owner.post(`/api/builds/${build.id}/invites`, { email: invited, role: 'crew' });
+  const token = await inviteToken(invited);
+  const elsewhere = uniqueEmail('other-address');
+  const client = await new ApiClient(t.app).init();
+  const res = await client.post('/api/auth/sign-up', { email: elsewhere, displayName: 'Other Box', password: TEST_PASSWORD, inviteToken: token });
+  expect(res.status).toBe(400);
+  expect(res.body.error.fields).toEqual({ email: `This invite was sent to ${invited}. Create the account with that address, or ask the build's owner to invite this one.` });
+  expect((await client.post('/api/auth/sign-in', { email: elsewhere, password: TEST_PASSWORD })).status).toBe(401);
+  // The invite is still open for the invited address.
+  expect((await owner.get(`/api/builds/${build.id}/members`)).body.invites.map((i: { email: string }) => i.email)).toEqual([invited]);
+});
+
+it('tells the holder of an invite to an address that has an account to sign in, and leaves the account and the invite as they were', async () => {
+  const { client: owner, build } = await ownerWithBuild();
+  const member = await signedUpClient(t.app, 'has-account');
+  await owner.post(`/api/builds/${build.id}/invites`, { email: member.email, role: 'crew' });
+  const token = await inviteToken(member.email);
+  const res = await (await new ApiClient(t.app).init()).post('/api/auth/sign-up', { email: member.email, displayName: 'Twice', password: 'some-other-password', inviteToken: token });
+  expect(res.status).toBe(409);
+  expect(res.body.error.fields).toEqual({ email: 'An account with this e-mail already exists.' });
+  expect((await (await new ApiClient(t.app).init()).post('/api/auth/sign-in', { email: member.email, password: TEST_PASSWORD })).status).toBe(200);
+  expect((await member.client.post(`/api/invites/${token}/accept`)).body).toEqual({ buildId: build.id });
+});
+
 it('rolls back the new account when the invite token is not valid', async () => {
   const email = uniqueEmail('badtoken');
   const client = await new ApiClient(t.app).init();

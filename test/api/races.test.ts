@@ -2,6 +2,7 @@
 import { Membership } from '../../backend/src/builds/membership.entity';
 import { User } from '../../backend/src/auth/user.entity';
 import { ApiClient, NEW_BUILD, TEST_PASSWORD, signedUpClient, uniqueEmail } from '../support/api-client';
+import { signUpToken } from '../support/caught-mail';
 import { startTestApp, type TestApp } from '../support/test-app';
 
 let t: TestApp;
@@ -47,11 +48,30 @@ it('never leaves a build without an owner when two owners demote each other at o
   }
 });
 
-it('gives one 201 and 409s to simultaneous sign-ups with one e-mail, and makes one account', async () => {
+it('answers simultaneous sign-ups of one address alike, and their links make one account: one 201, the rest 400', async () => {
   const email = uniqueEmail('race-signup');
   const clients = await Promise.all([1, 2, 3, 4].map(() => new ApiClient(t.app).init()));
   const answers = await Promise.all(clients.map((c) => c.post('/api/auth/sign-up', { email, displayName: 'Same Person', password: TEST_PASSWORD })));
-  expect(answers.map((a) => a.status).sort()).toEqual([201, 409, 409, 409]);
-  for (const refused of answers.filter((a) => a.status === 409)) expect(refused.body.error.fields).toEqual({ email: 'An account with this e-mail already exists.' });
+  expect(answers.map((a) => a.status)).toEqual([202, 202, 202, 202]);
+  expect(new Set(answers.map((a) => a.text)).size).toBe(1);
+
+  // Each sign-up mailed its own link; all four opened at once.
+  const links: string[] = [];
+  while (links.length < clients.length) links.push(await signUpToken(t.mail, email));
+  expect(new Set(links).size).toBe(4);
+  const confirms = await Promise.all(links.map((token, index) => clients[index].post('/api/auth/sign-up/confirm', { token })));
+  expect(confirms.map((a) => a.status).sort()).toEqual([201, 400, 400, 400]);
+  for (const refused of confirms.filter((a) => a.status !== 201)) expect(Object.keys(refused.body.error.fields)).toEqual(['token']);
+  expect(await t.orm.em.fork().count(User, { email })).toBe(1);
+});
+
+it('lets one of two people opening one sign-up link at once in; the other gets 400 naming the link', async () => {
+  const email = uniqueEmail('race-link');
+  await (await new ApiClient(t.app).init()).post('/api/auth/sign-up', { email, displayName: 'One Link', password: TEST_PASSWORD });
+  const token = await signUpToken(t.mail, email);
+  const clients = await Promise.all([1, 2].map(() => new ApiClient(t.app).init()));
+  const confirms = await Promise.all(clients.map((c) => c.post('/api/auth/sign-up/confirm', { token })));
+  expect(confirms.map((a) => a.status).sort()).toEqual([201, 400]);
+  expect(confirms.find((a) => a.status === 400)!.body.error.fields).toEqual({ token: 'This sign-up link has expired or was already used. Sign up again for a new one.' });
   expect(await t.orm.em.fork().count(User, { email })).toBe(1);
 });

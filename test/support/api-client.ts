@@ -2,6 +2,7 @@
 import request from 'supertest';
 import type { Express } from 'express';
 import { randomUUID } from 'node:crypto';
+import { caughtMailOf, signUpToken } from './caught-mail';
 
 type Method = 'get' | 'post' | 'patch' | 'put' | 'delete';
 
@@ -64,13 +65,16 @@ export function uniqueEmail(label: string): string {
   return `${label}-${randomUUID().slice(0, 8)}@example.test`;
 }
 
-/** A new account, signed in. */
+/** A new account, signed in, made as a person makes one: sign up, then open the link the mail brings. */
 export async function signedUpClient(app: Express, label: string): Promise<{ client: ApiClient; email: string; userId: string }> {
   const client = await new ApiClient(app).init();
   const email = uniqueEmail(label);
   const res = await client.post('/api/auth/sign-up', { email, displayName: `Test ${label}`, password: TEST_PASSWORD });
-  if (res.status !== 201) throw new Error(`sign-up failed: ${res.status} ${JSON.stringify(res.body)}`);
-  return { client, email, userId: res.body.user.id };
+  if (res.status !== 202) throw new Error(`sign-up failed: ${res.status} ${JSON.stringify(res.body)}`);
+  const token = await signUpToken(caughtMailOf(app), email);
+  const confirmed = await client.post('/api/auth/sign-up/confirm', { token });
+  if (confirmed.status !== 201) throw new Error(`sign-up confirm failed: ${confirmed.status} ${JSON.stringify(confirmed.body)}`);
+  return { client, email, userId: confirmed.body.user.id };
 }
 
 export const NEW_BUILD = { name: 'Test coupé', vehicle: '1981 test car', currency: 'USD' };

@@ -11,6 +11,7 @@ import { startFakeMailServer, type FakeMailServer } from '../../backend/src/mail
 import { startJobQueue, type JobQueue } from '../../backend/src/jobs/queue';
 import { startFakeS3, type FakeS3 } from '../../backend/src/storage/fake-s3-server';
 import { createObjectStore, type ObjectStore } from '../../backend/src/storage/object-store';
+import { rememberMailOf } from './caught-mail';
 import os from 'node:os';
 import path from 'node:path';
 
@@ -79,6 +80,7 @@ export async function startTestApp(options: { serveClient?: boolean; clientDist?
   const running = createApp({ orm, config, mailer, store, queue });
   const unexpectedServerErrors: string[] = [];
   const app = recordingServerErrors(running.app, unexpectedServerErrors);
+  rememberMailOf(app, mail);
   await new Promise<void>((resolve) => {
     holder.server = createServer(app).listen(0, '127.0.0.1', () => resolve());
   });

@@ -2,16 +2,15 @@
 import { afterCommit } from '../http/request-transaction';
 import { Router, type Request } from 'express';
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
-import { resetConfirmRequest, resetRequest, signInRequest, signUpRequest, type MeResponse } from '../../../shared/api/auth';
+import { resetConfirmRequest, resetRequest, signInRequest, signUpConfirmRequest, signUpRequest, type MeResponse, type SignUpMailedResponse } from '../../../shared/api/auth';
 import type { AppConfig } from '../config';
-import { acceptInvite } from '../crew/crew.service';
 import { em } from '../http/build-access';
 import { issueCsrfToken } from '../http/csrf';
 import { AppError, Unauthenticated } from '../http/errors';
 import { validBody } from '../http/validate';
 import type { Mailer } from '../mail/mailer';
 import type { AppPassport } from './passport';
-import { confirmPasswordReset, createAccount, requestPasswordReset, userDto } from './auth.service';
+import { confirmPasswordReset, confirmSignUp, createInvitedAccount, requestPasswordReset, startSignUp, userDto } from './auth.service';
 import type { User } from './user.entity';
 
 interface LimitRule {
@@ -60,6 +59,7 @@ export function authRoutes(passport: AppPassport, mailer: Mailer, config: AppCon
   // Confirming: failures only, per address; a link is 256 random bits, so this only curbs load, and a few bad
   // links from one address never block a good one.
   const resetConfirmLimit = limiter({ windowMs: hour, limit: 50, what: 'reset', key: byAddress, failuresOnly: true });
+  const signUpConfirmLimit = limiter({ windowMs: hour, limit: 50, what: 'sign-up', key: byAddress, failuresOnly: true });
 
   router.get('/me', (req, res) => {
     const body: MeResponse = { user: req.user ? userDto(req.user) : null };
@@ -68,14 +68,26 @@ export function authRoutes(passport: AppPassport, mailer: Mailer, config: AppCon
 
   router.post('/sign-up', signUpLimit, validBody(signUpRequest), async (req, res) => {
     const { inviteToken, ...account } = req.body;
-    const { user, buildId } = await em().transactional(async (tx) => {
-      const created = await createAccount(tx, account);
-      const joined = inviteToken ? await acceptInvite(tx, created, inviteToken) : null;
-      return { user: created, buildId: joined?.id };
-    });
+    if (inviteToken) {
+      const { user, buildId } = await createInvitedAccount(em(), account, inviteToken);
+      await logIn(req, user);
+      issueCsrfToken(res, config.secureCookies);
+      return void res.status(201).json({ user: userDto(user), buildId });
+    }
+    // Word for word the same answer for a known and a new address; the mail that follows says which it was.
+    await startSignUp(em(), mailer, config, account);
+    const body: SignUpMailedResponse = {
+      status: 'check-mail',
+      message: `We sent a message to ${account.email.toLowerCase()}. Open the link in it to finish creating your account; it works for 24 hours.`,
+    };
+    res.status(202).json(body);
+  });
+
+  router.post('/sign-up/confirm', signUpConfirmLimit, validBody(signUpConfirmRequest), async (req, res) => {
+    const user = await confirmSignUp(em(), req.body.token);
     await logIn(req, user);
     issueCsrfToken(res, config.secureCookies);
-    res.status(201).json(buildId ? { user: userDto(user), buildId } : { user: userDto(user) });
+    res.status(201).json({ user: userDto(user) });
   });
 
   router.post('/sign-in', ...signInLimits, validBody(signInRequest), (req, res, next) => {

@@ -1,16 +1,22 @@
-// Accounts: sign-up and password reset by an e-mailed one-time link.
+// Accounts: sign-up and password reset, each finished by an e-mailed one-time link.
 import { LockMode, UniqueConstraintViolationException } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import type { ResetConfirmRequest, SignUpRequest, UserDto } from '../../../shared/api/auth';
 import type { AppConfig } from '../config';
 import { Conflict, ValidationFailed } from '../http/errors';
+import { acceptInvite, invitedAddress } from '../crew/crew.service';
+import { afterCommit } from '../http/request-transaction';
 import type { Mailer } from '../mail/mailer';
-import { passwordResetMail } from '../mail/templates';
+import { passwordResetMail, signUpKnownAddressMail, signUpLinkMail } from '../mail/templates';
 import { hashPassword, hashToken, newToken } from './passwords';
 import { PasswordReset } from './password-reset.entity';
+import { PendingSignUp } from './pending-sign-up.entity';
 import { User } from './user.entity';
 
 const RESET_LIFETIME_MS = 60 * 60 * 1000;
+const SIGN_UP_LIFETIME_MS = 24 * 60 * 60 * 1000;
+
+type NewAccount = Omit<SignUpRequest, 'inviteToken'>;
 
 export function userDto(user: User): UserDto {
   return { id: user.id, email: user.email, displayName: user.displayName };
@@ -21,12 +27,26 @@ const accountExists = () =>
     email: 'An account with this e-mail already exists.',
   });
 
-export async function createAccount(em: EntityManager, input: Omit<SignUpRequest, 'inviteToken'>): Promise<User> {
-  const email = input.email.toLowerCase();
-  // Hashed first, so a known address costs as long as a new one.
-  const passwordHash = await hashPassword(input.password);
-  if (await em.count(User, { email })) throw accountExists();
-  const user = em.create(User, { email, displayName: input.displayName, passwordHash });
+/**
+ * Sign-up with an invite makes the account at once and joins the build, but only for the address the invite was mailed
+ * to: whoever holds the invite reads that mailbox, so "this address has an account" (409) tells them nothing new.
+ * Another address is refused, naming the field; it signs up without the invite.
+ */
+export async function createInvitedAccount(em: EntityManager, input: NewAccount, inviteToken: string): Promise<{ user: User; buildId: string }> {
+  return em.transactional(async (tx) => {
+    const email = input.email.toLowerCase();
+    const invited = await invitedAddress(tx, inviteToken);
+    if (invited !== email) {
+      throw new ValidationFailed({ email: `This invite was sent to ${invited}. Create the account with that address, or ask the build's owner to invite this one.` });
+    }
+    const user = await insertAccount(tx, { email, displayName: input.displayName, passwordHash: await hashPassword(input.password) });
+    return { user, buildId: (await acceptInvite(tx, user, inviteToken)).id };
+  });
+}
+
+async function insertAccount(em: EntityManager, account: Pick<User, 'email' | 'displayName' | 'passwordHash'>): Promise<User> {
+  if (await em.count(User, { email: account.email })) throw accountExists();
+  const user = em.create(User, account);
   try {
     await em.flush();
   } catch (error) {
@@ -35,6 +55,50 @@ export async function createAccount(em: EntityManager, input: Omit<SignUpRequest
     throw error;
   }
   return user;
+}
+
+/**
+ * Sign-up without an invite. The password is hashed before the answer whatever the address, so the answer takes as
+ * long for a known address as for a new one; the address is looked up only after the answer (as a reset request is):
+ * a new one is kept pending and mailed its link, a known one is told that someone tried, and nothing changes.
+ */
+export async function startSignUp(em: EntityManager, mailer: Mailer, config: AppConfig, input: NewAccount): Promise<void> {
+  const pending = { email: input.email.toLowerCase(), displayName: input.displayName, passwordHash: await hashPassword(input.password) };
+  await afterCommit(em, () => mailSignUp(em.fork(), mailer, config, pending));
+}
+
+async function mailSignUp(em: EntityManager, mailer: Mailer, config: AppConfig, pending: Pick<PendingSignUp, 'email' | 'displayName' | 'passwordHash'>): Promise<void> {
+  if (await em.count(User, { email: pending.email })) {
+    await mailer.send(signUpKnownAddressMail({ to: pending.email, signInLink: `${config.appUrl}/sign-in`, resetLink: `${config.appUrl}/reset-password` }));
+    return;
+  }
+  const { token, tokenHash } = newToken();
+  // Expired sign-ups (everyone's) go here, so unconfirmed password hashes are kept a day at most past their expiry.
+  await em.nativeDelete(PendingSignUp, { expiresAt: { $lte: new Date() } });
+  em.create(PendingSignUp, { ...pending, tokenHash, expiresAt: new Date(Date.now() + SIGN_UP_LIFETIME_MS) });
+  await em.flush();
+  await mailer.send(signUpLinkMail({ to: pending.email, displayName: pending.displayName, link: `${config.appUrl}/sign-up/confirm/${token}` }));
+}
+
+const signUpLinkRefused = () =>
+  new ValidationFailed({ token: 'This sign-up link has expired or was already used. Sign up again for a new one.' }, 'This sign-up link has expired or was already used.');
+
+/**
+ * Makes the account of a pending sign-up, once; every pending sign-up of the address is deleted with it (their
+ * password hashes too), so another link for the same address is then refused like a used one. All of the address's
+ * pending rows are locked in one order first: links of one address opened at once run one after the other (locking
+ * only the link's own row would let two of them deadlock, each waiting for the other's new account or rows).
+ */
+export async function confirmSignUp(em: EntityManager, token: string): Promise<User> {
+  return em.transactional(async (tx) => {
+    const found = await tx.findOne(PendingSignUp, { tokenHash: hashToken(token), expiresAt: { $gt: new Date() } });
+    if (!found) throw signUpLinkRefused();
+    const locked = await tx.execute<{ id: string }[]>('select id from pending_sign_up where email = ? order by id for update', [found.email]);
+    if (!locked.some((row) => row.id === found.id)) throw signUpLinkRefused();
+    const user = await insertAccount(tx, { email: found.email, displayName: found.displayName, passwordHash: found.passwordHash });
+    await tx.nativeDelete(PendingSignUp, { email: found.email });
+    return user;
+  });
 }
 
 /** Sends a reset link when the account exists; runs after the answer, which says nothing either way. */

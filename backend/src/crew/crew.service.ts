@@ -90,6 +90,11 @@ export async function previewInvite(em: EntityManager, token: string): Promise<I
   };
 }
 
+/** The address an open invite was mailed to (404 or 409 as the preview answers for a bad or used link). */
+export async function invitedAddress(em: EntityManager, token: string): Promise<string> {
+  return (await openInvite(em, token)).email;
+}
+
 /** The invite is the capability: whoever holds the link joins with its role, once (the row lock makes it once). */
 export async function acceptInvite(em: EntityManager, user: User, token: string): Promise<Build> {
   return em.transactional(async (tx) => {

@@ -1,5 +1,6 @@
 // The explicit list of entity schemas (no folder discovery: tsx and esbuild emit no decorator metadata).
 import { PasswordResetSchema } from '../auth/password-reset.entity';
+import { PendingSignUpSchema } from '../auth/pending-sign-up.entity';
 import { UserSchema } from '../auth/user.entity';
 import { BuildSchema } from '../builds/build.entity';
 import { MembershipSchema } from '../builds/membership.entity';
@@ -20,4 +21,4 @@ import { MailRefusalSchema } from '../inbox/mail-refusal.entity';
 import { MailedMessageSchema } from '../inbox/mailed-message.entity';
 import { RetiredInboxTokenSchema } from '../inbox/retired-inbox-token.entity';
 
-export const entities = [UserSchema, PasswordResetSchema, BuildSchema, MembershipSchema, InviteSchema, VehicleSystemSchema, PartSchema, VendorSchema, ReceiptSchema, ReceiptLineSchema, CoreSchema, NotDuplicateSchema, AuditEventSchema, CommentSchema, AlertPreferenceSchema, AlertSentSchema, UploadKeySchema, RetiredInboxTokenSchema, MailRefusalSchema, MailedMessageSchema];
+export const entities = [UserSchema, PasswordResetSchema, PendingSignUpSchema, BuildSchema, MembershipSchema, InviteSchema, VehicleSystemSchema, PartSchema, VendorSchema, ReceiptSchema, ReceiptLineSchema, CoreSchema, NotDuplicateSchema, AuditEventSchema, CommentSchema, AlertPreferenceSchema, AlertSentSchema, UploadKeySchema, RetiredInboxTokenSchema, MailRefusalSchema, MailedMessageSchema];

@@ -5,9 +5,10 @@ function escapeHtml(text: string): string {
   return text.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 }
 
-function html(paragraphs: string[], link: { href: string; label: string }): string {
+function html(paragraphs: string[], ...links: { href: string; label: string }[]): string {
   const body = paragraphs.map((p) => `<p>${escapeHtml(p)}</p>`).join('');
-  return `<div style="font-family:sans-serif;color:#22302f">${body}<p><a href="${escapeHtml(link.href)}">${escapeHtml(link.label)}</a></p></div>`;
+  const anchors = links.map((link) => `<p><a href="${escapeHtml(link.href)}">${escapeHtml(link.label)}</a></p>`).join('');
+  return `<div style="font-family:sans-serif;color:#22302f">${body}${anchors}</div>`;
 }
 
 export function inviteMail(input: { to: string; inviterName: string; buildName: string; role: string; link: string }): MailMessage {
@@ -33,6 +34,34 @@ export function passwordResetMail(input: { to: string; link: string }): MailMess
     subject: 'Reset your Tallyhood password',
     text: `${lines.join('\n\n')}\n\nChoose a new password: ${input.link}\n`,
     html: html(lines, { href: input.link, label: 'Choose a new password' }),
+  };
+}
+
+/** To a new address: the one-time link that makes the account. */
+export function signUpLinkMail(input: { to: string; displayName: string; link: string }): MailMessage {
+  const lines = [
+    `Welcome to Tallyhood, ${input.displayName}. One step is left: open the link below and your account is made and signed in.`,
+    'The link works once, for 24 hours. If you did not sign up, ignore this mail: no account is made.',
+  ];
+  return {
+    to: input.to,
+    subject: 'Finish creating your Tallyhood account',
+    text: `${lines.join('\n\n')}\n\nFinish creating your account: ${input.link}\n`,
+    html: html(lines, { href: input.link, label: 'Finish creating your account' }),
+  };
+}
+
+/** To an address that has an account, when someone signs up with it again: nothing was changed. */
+export function signUpKnownAddressMail(input: { to: string; signInLink: string; resetLink: string }): MailMessage {
+  const lines = [
+    'Someone tried to create a Tallyhood account with this address, which already has one. Nothing was changed.',
+    'If it was you, sign in with your password, or choose a new password if you have forgotten it. If it was not you, ignore this mail.',
+  ];
+  return {
+    to: input.to,
+    subject: 'You already have a Tallyhood account',
+    text: `${lines.join('\n\n')}\n\nSign in: ${input.signInLink}\nChoose a new password: ${input.resetLink}\n`,
+    html: html(lines, { href: input.signInLink, label: 'Sign in' }, { href: input.resetLink, label: 'Choose a new password' }),
   };
 }
 

@@ -45,6 +45,23 @@ describe('AuthApi', () => {
     expect(answer).toEqual({ user: { id: 'u1', email: 'rosa@example.test', displayName: 'Rosa Quill' } });
   });
 
+  it('answers "check your mail" to a sign-up without an invite, and finishes it with POST /api/auth/sign-up/confirm', () => {
+    let mailed: unknown;
+    api.signUp({ email: 'rosa@example.test', displayName: 'Rosa Quill', password: 'long enough pass' }).subscribe((response) => (mailed = response));
+    const message = 'We sent a message to rosa@example.test. Open the link in it to finish creating your account; it works for 24 hours.';
+    http.expectOne('/api/auth/sign-up').flush({ status: 'check-mail', message }, { status: 202, statusText: 'Accepted' });
+    expect(mailed).toEqual({ status: 'check-mail', message });
+
+    let signedIn: unknown;
+    const token = 't'.repeat(43);
+    api.confirmSignUp({ token }).subscribe((response) => (signedIn = response));
+    const request = http.expectOne('/api/auth/sign-up/confirm');
+    expect(request.request.method).toBe('POST');
+    expect(request.request.body).toEqual({ token });
+    request.flush({ user: { id: 'u2', email: 'rosa@example.test', displayName: 'Rosa Quill' } }, { status: 201, statusText: 'Created' });
+    expect(signedIn).toEqual({ user: { id: 'u2', email: 'rosa@example.test', displayName: 'Rosa Quill' } });
+  });
+
   it('signs in with POST /api/auth/sign-in, and a 401 arrives as an ApiError with the server message in a snack bar', () => {
     const snackBar = jest.spyOn(TestBed.inject(MatSnackBar), 'open');
     let failure: unknown;

@@ -1,4 +1,4 @@
-// Calls to /api/auth: who is signed in, sign-up, sign-in, sign-out and password reset.
+// Calls to /api/auth: who is signed in, sign-up and its mailed link, sign-in, sign-out and password reset.
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
@@ -7,6 +7,8 @@ import type {
   ResetConfirmRequest,
   ResetRequest,
   SignInRequest,
+  SignUpConfirmRequest,
+  SignUpMailedResponse,
   SignUpRequest,
   UserDto,
 } from '../../../../shared/api/auth';
@@ -25,8 +27,14 @@ export class AuthApi {
     return this.http.get<MeResponse>('/api/auth/me');
   }
 
-  signUp(request: SignUpRequest): Observable<SignedInResponse> {
-    return this.http.post<SignedInResponse>('/api/auth/sign-up', request);
+  /** Signed in at once with an invite for its own address; otherwise "check your mail" (202), whatever the address. */
+  signUp(request: SignUpRequest): Observable<SignedInResponse | SignUpMailedResponse> {
+    return this.http.post<SignedInResponse | SignUpMailedResponse>('/api/auth/sign-up', request);
+  }
+
+  /** The mailed link's token: makes the account and signs it in. */
+  confirmSignUp(request: SignUpConfirmRequest): Observable<SignedInResponse> {
+    return this.http.post<SignedInResponse>('/api/auth/sign-up/confirm', request);
   }
 
   signIn(request: SignInRequest): Observable<SignedInResponse> {

@@ -1,4 +1,4 @@
-// Sign-up page: creates the account, and with an invite joins that build and goes to it.
+// Sign-up page: says to check the mail once the link is sent; with an invite for its address, joins that build and goes to it.
 import { Component, inputBinding } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { HttpTestingController } from '@angular/common/http/testing';
@@ -40,18 +40,42 @@ describe('SignUp', () => {
     TestBed.inject(HttpTestingController).verify();
   });
 
-  it('creates the account and goes to the builds', async () => {
+  it('sends the details, then says to check the mail at the address, and can go back to change it', async () => {
     await render(SignUp, { providers: apiTestProviders(routes) });
     await fillAndSubmit();
 
     const request = TestBed.inject(HttpTestingController).expectOne('/api/auth/sign-up');
     expect(request.request.method).toBe('POST');
     expect(request.request.body).toEqual({ displayName: 'Oskar Brandt', email: 'oskar@example.test', password: 'ten or more chars' });
-    request.flush({ user: { id: 'u9', email: 'oskar@example.test', displayName: 'Oskar Brandt' } }, { status: 201, statusText: 'Created' });
-    await settle();
+    request.flush(
+      { status: 'check-mail', message: 'We sent a message to oskar@example.test. Open the link in it to finish creating your account; it works for 24 hours.' },
+      { status: 202, statusText: 'Accepted' },
+    );
 
-    expect(TestBed.inject(Session).user()?.id).toBe('u9');
-    expect(TestBed.inject(Router).url).toBe('/builds');
+    expect(await screen.findByRole('heading', { name: 'Check your mail' })).toBeTruthy();
+    expect(screen.getByRole('status').textContent).toContain('We sent a message to oskar@example.test. Open the link in it to finish creating your account; it works for 24 hours.');
+    expect(screen.getByText('If this address already has an account, the message says so instead, with a link to sign in.')).toBeTruthy();
+    // Nobody is signed in yet, and the page stays where it is.
+    expect(TestBed.inject(Session).user()).toBeNull();
+    expect(TestBed.inject(Router).url).toBe('/');
+
+    await userEvent.setup().click(screen.getByRole('button', { name: 'Change the address' }));
+    expect((screen.getByLabelText('E-mail') as HTMLInputElement).value).toBe('oskar@example.test');
+    expect(screen.queryByRole('heading', { name: 'Check your mail' })).toBeNull();
+  });
+
+  it('shows a refusal beside the field it names', async () => {
+    await render(SignUp, { providers: apiTestProviders(routes), bindings: [inputBinding('invite', () => 'tok-77')] });
+    await fillAndSubmit();
+    TestBed.inject(HttpTestingController)
+      .expectOne('/api/auth/sign-up')
+      .flush(
+        { error: { code: 'validation_failed', message: 'Some fields need attention.', fields: { email: 'This invite was sent to ines@example.test.' } } },
+        { status: 400, statusText: 'Bad Request' },
+      );
+
+    expect(await screen.findByText('This invite was sent to ines@example.test.')).toBeTruthy();
+    expect(screen.getByRole('button', { name: 'Create account' })).toBeTruthy();
   });
 
   it('passes the invite token and then opens the build just joined', async () => {

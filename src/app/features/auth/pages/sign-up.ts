@@ -1,4 +1,5 @@
-// /sign-up: name, e-mail and password; with ?invite=TOKEN it joins that build at the same time.
+// /sign-up: name, e-mail and password, then "check your mail" (the mailed link finishes it, see sign-up-confirm);
+// with ?invite=TOKEN, for the address the invite was sent to, the account is made at once and joins that build.
 import { ChangeDetectionStrategy, Component, inject, input, signal } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -8,7 +9,6 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
 import { catchError, map, of } from 'rxjs';
 import { signUpRequest } from '../../../../../shared/api/auth';
-import { safeReturnTo } from '../../../core/auth/return-to';
 import { Session } from '../../../core/auth/session';
 import { applyFieldErrors, errorOf, validateWith } from '../../../core/forms/form-errors';
 import { toApiError } from '../../../core/http/api-error';
@@ -19,42 +19,8 @@ import { AuthApi, SignedInResponse } from '../../../core/auth/auth-api';
   selector: 'th-sign-up',
   imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatProgressBarModule, RouterLink],
   changeDetection: ChangeDetectionStrategy.OnPush,
-  template: `
-    @if (submitting()) {
-      <mat-progress-bar mode="indeterminate" aria-label="Creating your account" />
-    }
-    <div class="page-narrow">
-      <h1 class="page-heading">Create an account</h1>
-      @if (invite()) {
-        <p class="notice" role="status">Once your account exists you join the build you were invited to.</p>
-      }
-      <form [formGroup]="form" (ngSubmit)="submit()" novalidate>
-        <mat-form-field class="full-width" subscriptSizing="dynamic">
-          <mat-label>Your name</mat-label>
-          <input matInput formControlName="displayName" autocomplete="name" />
-          <mat-hint>Shown to the people you build with.</mat-hint>
-          <mat-error>{{ errorOf(form.controls.displayName) }}</mat-error>
-        </mat-form-field>
-        <mat-form-field class="full-width" subscriptSizing="dynamic">
-          <mat-label>E-mail</mat-label>
-          <input matInput formControlName="email" type="email" autocomplete="email" />
-          <mat-error>{{ errorOf(form.controls.email) }}</mat-error>
-        </mat-form-field>
-        <mat-form-field class="full-width" subscriptSizing="dynamic">
-          <mat-label>Password</mat-label>
-          <input matInput formControlName="password" type="password" autocomplete="new-password" />
-          <mat-hint>At least 10 characters.</mat-hint>
-          <mat-error>{{ errorOf(form.controls.password) }}</mat-error>
-        </mat-form-field>
-        <div class="form-actions">
-          <button mat-flat-button class="cta" type="submit" [disabled]="submitting()">Create account</button>
-        </div>
-      </form>
-      <div class="form-links">
-        <a routerLink="/sign-in" [queryParams]="invite() ? { returnTo: '/invites/' + invite() } : {}">I already have an account</a>
-      </div>
-    </div>
-  `,
+  templateUrl: './sign-up.html',
+  styleUrl: './sign-up.css',
 })
 export class SignUp {
   private readonly authApi = inject(AuthApi);
@@ -62,12 +28,13 @@ export class SignUp {
   private readonly session = inject(Session);
   private readonly router = inject(Router);
 
-  /** Query parameters, bound by the router. */
+  /** Query parameter, bound by the router. */
   readonly invite = input<string>();
-  readonly returnTo = input<string>();
 
   protected readonly errorOf = errorOf;
   protected readonly submitting = signal(false);
+  /** Set once the server has mailed the address: the page then says to check the mail. */
+  protected readonly mailedTo = signal<string | null>(null);
   protected readonly form = inject(NonNullableFormBuilder).group({
     displayName: '',
     email: '',
@@ -81,13 +48,14 @@ export class SignUp {
     this.submitting.set(true);
     this.authApi.signUp(request).subscribe({
       next: (response) => {
-        this.session.setUser(response.user);
-        if (inviteToken) {
+        if ('user' in response) {
+          // Only an invite for this very address signs in at once.
+          this.session.setUser(response.user);
           this.goToJoinedBuild(response);
-        } else {
-          this.submitting.set(false);
-          void this.router.navigateByUrl(safeReturnTo(this.returnTo()));
+          return;
         }
+        this.submitting.set(false);
+        this.mailedTo.set(request.email.toLowerCase());
       },
       error: (error: unknown) => {
         applyFieldErrors(this.form, toApiError(error).fields);
