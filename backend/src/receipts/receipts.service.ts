@@ -93,8 +93,7 @@ interface ReceiptSummaryRow {
  * most of the route's time under load, and a list only answers.
  */
 export async function listReceipts(em: EntityManager, build: Build, filter: ReceiptFilter): Promise<ReceiptSummaryDto[]> {
-  // The first is the lines' build, the second the receipts'.
-  const params: unknown[] = [build.id, build.id];
+  const params: unknown[] = [build.id];
   let where = 'r.build_id = ?';
   const and = (condition: string, value: unknown) => {
     where += ` and ${condition}`;
@@ -106,20 +105,17 @@ export async function listReceipts(em: EntityManager, build: Build, filter: Rece
   if (filter.from) and('r.purchase_date >= ?', filter.from);
   if (filter.to) and('r.purchase_date <= ?', filter.to);
   if (filter.systemId) and('r.id in (select l.receipt_id from receipt_line l where l.system_id = ?)', filter.systemId);
-  // One query. The line counts and systems come from one grouped pass over the build's lines, not an aggregate per
-  // receipt: per receipt, PostgreSQL scanned and sorted the lines once for each, which cost it about twice the time
-  // (`npm run bench`, list routes). The likely duplicates come from a subquery on each receipt's own rows.
+  // One query: the line count, systems and likely duplicates of each receipt come from subqueries on its own rows.
   const rows: ReceiptSummaryRow[] = await em.execute(
     `select r.id, r.purchase_date as "purchaseDate", r.receipt_number as "receiptNumber", r.total, r.state,
             r.reading_progress as "readingProgress", r.review_state as "reviewState", r.original_filename as "originalFilename",
             r.content_type as "contentType", r.created_at as "createdAt", r.version, v.name as "vendorName", u.display_name as "uploadedBy",
-            coalesce(lines.count, 0) as "lineCount", coalesce(lines.systems, '{}') as "systemIds", ${LIKELY_DUPLICATES_OF_R} as "duplicateOf"
+            lines.count as "lineCount", coalesce(lines.systems, '{}') as "systemIds", ${LIKELY_DUPLICATES_OF_R} as "duplicateOf"
        from receipt r
        left join vendor v on v.id = r.vendor_id
        join app_user u on u.id = r.uploaded_by_id
-       left join (select l.receipt_id, count(*)::int as count, array_remove(array_agg(distinct l.system_id), null) as systems
-                    from receipt_line l where l.receipt_id in (select id from receipt where build_id = ?)
-                   group by l.receipt_id) lines on lines.receipt_id = r.id
+       cross join lateral (select count(*)::int as count, array_remove(array_agg(distinct l.system_id), null) as systems
+                             from receipt_line l where l.receipt_id = r.id) lines
       where ${where}
       order by r.purchase_date desc nulls first, r.created_at desc`,
     params,
