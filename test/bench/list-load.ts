@@ -60,20 +60,25 @@ export async function benchListLoad(): Promise<Record<string, string | number>> 
       figures['load: clients'] = CLIENTS;
       figures['load: demo parts, receipts'] = `${parts}, ${receipts}`;
       for (const [, url] of routes) await load(clients, url, SECONDS_PER_TURN, WARM_UP_REQUESTS);
-      const measured = routes.map(() => ({ latencies: [] as number[], seconds: 0 }));
+      const measured = routes.map(() => ({ latencies: [] as number[], seconds: 0, cpuMicroseconds: 0 }));
       for (let round = 0; round < ROUNDS; round += 1) {
         for (const [index, [, url]] of routes.entries()) {
+          const cpu = process.cpuUsage();
           measured[index].seconds += await load(clients, url, SECONDS_PER_TURN, MAX_REQUESTS_PER_TURN, measured[index].latencies);
+          const used = process.cpuUsage(cpu);
+          measured[index].cpuMicroseconds += used.user + used.system;
         }
       }
       const healthRate = measured[0].latencies.length / measured[0].seconds;
       for (const [index, [name]] of routes.entries()) {
-        const { latencies, seconds } = measured[index];
+        const { latencies, seconds, cpuMicroseconds } = measured[index];
         const rate = latencies.length / seconds;
         figures[`load ${name}: requests`] = latencies.length;
         figures[`load ${name}: req/s`] = rate.toFixed(0);
         figures[`load ${name}: p50 ms`] = percentile(latencies, 50).toFixed(1);
         figures[`load ${name}: p95 ms${index > 0 ? " (goal ≤ 150)" : ""}`] = percentile(latencies, 95).toFixed(1);
+        // This process's CPU (the app and the clients) per answer: other work on the machine moves it much less than the rate.
+        figures[`load ${name}: process CPU ms / request`] = (cpuMicroseconds / 1000 / latencies.length).toFixed(2);
         if (index > 0) figures[`load ${name}: rate / health (goal ≥ 0.70)`] = (rate / healthRate).toFixed(2);
       }
       return figures;

@@ -120,10 +120,27 @@ export async function listReceipts(em: EntityManager, build: Build, filter: Rece
       order by r.purchase_date desc nulls first, r.created_at desc`,
     params,
   );
-  return rows.map(({ vendorName, uploadedBy, createdAt, lineCount, systemIds, duplicateOf, ...fields }) =>
+  // Field by field, not by rest and spread of the row: those cost several times the rest of the mapping together
+  // (`npm run bench`, list routes).
+  return rows.map((row) =>
     summaryDto(
-      { ...fields, build, createdAt: new Date(createdAt), vendor: vendorName === null ? null : { name: vendorName }, uploadedBy: { displayName: uploadedBy } },
-      { lineCount, duplicateOf, systemIds },
+      {
+        id: row.id,
+        purchaseDate: row.purchaseDate,
+        receiptNumber: row.receiptNumber,
+        total: row.total,
+        state: row.state,
+        readingProgress: row.readingProgress,
+        reviewState: row.reviewState,
+        originalFilename: row.originalFilename,
+        contentType: row.contentType,
+        createdAt: new Date(row.createdAt),
+        version: row.version,
+        build,
+        vendor: row.vendorName === null ? null : { name: row.vendorName },
+        uploadedBy: { displayName: row.uploadedBy },
+      },
+      { lineCount: row.lineCount, duplicateOf: row.duplicateOf, systemIds: row.systemIds },
     ),
   );
 }
