@@ -20,6 +20,15 @@ describe('a figure printed nowhere needs two independent facts', () => {
     expect(receipt.agreements).toEqual(['the amount tendered minus the change matches it', 'the lines add up to it']);
   });
 
+  it('keeps cash minus change when the total line is lost and the lines are one line short, never mends it to their sum', () => {
+    // The grand total's line was lost to OCR and a 20.00 item line lost its point ("2000"): the lines add up to
+    // 72.80, one digit from 92.80, but 92.80 was given by the cash block, not misread.
+    const receipt = read(['KEDAI SETIA', 'PAIP  28.00', 'KLIP  13.00', 'HOS  2000', 'MINYAK  31.80', 'CASH  100.00', 'CHANGE  7.20']);
+    expect(receipt.total.value).toBe('92.80');
+    expect(receipt.agreements).toEqual(['the amount tendered minus the change matches it']);
+    expect(receipt.notes.join(' ')).not.toContain('taken as 72.80');
+  });
+
   it('makes the total from subtotal + tax + rounding when the tax table agrees, over a misread total and change', () => {
     // Printed 112.45 (read 112.46), CASH 112.45 (read 112.48), CHANGE 0.00 (read 6.00).
     const receipt = read(['KEDAI SETIA', 'PAIP  106.10', 'SUB TOTAL  106.10', 'TOTAL GST  6.37', 'ROUNDING  -0.02', 'TOTAL  112.46', 'CASH  112.48', 'CHANGE  6.00', 'GST SUMMARY', 'TAX CODE  %  AMOUNT  GST', 'SR  6  106.10  6.37']);

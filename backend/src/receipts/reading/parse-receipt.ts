@@ -534,8 +534,10 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
   const base = subtotal ? subtotal.value.plus(rounding) : lineSum;
   const computedTotal = sum([base, tax?.value ?? new Decimal(0), shipping?.value ?? new Decimal(0), (discountValue ?? new Decimal(0)).negated()]);
   let totalRepaired = false;
-  // Only a total the OCR itself was unsure of is corrected; a well-read one that does not add up is reported.
-  if (total && total.confidence < 0.8 && !computedTotal.equals(total.value) && (linesMatchSubtotal || subtotal === null) && readLines.length > 0) {
+  // Only a printed total the OCR itself was unsure of is corrected; a well-read one that does not add up is reported,
+  // and so is one the slip's own arithmetic gave (tendered minus change): no digit of it was misread, while lines
+  // are often lost.
+  if (total && chosen.totalIndex !== null && total.confidence < 0.8 && !computedTotal.equals(total.value) && (linesMatchSubtotal || subtotal === null) && readLines.length > 0) {
     // One misread character in the total ("$517.72" for $17.72) when everything else adds up.
     if (editDistance(digitsOf(toWire(computedTotal, 2)), digitsOf(toWire(total.value, 2))) <= 1 && computedTotal.isNegative() === total.value.isNegative()) {
       notes.push(`The total reads ${toWire(total.value, 2)}; taken as ${toWire(computedTotal, 2)}, what the lines and charges add up to. Check it.`);
