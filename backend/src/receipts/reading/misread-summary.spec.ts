@@ -29,6 +29,21 @@ describe('a figure printed nowhere needs two independent facts', () => {
     expect(receipt.notes.join(' ')).not.toContain('taken as 72.80');
   });
 
+  it('takes the figure the arithmetic gives within a total whose last decimal OCR garbled ("TOTAL 213.9%")', () => {
+    // 180.00 + 10 % service 18.00 + 6 % tax 11.88 - rounding 0.03 = 209.85; a tax-table net (198.00) lies below.
+    const receipt = read(['KEDAI SETIA', 'PAIP  100.00', 'KLIP  80.00', 'SUB TOTAL  180.00', 'SERVICE CHARGE 10%  18.00', 'GST 6%  11.88', 'ROUNDING ADJ  -0.03', 'TOTAL  209.8%', 'SR GST  198.00']);
+    expect(receipt.total.value).toBe('209.85');
+    expect(receipt.agreements).toContain('it is printed beside a total word, its last digit unclear');
+    // One decimal short ("NET TOTAL 209.8") reads the same way.
+    expect(read(['KEDAI SETIA', 'PAIP  100.00', 'KLIP  80.00', 'SUB TOTAL  180.00', 'SERVICE CHARGE 10%  18.00', 'GST 6%  11.88', 'ROUNDING ADJ  -0.03', 'NET TOTAL  209.8', 'SR GST  198.00']).total.value).toBe('209.85');
+  });
+
+  it('gives a garbled total no figure the arithmetic does not make within its range', () => {
+    const receipt = read(['KEDAI SETIA', 'PAIP  100.00', 'TOTAL  343.9%']);
+    expect(receipt.total.value).toBeNull();
+    expect(receipt.notes).toContain('No total was found; enter it from the receipt.');
+  });
+
   it('makes the total from subtotal + tax + rounding when the tax table agrees, over a misread total and change', () => {
     // Printed 112.45 (read 112.46), CASH 112.45 (read 112.48), CHANGE 0.00 (read 6.00).
     const receipt = read(['KEDAI SETIA', 'PAIP  106.10', 'SUB TOTAL  106.10', 'TOTAL GST  6.37', 'ROUNDING  -0.02', 'TOTAL  112.46', 'CASH  112.48', 'CHANGE  6.00', 'GST SUMMARY', 'TAX CODE  %  AMOUNT  GST', 'SR  6  106.10  6.37']);

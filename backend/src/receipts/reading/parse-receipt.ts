@@ -7,7 +7,7 @@ import { findDate } from './dates';
 import { chooseReceiptDate, dateLimits } from './receipt-date';
 import { findVendor } from './vendor';
 import { editDistance, hasWord, keywordOf, readLabel, sameWord } from './label-words';
-import { chooseFigures, SummaryEntry, TaxTable, TaxTableRow } from './summary-figures';
+import { chooseFigures, SummaryEntry, TaxTable, TaxTableRow, UnclearTotal } from './summary-figures';
 import { TAX_TABLE_WORDS } from './summary-words';
 import type { SummaryRole } from './summary-words';
 import { TextLine, TextPage, TextWord, lineText, unionBox } from './text-lines';
@@ -423,6 +423,17 @@ function rightmostAmount(analysed: AnalysedLine): ReadAmount | null {
   return { ...last.amount!, confidence: Math.min(last.amount!.confidence, ...last.words.map((word) => word.confidence)) };
 }
 
+/** A total word beside an amount one decimal short, or with its last decimal garbled into a mark ("174.9", "343.9%"). */
+function unclearTotal(analysed: AnalysedLine, minorUnits: number, index: number): UnclearTotal | null {
+  const role = analysed.summary ?? analysed.labelOnly;
+  if ((role !== 'total' && role !== 'final_total') || analysed.notASum || minorUnits < 1) return null;
+  const words = analysed.line.words;
+  const last = words[words.length - 1]?.text ?? '';
+  const match = new RegExp(`^([0-9]+)[.,]([0-9]{${minorUnits - 1}})[^0-9A-Za-z]?$`).exec(last);
+  if (!match) return null;
+  return { from: new Decimal(`${match[1]}.${match[2] || '0'}`), step: new Decimal(1).dividedBy(10 ** minorUnits), index };
+}
+
 function field(value: string | null, confidence: number): ReadField<string> {
   return { value, confidence: value === null ? 0 : round2(confidence) };
 }
@@ -497,9 +508,12 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
   // Summary figures: every figure printed beside a summary word is a candidate; the receipt's arithmetic chooses.
   const entries: SummaryEntry[] = lostTotal ? [{ role: 'unlabelled', value: lostTotal.amount, index: lostTotal.lineIndex!, confidence: lostTotal.confidence }] : [];
   const taxTable = readTaxTable(lines, itemEnd);
+  const unclearTotals: UnclearTotal[] = [];
   for (let index = itemEnd; index < lines.length; index += 1) {
     const analysed = lines[index];
     const amount = rightmostAmount(analysed);
+    const unclear = amount ? null : unclearTotal(analysed, amountOptions.minorUnits ?? 2, index);
+    if (unclear) unclearTotals.push(unclear);
     // The tax table's own total row ("TOTAL: 26.00 1.56") ends on the tax, not on the receipt's total.
     if (!amount || analysed.notASum || index === taxTable.totalIndex) continue;
     entries.push({ role: analysed.summary ?? 'unlabelled', value: new Decimal(amount.value), index, confidence: Math.min(amount.confidence, analysed.confidence) });
@@ -508,7 +522,7 @@ export function parseReceipt(pages: TextPage[], options: ParseOptions): ReadRece
   const printedSubtotal = entries.find((entry) => entry.role === 'subtotal');
   const repairedLine = printedSubtotal ? repairOneLine(readLines, printedSubtotal.value, notes) : null;
   const itemSum = sum(readLines.map((item) => new Decimal(item.amount)));
-  const chosen = chooseFigures(entries, readLines.length > 0 ? itemSum : null, taxTable);
+  const chosen = chooseFigures(entries, readLines.length > 0 ? itemSum : null, taxTable, unclearTotals);
   const { subtotal, shipping, discount } = chosen;
   // A slip that prints its tax only in the table under the total (common in Europe): the table's taxes add up.
   const tableRows = taxTable.rows.length > 0 ? taxTable.rows : taxTable.total ? [taxTable.total] : [];

@@ -17,6 +17,16 @@ export interface SummaryEntry {
   confidence: number;
 }
 
+/**
+ * A total whose last decimal OCR lost or garbled ("NET TOTAL 174.9", "TOTAL 343.9%"): the figure printed lies from
+ * `from` up to, not including, `from` plus ten of the currency's smallest units (`step`).
+ */
+export interface UnclearTotal {
+  from: Decimal;
+  step: Decimal;
+  index: number;
+}
+
 export interface Figure {
   value: Decimal;
   confidence: number;
@@ -102,7 +112,7 @@ export function readRoundingRows(entries: SummaryEntry[]): SummaryEntry[] {
   });
 }
 
-export function chooseFigures(printed: SummaryEntry[], lineSum: Decimal | null, taxTable: TaxTable = { rows: [], total: null, totalIndex: null }): ChosenFigures {
+export function chooseFigures(printed: SummaryEntry[], lineSum: Decimal | null, taxTable: TaxTable = { rows: [], total: null, totalIndex: null }, unclearTotals: UnclearTotal[] = []): ChosenFigures {
   const entries = readRoundingRows(printed);
   const ofRole = (...roles: SummaryEntry['role'][]) => entries.filter((entry) => roles.includes(entry.role));
   const firstTotal = ofRole('total', 'final_total')[0];
@@ -251,6 +261,18 @@ export function chooseFigures(printed: SummaryEntry[], lineSum: Decimal | null, 
   for (const gross of grosses) {
     for (const target of candidates.values()) {
       if (gross.equals(target.value) || (target.rounding && gross.plus(target.rounding).equals(target.value))) addFact(target, 1.5, 'net plus tax in the tax table gives it');
+    }
+  }
+
+  // A total word beside an amount whose last decimal OCR lost or garbled: a figure the slip's arithmetic gives within
+  // that range is the one printed there after all.
+  for (const unclear of unclearTotals.filter((entry) => entry.index < paymentStart)) {
+    const end = unclear.from.plus(unclear.step.times(10));
+    for (const target of candidates.values()) {
+      if (target.value.lessThan(unclear.from) || !target.value.lessThan(end)) continue;
+      addFact(target, 2, 'it is printed beside a total word, its last digit unclear');
+      target.printed = true;
+      if (target.index === null || unclear.index > target.index) target.index = unclear.index;
     }
   }
 
