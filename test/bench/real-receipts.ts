@@ -70,7 +70,9 @@ export function truthDate(printed: string): string | null {
   match = /^(\d{1,2})[\s-]*([A-Z]{3})[A-Z]*[\s-]*(\d{2}|\d{4})$/.exec(text);
   if (match && MONTHS.includes(match[2])) return make(Number(match[3]), MONTHS.indexOf(match[2]) + 1, Number(match[1]));
   match = /^(\d{4})(\d{2})(\d{2})$/.exec(text);
-  if (match && Number(match[1]) > 1990) return make(Number(match[1]), Number(match[2]), Number(match[3]));
+  // Eight digits are year first only when that makes a real date ("25032018" is day first).
+  const yearFirst = match && Number(match[1]) > 1990 ? make(Number(match[1]), Number(match[2]), Number(match[3])) : null;
+  if (yearFirst) return yearFirst;
   match = /^(\d{2})(\d{2})(\d{4})$/.exec(text);
   if (match) return make(Number(match[3]), Number(match[2]), Number(match[1]));
   return null;
