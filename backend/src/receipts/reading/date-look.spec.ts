@@ -53,10 +53,21 @@ describe('lookAgainAtDate', () => {
     expect(await look(lines, { value: null, confidence: 0 })).toEqual({ date: { value: '2018-01-25', confidence: 0.6 }, reread: 1 });
   });
 
-  it('reads nothing again when the first date was sure, or when no line looks like a date', async () => {
+  it('reads nothing again when the first date was sure', async () => {
     const sure = { value: '2018-01-25', confidence: 0.9 };
     expect(await look(firstReading([['DATE:', 0.95], ['25/01/2018', 0.95]]), sure)).toEqual({ date: sure, reread: 0 });
-    expect(await look(firstReading([['THANK', 0.9], ['YOU', 0.9]]), { value: null, confidence: 0 })).toEqual({ date: { value: null, confidence: 0 }, reread: 0 });
+  });
+
+  it('reads the upper half of the slip as sparse text when no line of the first reading looks like a date', async () => {
+    // The same print on a taller slip, its date line in the upper half; the first reading garbled it past recognition.
+    const svg = '<svg xmlns="http://www.w3.org/2000/svg" width="900" height="400"><rect width="900" height="400" fill="#fff"/><text x="40" y="85" font-family="DejaVu Sans Mono" font-size="32" fill="#000">DATE: 25/01/2018 13:22</text><text x="40" y="330" font-family="DejaVu Sans Mono" font-size="32" fill="#000">THANK YOU</text></svg>';
+    const { data, info } = await sharp(Buffer.from(svg)).greyscale().png().toBuffer({ resolveWithObject: true });
+    const tall = { png: data, width: info.width, height: info.height };
+    const garbled = firstReading([['WOE', 0.2], ['1,15.)', 0.1], ['ORRIN,', 0.2]]);
+    expect(await lookAgainAtDate(pool, tall, garbled, { value: null, confidence: 0 }, 'en-MY', LIMITS)).toEqual({ date: { value: '2018-01-25', confidence: 0.5 }, reread: 0 });
+    // Nothing date-like in the upper half: still no date.
+    const blank = await sharp({ create: { width: 900, height: 400, channels: 3, background: '#ffffff' } }).greyscale().png().toBuffer();
+    expect(await lookAgainAtDate(pool, { png: blank, width: 900, height: 400 }, garbled, { value: null, confidence: 0 }, 'en-MY', LIMITS)).toEqual({ date: { value: null, confidence: 0 }, reread: 0 });
   });
 });
 

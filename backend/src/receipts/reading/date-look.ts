@@ -8,7 +8,7 @@ import type { DateLimits } from './dates';
 import { findDates } from './dates';
 import { keywordOf } from './label-words';
 import type { NormalisedImage } from './normalise';
-import type { OcrPool } from './ocr';
+import type { OcrLayout, OcrPool } from './ocr';
 import { DATE_WORDS, chooseReceiptDate } from './receipt-date';
 import { type TextLine, lineText, unionBox } from './text-lines';
 
@@ -17,14 +17,18 @@ export const DATE_SCALES = [2, 0.875];
 
 /**
  * The looks taken at a date line, in turn: as part of a block at the band's two sizes, then as one line (tesseract's
- * single-line mode) larger and between. Measured on the real scans, each way reads dates the others misread: at the
- * slip's own size OCR merges a 7 with the slash after it, and the single-line mode keeps faint separators.
+ * single-line mode) larger and between, then as sparse text at its own size and larger. Measured on the real scans,
+ * each way reads dates the others misread: at the slip's own size OCR merges a 7 with the slash after it, the
+ * single-line mode keeps faint separators, and the sparse mode reads past a pen stroke across the digits or a rule
+ * printed under them.
  */
-const DATE_LOOKS: Array<{ scale: number; layout: 'block' | 'line' }> = [
+const DATE_LOOKS: Array<{ scale: number; layout: OcrLayout }> = [
   { scale: 2, layout: 'block' },
   { scale: 0.875, layout: 'block' },
   { scale: 2, layout: 'line' },
   { scale: 1.5, layout: 'line' },
+  { scale: 1, layout: 'sparse' },
+  { scale: 2, layout: 'sparse' },
 ];
 /** Below this OCR confidence a date's digits are worth a second look (measured on real scans: 0.7). */
 const UNSURE_DATE = 0.7;
@@ -69,7 +73,7 @@ function dateConfidence(line: TextLine, value: string, locale: string, limits: D
  * of some rows' heights at either side (wider for a band: the first reading's boxes of a garbled line need not cover
  * its print).
  */
-async function rereadLines(pool: OcrPool, image: NormalisedImage, lines: TextLine[], scale: number, sideRows: number, layout: 'block' | 'line' = 'block'): Promise<string> {
+async function rereadLines(pool: OcrPool, image: NormalisedImage, lines: TextLine[], scale: number, sideRows: number, layout: OcrLayout = 'block'): Promise<string> {
   const box = unionBox(lines.map((line) => line.box));
   const rowHeight = Math.max(...lines.map((line) => line.box.h));
   const margin = Math.round(rowHeight * 0.6);
@@ -91,6 +95,19 @@ function besideLines(lines: TextLine[], index: number): TextLine[] {
   const line = lines[index];
   const near = (other: TextLine) => Math.abs(other.box.y + other.box.h / 2 - (line.box.y + line.box.h / 2)) <= 3 * line.box.h;
   return lines.slice(Math.max(0, index - 1), index + 2).filter((other) => other === line || near(other));
+}
+
+/**
+ * With no line that looks like a date, the upper half of the slip (where the issue date is printed) read as sparse
+ * text: a rule printed under the date or a stamp across it can leave the first reading nothing date-like at all.
+ */
+async function upperHalfDate(pool: OcrPool, image: NormalisedImage, locale: string, limits: DateLimits): Promise<ReadField<string>> {
+  const height = Math.round(image.height / 2);
+  if (height < 8) return { value: null, confidence: 0 };
+  const half = await sharp(image.png).extract({ left: 0, top: 0, width: image.width, height }).png({ compressionLevel: 1 }).toBuffer();
+  const lines = (await pool.read(half, 0, 'sparse')).lines;
+  const value = dateOf(lines, new Map(), locale, limits);
+  return value === null ? { value: null, confidence: 0 } : { value, confidence: 0.5 };
 }
 
 export interface DateLook {
@@ -117,7 +134,7 @@ export async function lookAgainAtDate(pool: OcrPool, image: NormalisedImage, lin
     const worded = lines.flatMap((line, index) => (keywordsOf(lineText(line)).some((word) => DATE_WORDS.includes(word)) ? [index] : []));
     const like = lines.flatMap((line, index) => (DATE_LIKE.test(lineText(line)) ? [index] : []));
     targets = [...new Set([...worded, ...like])].slice(0, MOST_LINES);
-    if (targets.length === 0) return { date: first, reread: 0 };
+    if (targets.length === 0) return { date: await upperHalfDate(pool, image, locale, limits), reread: 0 };
   }
   const readings: string[] = [];
   for (const { scale, layout } of DATE_LOOKS) {

@@ -29,6 +29,9 @@ export function modelFor(locale: string): OcrModel {
   return language && folder ? { language, langPath: folder, gzip: false } : { language: 'eng', langPath: trainedDataFolder(), gzip: true };
 }
 
+/** How tesseract lays out what it reads: one block of lines, one line, or sparse text in any order. */
+export type OcrLayout = 'block' | 'line' | 'sparse';
+
 export interface OcrPage {
   lines: TextLine[];
 }
@@ -76,19 +79,20 @@ export class OcrPool {
 
   /**
    * Reads one page (or a band of one) as a single block of text; `layout: 'line'` reads a crop of one printed line as
-   * one line (tesseract's single-line mode), which holds a line's faint separators better than the block mode.
+   * one line (tesseract's single-line mode), which holds a line's faint separators better than the block mode, and
+   * `'sparse'` finds what text it can in any order (tesseract's sparse mode), which reads past a pen stroke or a rule.
    */
-  async read(png: Buffer, page: number, layout: 'block' | 'line' = 'block'): Promise<OcrPage> {
+  async read(png: Buffer, page: number, layout: OcrLayout = 'block'): Promise<OcrPage> {
     await this.start();
     const entry = await this.acquire();
     try {
-      if (layout === 'line') await entry.worker.setParameters({ tessedit_pageseg_mode: PSM.SINGLE_LINE });
+      if (layout !== 'block') await entry.worker.setParameters({ tessedit_pageseg_mode: layout === 'line' ? PSM.SINGLE_LINE : PSM.SPARSE_TEXT });
       // The page comes straightened by normaliseImage (paper.ts finds the slant): tesseract's own rotateAuto would
       // spend a whole layout pass, about a third of the reading time, finding it again.
       const result = await entry.worker.recognize(png, {}, { blocks: true, text: false });
       return { lines: linesFromBlocks(result.data.blocks ?? [], page) };
     } finally {
-      if (layout === 'line') await entry.worker.setParameters({ tessedit_pageseg_mode: PSM.SINGLE_BLOCK });
+      if (layout !== 'block') await entry.worker.setParameters({ tessedit_pageseg_mode: PSM.SINGLE_BLOCK });
       this.release(entry);
     }
   }
