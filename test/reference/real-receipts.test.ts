@@ -131,9 +131,10 @@ whenPresent('20 real scans read end to end (tesseract.js, the image preparation,
   });
 });
 
-// Measured on the sample (receipts 000, 010, ... 190): 16 totals, 18 dates and 15 shop names right (with two
-// independent facts for a figure printed nowhere, the date and heading looks; before them 15, 18 and not held); see
-// the bench's real-receipt section for the whole set.
-const TOTAL_FLOOR = 16;
+// Measured on the sample (receipts 000, 010, ... 190): 17 totals, 18 dates and 15 shop names right (with a total
+// whose last decimal was garbled backed by the arithmetic within its range; before it 16; with two independent facts
+// for a figure printed nowhere, the date and heading looks; before them 15, 18 and not held); see the bench's
+// real-receipt section for the whole set.
+const TOTAL_FLOOR = 17;
 const DATE_FLOOR = 18;
 const VENDOR_FLOOR = 15;
