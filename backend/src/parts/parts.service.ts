@@ -5,6 +5,7 @@ import type { PartStatus } from '../../../shared/enums';
 import { type Decimal, fitsStoredAmount, minorUnits, multiply, storedToWire, toWire } from '../../../shared/money';
 import type { Unit } from '../../../shared/units';
 import type { Build } from '../builds/build.entity';
+import { preparedRows } from '../db/prepared-rows';
 import { NotFound, StaleVersion, ValidationFailed } from '../http/errors';
 import { checkBudget, findSystem, partEstimate } from '../systems/systems.service';
 import { warrantyEnds } from '../../../shared/warranty';
@@ -72,7 +73,8 @@ export async function listParts(em: EntityManager, build: Build, filter: { syste
     params.push(filter.status);
   }
   type PartRow = Omit<PartDto, 'warranty' | 'warrantyEnds'> & { warrantyMonths: number | null; warrantyLifetime: boolean };
-  const rows: PartRow[] = await em.execute(
+  const rows = await preparedRows<PartRow>(
+    em,
     `select p.id, p.system_id as "systemId", p.description, p.part_number as "partNumber", p.quantity, p.unit,
             p.estimated_unit_cost as "estimatedUnitCost", round(p.quantity * p.estimated_unit_cost, ?) as "estimatedTotal",
             p.status, p.storage_location as "storageLocation", p.source_url as "sourceUrl", p.notes, p.for_sale as "forSale",

@@ -11,6 +11,7 @@ import { recordAudit } from '../audit/audit';
 import { Conflict, Forbidden, NotFound, StaleVersion, ValidationFailed } from '../http/errors';
 import type { JobQueue } from '../jobs/queue';
 import type { ObjectStore } from '../storage/object-store';
+import { preparedRows } from '../db/prepared-rows';
 import { LIKELY_DUPLICATES_OF_R, summaryDto } from './receipt-dto';
 import { ReceiptLine } from './receipt-line.entity';
 import { Receipt } from './receipt.entity';
@@ -106,7 +107,8 @@ export async function listReceipts(em: EntityManager, build: Build, filter: Rece
   if (filter.to) and('r.purchase_date <= ?', filter.to);
   if (filter.systemId) and('r.id in (select l.receipt_id from receipt_line l where l.system_id = ?)', filter.systemId);
   // One query: the line count, systems and likely duplicates of each receipt come from subqueries on its own rows.
-  const rows: ReceiptSummaryRow[] = await em.execute(
+  const rows = await preparedRows<ReceiptSummaryRow>(
+    em,
     `select r.id, r.purchase_date as "purchaseDate", r.receipt_number as "receiptNumber", r.total, r.state,
             r.reading_progress as "readingProgress", r.review_state as "reviewState", r.original_filename as "originalFilename",
             r.content_type as "contentType", r.created_at as "createdAt", r.version, v.name as "vendorName", u.display_name as "uploadedBy",
