@@ -79,7 +79,8 @@ export async function listParts(em: EntityManager, build: Build, filter: { syste
             p.estimated_unit_cost as "estimatedUnitCost", round(p.quantity * p.estimated_unit_cost, ?) as "estimatedTotal",
             p.status, p.storage_location as "storageLocation", p.source_url as "sourceUrl", p.notes, p.for_sale as "forSale",
             p.asking_price as "askingPrice", p.warranty_months as "warrantyMonths", p.warranty_lifetime as "warrantyLifetime",
-            p.warranty_start::text as "warrantyStart", p.warranty_receipt_id as "warrantyReceiptId", p.version, p.updated_at as "updatedAt"
+            p.warranty_start::text as "warrantyStart", p.warranty_receipt_id as "warrantyReceiptId", p.version,
+            to_char(p.updated_at at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"') as "updatedAt"
        from part p join vehicle_system s on s.id = p.system_id
       where ${where}
       order by s.sort_order asc, p.created_at asc`,
@@ -109,7 +110,7 @@ export async function listParts(em: EntityManager, build: Build, filter: { syste
       warrantyEnds: warrantyEnds(warranty, row.warrantyStart),
       warrantyReceiptId: row.warrantyReceiptId,
       version: row.version,
-      updatedAt: new Date(row.updatedAt).toISOString(),
+      updatedAt: row.updatedAt,
     };
   });
 }
