@@ -30,25 +30,33 @@ function mapMembership(manager: EntityManager, row: Row, userId: string): Member
   return manager.map(Membership, { id: membership_id, role: membership_role, created_at: membership_created_at, build_id: build.id, user_id: userId });
 }
 
-/** The user's columns, each as `user_<column>`: they share the row with the build's, and both have an id. */
-function userColumns(manager: EntityManager): string[] {
-  return manager
-    .getMetadata()
-    .get(User.name)
-    .props.filter((prop) => prop.kind === ReferenceKind.SCALAR && prop.persist !== false)
-    .flatMap((prop) => prop.fieldNames);
+/**
+ * The user's columns (each read as `user_<column>`: they share the row with the build's, and both have an id) and
+ * the query, made once per ORM's metadata rather than on every request.
+ */
+const userQueries = new WeakMap<object, { columns: string[]; sql: string }>();
+
+function userWithMembershipQuery(manager: EntityManager): { columns: string[]; sql: string } {
+  const metadata = manager.getMetadata();
+  let query = userQueries.get(metadata);
+  if (!query) {
+    const columns = metadata
+      .get(User.name)
+      .props.filter((prop) => prop.kind === ReferenceKind.SCALAR && prop.persist !== false)
+      .flatMap((prop) => prop.fieldNames);
+    const sql = `select ${columns.map((column) => `u.${column} as user_${column}`).join(', ')}, ${MEMBERSHIP_COLUMNS}
+       from app_user u
+       left join (membership m join build b on b.id = m.build_id) on m.user_id = u.id and m.build_id = ?
+      where u.id = ?`;
+    query = { columns, sql };
+    userQueries.set(metadata, query);
+  }
+  return query;
 }
 
 async function userWithMembership(manager: EntityManager, userId: string, buildId: string): Promise<{ user: User | null; membership: Membership | null }> {
-  const columns = userColumns(manager);
-  const [row] = await preparedRows<Row>(
-    manager,
-    `select ${columns.map((column) => `u.${column} as user_${column}`).join(', ')}, ${MEMBERSHIP_COLUMNS}
-       from app_user u
-       left join (membership m join build b on b.id = m.build_id) on m.user_id = u.id and m.build_id = ?
-      where u.id = ?`,
-    [buildId, userId],
-  );
+  const { columns, sql } = userWithMembershipQuery(manager);
+  const [row] = await preparedRows<Row>(manager, sql, [buildId, userId]);
   if (!row) return { user: null, membership: null };
   const userRow: Row = {};
   for (const column of columns) {

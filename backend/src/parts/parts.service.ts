@@ -5,6 +5,7 @@ import type { PartStatus } from '../../../shared/enums';
 import { type Decimal, fitsStoredAmount, minorUnits, multiply, storedToWire, toWire } from '../../../shared/money';
 import type { Unit } from '../../../shared/units';
 import type { Build } from '../builds/build.entity';
+import { isoTimeSql } from '../db/iso-time-sql';
 import { preparedRows } from '../db/prepared-rows';
 import { NotFound, StaleVersion, ValidationFailed } from '../http/errors';
 import { checkBudget, findSystem, partEstimate } from '../systems/systems.service';
@@ -80,7 +81,7 @@ export async function listParts(em: EntityManager, build: Build, filter: { syste
             p.status, p.storage_location as "storageLocation", p.source_url as "sourceUrl", p.notes, p.for_sale as "forSale",
             p.asking_price as "askingPrice", p.warranty_months as "warrantyMonths", p.warranty_lifetime as "warrantyLifetime",
             p.warranty_start::text as "warrantyStart", p.warranty_receipt_id as "warrantyReceiptId", p.version,
-            to_char(p.updated_at at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"') as "updatedAt"
+            ${isoTimeSql('p.updated_at')} as "updatedAt"
        from part p join vehicle_system s on s.id = p.system_id
       where ${where}
       order by s.sort_order asc, p.created_at asc`,
