@@ -156,3 +156,23 @@ it('lets a member leave, but not remove someone else', async () => {
   expect((await helper.client.delete(`/api/builds/${build.id}/members/${helper.userId}`)).status).toBe(204);
   expect((await helper.client.get(`/api/builds/${build.id}`)).status).toBe(404);
 });
+
+it('answers each build route with the role in the build its URL names, whatever the case of the id', async () => {
+  const { client: owner, build } = await ownerWithBuild();
+  const member = await signedUpClient(t.app, 'two-builds');
+  const own = (await member.client.post('/api/builds', { ...NEW_BUILD, name: 'Own build' })).body;
+  await owner.post(`/api/builds/${build.id}/invites`, { email: member.email, role: 'reviewer' });
+  await member.client.post(`/api/invites/${await inviteToken(member.email)}/accept`);
+
+  // The user and the membership are read together from the URL's build id; the guard reads the same build.
+  const upper = build.id.toUpperCase();
+  expect((await member.client.get(`/api/builds/${upper}`)).body).toMatchObject({ id: build.id, role: 'reviewer' });
+  expect((await member.client.get(`/api/builds/${own.id.toUpperCase()}`)).body).toMatchObject({ id: own.id, role: 'owner' });
+  // Owning another build makes no one an owner here: a reviewer adds no part (refused before the body is read).
+  const refused = await member.client.post(`/api/builds/${upper}/parts`, {});
+  expect(refused.status).toBe(403);
+  expect((await owner.get(`/api/builds/${build.id}/parts`)).body.parts).toEqual([]);
+  const stranger = await signedUpClient(t.app, 'stranger');
+  expect((await stranger.client.get(`/api/builds/${upper}/parts`)).status).toBe(404);
+  expect((await stranger.client.get(`/api/builds/${own.id}/receipts`)).status).toBe(404);
+});

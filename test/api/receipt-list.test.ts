@@ -1,5 +1,6 @@
 // The receipts list against the real PostgreSQL: each receipt's line count and the systems its lines are assigned to
 // (each once, in id order), whatever the filter, and nothing from another build's receipts.
+import { Receipt } from '../../backend/src/receipts/receipt.entity';
 import { NEW_BUILD, signedUpClient } from '../support/api-client';
 import { filedReceipt } from '../support/receipts';
 import { startTestApp, type TestApp } from '../support/test-app';
@@ -37,6 +38,9 @@ it('counts each receipt\'s lines and names its systems once each', async () => {
   ];
   const all = await owner.client.get(`/api/builds/${build.id}/receipts`);
   expect([all.status, summary(all.body.receipts)]).toEqual([200, expected]);
+  // Each time as the saved one's Date prints it (the list has PostgreSQL write it, to the millisecond, in UTC).
+  const saved = await t.orm.em.fork().find(Receipt, { id: { $in: [mixed.id, empty.id] } }, { orderBy: { purchaseDate: 'desc' } });
+  expect(all.body.receipts.map((receipt: { createdAt: string }) => receipt.createdAt)).toEqual(saved.map((receipt) => receipt.createdAt.toISOString()));
   // A filter narrows the receipts, never the lines counted on one it keeps.
   const braking = await owner.client.get(`/api/builds/${build.id}/receipts?systemId=${brakes}`);
   expect(summary(braking.body.receipts)).toEqual([expected[0]]);

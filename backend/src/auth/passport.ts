@@ -1,8 +1,9 @@
 // Passport with a local strategy (e-mail and password); sessions hold only the user's id.
 import { RequestContext } from '@mikro-orm/core';
-import type { EntityManager } from '@mikro-orm/postgresql';
 import { Passport } from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
+import type { Request } from 'express';
+import { signedInUser } from '../http/request-identity';
 import { User } from './user.entity';
 import { burnVerifyTime, verifyPassword } from './passwords';
 
@@ -27,16 +28,9 @@ export function createPassport(): AppPassport {
     }),
   );
   passport.serializeUser((user, done) => done(null, user.id));
-  // Every signed-in request reads its user: one plain query mapped to the entity. findOne's query building and
-  // populate planning cost about four times the query itself, on every request (`npm run bench`, list routes).
-  passport.deserializeUser(async (id: string, done) => {
-    try {
-      const em = RequestContext.getEntityManager() as EntityManager;
-      const [row] = await em.execute('select * from app_user where id = ?', [id]);
-      done(null, row ? em.map(User, row) : false);
-    } catch (error) {
-      done(error);
-    }
+  // Every signed-in request reads its user (on a build's route with the membership the guard needs: one query).
+  passport.deserializeUser((req: Request, id: string, done: (error: unknown, user?: User | false) => void) => {
+    signedInUser(req, id).then((user) => done(null, user ?? false), done);
   });
   return passport;
 }

@@ -4,9 +4,9 @@ import { RequestContext } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import type { RequestHandler, Response } from 'express';
 import type { BuildRole } from '../../../shared/enums';
-import { Build } from '../builds/build.entity';
 import { Membership } from '../builds/membership.entity';
 import { Conflict, Forbidden, NotFound, Unauthenticated } from './errors';
+import { callerMembership } from './request-identity';
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
@@ -35,31 +35,12 @@ export function buildRoleEvenArchived(...roles: BuildRole[]): RequestHandler {
   return buildAccess(roles, { archivedWritable: true });
 }
 
-/**
- * The caller's membership with its build, in one plain query mapped to both entities (managed, as findOne would
- * make them). Every build route runs this: findOne with a populate spent about five times the query's own time
- * building it (`npm run bench`, list routes).
- */
-async function membershipWithBuild(buildId: string, userId: string): Promise<Membership | null> {
-  const manager = em();
-  const [row] = await manager.execute(
-    `select m.id as membership_id, m.role as membership_role, m.created_at as membership_created_at, b.*
-       from membership m join build b on b.id = m.build_id
-      where m.build_id = ? and m.user_id = ?`,
-    [buildId, userId],
-  );
-  if (!row) return null;
-  const { membership_id, membership_role, membership_created_at, ...buildColumns } = row;
-  const build = manager.map(Build, buildColumns);
-  return manager.map(Membership, { id: membership_id, role: membership_role, created_at: membership_created_at, build_id: build.id, user_id: userId });
-}
-
 function buildAccess(roles: BuildRole[], options: { archivedWritable: boolean }): RequestHandler {
   return async (req, res, next) => {
     if (!req.user) throw new Unauthenticated();
     const buildId = req.params.buildId;
     if (!isUuid(buildId)) throw new NotFound('That build');
-    const membership = await membershipWithBuild(buildId, req.user.id);
+    const membership = await callerMembership(req, buildId, req.user.id);
     if (!membership) throw new NotFound('That build');
     if (!roles.includes(membership.role)) throw new Forbidden();
     if (membership.build.archivedAt && !options.archivedWritable && !READS.has(req.method)) {

@@ -5,6 +5,8 @@ import type { PartStatus } from '../../../shared/enums';
 import { type Decimal, fitsStoredAmount, minorUnits, multiply, storedToWire, toWire } from '../../../shared/money';
 import type { Unit } from '../../../shared/units';
 import type { Build } from '../builds/build.entity';
+import { isoTimeSql } from '../db/iso-time-sql';
+import { preparedRows } from '../db/prepared-rows';
 import { NotFound, StaleVersion, ValidationFailed } from '../http/errors';
 import { checkBudget, findSystem, partEstimate } from '../systems/systems.service';
 import { warrantyEnds } from '../../../shared/warranty';
@@ -72,12 +74,14 @@ export async function listParts(em: EntityManager, build: Build, filter: { syste
     params.push(filter.status);
   }
   type PartRow = Omit<PartDto, 'warranty' | 'warrantyEnds'> & { warrantyMonths: number | null; warrantyLifetime: boolean };
-  const rows: PartRow[] = await em.execute(
+  const rows = await preparedRows<PartRow>(
+    em,
     `select p.id, p.system_id as "systemId", p.description, p.part_number as "partNumber", p.quantity, p.unit,
             p.estimated_unit_cost as "estimatedUnitCost", round(p.quantity * p.estimated_unit_cost, ?) as "estimatedTotal",
             p.status, p.storage_location as "storageLocation", p.source_url as "sourceUrl", p.notes, p.for_sale as "forSale",
             p.asking_price as "askingPrice", p.warranty_months as "warrantyMonths", p.warranty_lifetime as "warrantyLifetime",
-            p.warranty_start::text as "warrantyStart", p.warranty_receipt_id as "warrantyReceiptId", p.version, p.updated_at as "updatedAt"
+            p.warranty_start::text as "warrantyStart", p.warranty_receipt_id as "warrantyReceiptId", p.version,
+            ${isoTimeSql('p.updated_at')} as "updatedAt"
        from part p join vehicle_system s on s.id = p.system_id
       where ${where}
       order by s.sort_order asc, p.created_at asc`,
@@ -107,7 +111,7 @@ export async function listParts(em: EntityManager, build: Build, filter: { syste
       warrantyEnds: warrantyEnds(warranty, row.warrantyStart),
       warrantyReceiptId: row.warrantyReceiptId,
       version: row.version,
-      updatedAt: new Date(row.updatedAt).toISOString(),
+      updatedAt: row.updatedAt,
     };
   });
 }

@@ -67,8 +67,10 @@ export async function findDuplicates(em: EntityManager, buildId: string, receipt
 export type ReceiptSummaryFields = Pick<
   Receipt,
   | 'id' | 'purchaseDate' | 'receiptNumber' | 'state' | 'readingProgress' | 'reviewState' | 'originalFilename'
-  | 'contentType' | 'createdAt' | 'version'
+  | 'contentType' | 'version'
 > & {
+  /** A Date, or the list's ISO text made by PostgreSQL (isoTimeSql). */
+  createdAt: Date | string;
   total: Decimal | string | null;
   build: { currency: string };
   vendor?: { name: string } | null;
@@ -92,7 +94,7 @@ export function summaryDto(receipt: ReceiptSummaryFields, extra: { lineCount: nu
     duplicateOf: extra.duplicateOf,
     systemIds: extra.systemIds,
     uploadedBy: receipt.uploadedBy.displayName ?? '',
-    createdAt: receipt.createdAt.toISOString(),
+    createdAt: typeof receipt.createdAt === 'string' ? receipt.createdAt : receipt.createdAt.toISOString(),
     version: receipt.version,
   };
 }

@@ -11,6 +11,8 @@ import { recordAudit } from '../audit/audit';
 import { Conflict, Forbidden, NotFound, StaleVersion, ValidationFailed } from '../http/errors';
 import type { JobQueue } from '../jobs/queue';
 import type { ObjectStore } from '../storage/object-store';
+import { isoTimeSql } from '../db/iso-time-sql';
+import { preparedRows } from '../db/prepared-rows';
 import { LIKELY_DUPLICATES_OF_R, summaryDto } from './receipt-dto';
 import { ReceiptLine } from './receipt-line.entity';
 import { Receipt } from './receipt.entity';
@@ -79,7 +81,7 @@ interface ReceiptSummaryRow {
   reviewState: Receipt['reviewState'];
   originalFilename: string;
   contentType: string;
-  createdAt: Date;
+  createdAt: string;
   version: number;
   vendorName: string | null;
   uploadedBy: string | null;
@@ -106,10 +108,11 @@ export async function listReceipts(em: EntityManager, build: Build, filter: Rece
   if (filter.to) and('r.purchase_date <= ?', filter.to);
   if (filter.systemId) and('r.id in (select l.receipt_id from receipt_line l where l.system_id = ?)', filter.systemId);
   // One query: the line count, systems and likely duplicates of each receipt come from subqueries on its own rows.
-  const rows: ReceiptSummaryRow[] = await em.execute(
+  const rows = await preparedRows<ReceiptSummaryRow>(
+    em,
     `select r.id, r.purchase_date as "purchaseDate", r.receipt_number as "receiptNumber", r.total, r.state,
             r.reading_progress as "readingProgress", r.review_state as "reviewState", r.original_filename as "originalFilename",
-            r.content_type as "contentType", r.created_at as "createdAt", r.version, v.name as "vendorName", u.display_name as "uploadedBy",
+            r.content_type as "contentType", ${isoTimeSql('r.created_at')} as "createdAt", r.version, v.name as "vendorName", u.display_name as "uploadedBy",
             lines.count as "lineCount", coalesce(lines.systems, '{}') as "systemIds", ${LIKELY_DUPLICATES_OF_R} as "duplicateOf"
        from receipt r
        left join vendor v on v.id = r.vendor_id
@@ -134,7 +137,7 @@ export async function listReceipts(em: EntityManager, build: Build, filter: Rece
         reviewState: row.reviewState,
         originalFilename: row.originalFilename,
         contentType: row.contentType,
-        createdAt: new Date(row.createdAt),
+        createdAt: row.createdAt,
         version: row.version,
         build,
         vendor: row.vendorName === null ? null : { name: row.vendorName },
