@@ -5,6 +5,7 @@ import { dumpBuild } from '../support/build-dump';
 import { filedReceipt } from '../support/receipts';
 import { joinByInvite } from '../support/crew';
 import { startTestApp, type TestApp } from '../support/test-app';
+import { Receipt } from '../../backend/src/receipts/receipt.entity';
 
 jest.setTimeout(60_000);
 let t: TestApp;
@@ -84,4 +85,47 @@ it('answers 404 for a receipt of another build, on either side of the pair', asy
   const foreign = await owner.client.post(`/api/builds/${build.id}/receipts/${theirs.id}/not-duplicate`, { otherReceiptId: mine.id, reason: 'Not ours.' });
   expect([other.status, foreign.status]).toEqual([404, 404]);
   expect(await dumpBuild(t.orm, build.id)).toBe(before);
+});
+
+it('names the same likely duplicates on the list as on each receipt: one document twice, or one shop, date and total', async () => {
+  const owner = await signedUpClient(t.app, 'dup-list');
+  const build = (await owner.client.post('/api/builds', NEW_BUILD)).body;
+  const otherBuild = (await owner.client.post('/api/builds', NEW_BUILD)).body;
+  const receipt = async (buildId: string, document: string, header: object) => {
+    const made = await filedReceipt(t, owner.client, buildId, header, [], { file: false });
+    // Every upload here is the same slip: each receipt is given a document of its own (a made-up digest).
+    await t.orm.em.fork().nativeUpdate(Receipt, { id: made.id }, { sha256: document.repeat(64) });
+    return made.id as string;
+  };
+  const paid = { vendorName: 'Kestrel Auto Spares', purchaseDate: '2026-11-05', total: '24.00' };
+  const first = await receipt(build.id, 'a', paid);
+  const sameShopDayTotal = await receipt(build.id, 'b', paid);
+  const otherTotal = await receipt(build.id, 'c', { ...paid, total: '24.10' });
+  const scan = await receipt(build.id, 'd', { ...paid, purchaseDate: '2026-11-06', total: '3.00' });
+  const rescan = await receipt(build.id, 'd', { ...paid, purchaseDate: '2026-11-06', total: '30.00' });
+  const noShop = await receipt(build.id, 'e', { total: '24.00', purchaseDate: '2026-11-05' });
+  const noShopAgain = await receipt(build.id, 'f', { total: '24.00', purchaseDate: '2026-11-05' });
+  // Another build's copy of the first, same document and figures: never a duplicate across builds.
+  await receipt(otherBuild.id, 'a', paid);
+
+  const expected = {
+    [first]: [sameShopDayTotal],
+    [sameShopDayTotal]: [first],
+    [otherTotal]: [],
+    [scan]: [rescan],
+    [rescan]: [scan],
+    // Without a shop, only the same document makes a likely duplicate.
+    [noShop]: [],
+    [noShopAgain]: [],
+  };
+  const listed = (await owner.client.get(`/api/builds/${build.id}/receipts`)).body.receipts as { id: string; duplicateOf: string[] }[];
+  expect(Object.fromEntries(listed.map((r) => [r.id, r.duplicateOf]))).toEqual(expected);
+  for (const id of Object.keys(expected)) {
+    expect([id, (await owner.client.get(`/api/builds/${build.id}/receipts/${id}`)).body.duplicateOf]).toEqual([id, expected[id]]);
+  }
+  // A receipt like two others lists both, oldest first, on the list and on the receipt.
+  const third = await receipt(build.id, 'g', paid);
+  const relisted = (await owner.client.get(`/api/builds/${build.id}/receipts`)).body.receipts as { id: string; duplicateOf: string[] }[];
+  expect(relisted.find((r) => r.id === third)!.duplicateOf).toEqual([first, sameShopDayTotal]);
+  expect((await owner.client.get(`/api/builds/${build.id}/receipts/${third}`)).body.duplicateOf).toEqual([first, sameShopDayTotal]);
 });

@@ -22,49 +22,72 @@ function em(): EntityManager {
   return RequestContext.getEntityManager() as EntityManager;
 }
 
-const MEMBERSHIP_COLUMNS = 'm.id as membership_id, m.role as membership_role, m.created_at as membership_created_at, b.*';
-
-function mapMembership(manager: EntityManager, row: Row, userId: string): Membership {
-  const { membership_id, membership_role, membership_created_at, ...buildColumns } = row;
-  const build = manager.map(Build, buildColumns);
-  return manager.map(Membership, { id: membership_id, role: membership_role, created_at: membership_created_at, build_id: build.id, user_id: userId });
+/**
+ * The scalar columns of an entity's table, read once per ORM's metadata. Each row here is read into a fresh object
+ * per entity (`user_<column>`, `build_<column>`: the tables share the row and both have an id): deleting keys from
+ * the row or taking the rest of it cost more than the ORM's own mapping (`npm run bench`, list routes).
+ */
+function scalarColumns(manager: EntityManager, entityName: string): string[] {
+  return manager
+    .getMetadata()
+    .get(entityName)
+    .props.filter((prop) => prop.kind === ReferenceKind.SCALAR && prop.persist !== false)
+    .flatMap((prop) => prop.fieldNames);
 }
 
-/**
- * The user's columns (each read as `user_<column>`: they share the row with the build's, and both have an id) and
- * the query, made once per ORM's metadata rather than on every request.
- */
-const userQueries = new WeakMap<object, { columns: string[]; sql: string }>();
+interface IdentityQueries {
+  userColumns: string[];
+  buildColumns: string[];
+  /** The user with their membership of one build and the build ($1 the build, $2 the user). */
+  userWithMembership: string;
+  /** The membership of one build with the build ($1 the build, $2 the user). */
+  membership: string;
+}
 
-function userWithMembershipQuery(manager: EntityManager): { columns: string[]; sql: string } {
+const queriesByMetadata = new WeakMap<object, IdentityQueries>();
+
+function identityQueries(manager: EntityManager): IdentityQueries {
   const metadata = manager.getMetadata();
-  let query = userQueries.get(metadata);
-  if (!query) {
-    const columns = metadata
-      .get(User.name)
-      .props.filter((prop) => prop.kind === ReferenceKind.SCALAR && prop.persist !== false)
-      .flatMap((prop) => prop.fieldNames);
-    const sql = `select ${columns.map((column) => `u.${column} as user_${column}`).join(', ')}, ${MEMBERSHIP_COLUMNS}
-       from app_user u
-       left join (membership m join build b on b.id = m.build_id) on m.user_id = u.id and m.build_id = ?
-      where u.id = ?`;
-    query = { columns, sql };
-    userQueries.set(metadata, query);
+  let queries = queriesByMetadata.get(metadata);
+  if (!queries) {
+    const userColumns = scalarColumns(manager, User.name);
+    const buildColumns = scalarColumns(manager, Build.name);
+    const membershipColumns = `m.id as membership_id, m.role as membership_role, m.created_at as membership_created_at,
+            ${buildColumns.map((column) => `b.${column} as build_${column}`).join(', ')}`;
+    queries = {
+      userColumns,
+      buildColumns,
+      userWithMembership: `select ${userColumns.map((column) => `u.${column} as user_${column}`).join(', ')}, ${membershipColumns}
+         from app_user u
+         left join (membership m join build b on b.id = m.build_id) on m.user_id = u.id and m.build_id = ?
+        where u.id = ?`,
+      membership: `select ${membershipColumns}
+         from membership m join build b on b.id = m.build_id
+        where m.build_id = ? and m.user_id = ?`,
+    };
+    queriesByMetadata.set(metadata, queries);
   }
-  return query;
+  return queries;
+}
+
+/** The columns of `row` named `<prefix><column>`, as a row of the entity's own table. */
+function columnsOf(row: Row, prefix: string, columns: string[]): Row {
+  const own: Row = {};
+  for (const column of columns) own[column] = row[prefix + column];
+  return own;
+}
+
+function mapMembership(manager: EntityManager, queries: IdentityQueries, row: Row, userId: string): Membership {
+  const build = manager.map(Build, columnsOf(row, 'build_', queries.buildColumns));
+  return manager.map(Membership, { id: row.membership_id, role: row.membership_role, created_at: row.membership_created_at, build_id: build.id, user_id: userId });
 }
 
 async function userWithMembership(manager: EntityManager, userId: string, buildId: string): Promise<{ user: User | null; membership: Membership | null }> {
-  const { columns, sql } = userWithMembershipQuery(manager);
-  const [row] = await preparedRows<Row>(manager, sql, [buildId, userId]);
+  const queries = identityQueries(manager);
+  const [row] = await preparedRows<Row>(manager, queries.userWithMembership, [buildId, userId]);
   if (!row) return { user: null, membership: null };
-  const userRow: Row = {};
-  for (const column of columns) {
-    userRow[column] = row[`user_${column}`];
-    delete row[`user_${column}`];
-  }
-  const user = manager.map(User, userRow);
-  return { user, membership: row.membership_id === null ? null : mapMembership(manager, row, userId) };
+  const user = manager.map(User, columnsOf(row, 'user_', queries.userColumns));
+  return { user, membership: row.membership_id === null ? null : mapMembership(manager, queries, row, userId) };
 }
 
 /** The signed-in user of the session (null when the account is gone); on a build's URL, with the membership. */
@@ -76,7 +99,7 @@ export async function signedInUser(req: Request, userId: string): Promise<User |
     readWithUser.set(req, { buildId, userId, membership });
     return user;
   }
-  const [row] = await manager.execute('select * from app_user where id = ?', [userId]);
+  const [row] = await preparedRows<Row>(manager, 'select * from app_user where id = ?', [userId]);
   return row ? manager.map(User, row) : null;
 }
 
@@ -85,12 +108,7 @@ export async function callerMembership(req: Request, buildId: string, userId: st
   const read = readWithUser.get(req);
   if (read && read.buildId.toLowerCase() === buildId.toLowerCase() && read.userId === userId) return read.membership;
   const manager = em();
-  const [row] = await preparedRows<Row>(
-    manager,
-    `select ${MEMBERSHIP_COLUMNS}
-       from membership m join build b on b.id = m.build_id
-      where m.build_id = ? and m.user_id = ?`,
-    [buildId, userId],
-  );
-  return row ? mapMembership(manager, row, userId) : null;
+  const queries = identityQueries(manager);
+  const [row] = await preparedRows<Row>(manager, queries.membership, [buildId, userId]);
+  return row ? mapMembership(manager, queries, row, userId) : null;
 }

@@ -39,25 +39,30 @@ export function lineDto(line: ReceiptLine, currency: string): ReceiptLineDto {
 }
 
 /**
- * The ids of receipt `r`'s likely duplicates, oldest first, as an SQL array: other receipts of the same build with the
- * same document, or the same shop, date and total, less the pairs someone marked as two purchases (stored in id order,
- * hence least/greatest). Per receipt, the (build, sha256) and (build, purchase date) indexes find the candidates.
+ * The likely duplicates among build ?'s receipts, as rows (id, others): for each receipt with any, the ids of the
+ * other receipts of the build with the same document, or the same shop, date and total, oldest first, less the
+ * pairs someone marked as two purchases (stored in id order, hence least/greatest). Takes the build's id four times.
+ * Two equality joins over the build's receipts, one per kind of likeness: a subquery per receipt with either
+ * condition cost the receipts list most of its time in PostgreSQL (`npm run bench`, list routes).
  */
-export const LIKELY_DUPLICATES_OF_R = `array(
-  select o.id from receipt o
-   where o.build_id = r.build_id and o.id <> r.id
-     and (o.sha256 = r.sha256
-          or (r.vendor_id is not null and o.vendor_id = r.vendor_id and o.purchase_date = r.purchase_date and o.total = r.total))
-     and not exists (select 1 from not_duplicate d where d.first_id = least(r.id, o.id) and d.second_id = greatest(r.id, o.id))
-   order by o.created_at)`;
+export const LIKELY_DUPLICATES_SQL = `select pair.id, array_agg(pair.other_id order by pair.other_created_at, pair.other_id) as others
+  from (select a.id, o.id as other_id, o.created_at as other_created_at
+          from receipt a join receipt o on o.sha256 = a.sha256
+         where a.build_id = ? and o.build_id = ? and o.id <> a.id
+        union
+        select a.id, o.id, o.created_at
+          from receipt a join receipt o on o.vendor_id = a.vendor_id and o.purchase_date = a.purchase_date and o.total = a.total
+         where a.build_id = ? and o.build_id = ? and o.id <> a.id) pair
+ where not exists (select 1 from not_duplicate d where d.first_id = least(pair.id, pair.other_id) and d.second_id = greatest(pair.id, pair.other_id))
+ group by pair.id`;
 
-/** The likely duplicates of each of the receipts (see LIKELY_DUPLICATES_OF_R). */
+/** The likely duplicates of each of the receipts (see LIKELY_DUPLICATES_SQL). */
 export async function findDuplicates(em: EntityManager, buildId: string, receiptIds: string[]): Promise<Map<string, string[]>> {
   const result = new Map<string, string[]>(receiptIds.map((id) => [id, []]));
   if (receiptIds.length === 0) return result;
   const rows: { id: string; others: string[] }[] = await em.execute(
-    `select r.id, ${LIKELY_DUPLICATES_OF_R} as others from receipt r where r.build_id = ? and r.id = any(?::uuid[])`,
-    [buildId, `{${receiptIds.join(',')}}`],
+    `select d.id, d.others from (${LIKELY_DUPLICATES_SQL}) d where d.id = any(?::uuid[])`,
+    [buildId, buildId, buildId, buildId, `{${receiptIds.join(',')}}`],
   );
   for (const row of rows) result.set(row.id, row.others);
   return result;

@@ -13,7 +13,7 @@ import type { JobQueue } from '../jobs/queue';
 import type { ObjectStore } from '../storage/object-store';
 import { isoTimeSql } from '../db/iso-time-sql';
 import { preparedRows } from '../db/prepared-rows';
-import { LIKELY_DUPLICATES_OF_R, summaryDto } from './receipt-dto';
+import { LIKELY_DUPLICATES_SQL, summaryDto } from './receipt-dto';
 import { ReceiptLine } from './receipt-line.entity';
 import { Receipt } from './receipt.entity';
 import { Vendor, normalizeVendorName } from './vendor.entity';
@@ -95,7 +95,9 @@ interface ReceiptSummaryRow {
  * most of the route's time under load, and a list only answers.
  */
 export async function listReceipts(em: EntityManager, build: Build, filter: ReceiptFilter): Promise<ReceiptSummaryDto[]> {
-  const params: unknown[] = [build.id];
+  // The line counts and systems, and the likely duplicates, come from one aggregate each over the build's rows,
+  // joined to the receipts: a subquery per receipt cost several times as much (`npm run bench`, list routes).
+  const params: unknown[] = [build.id, build.id, build.id, build.id, build.id, build.id];
   let where = 'r.build_id = ?';
   const and = (condition: string, value: unknown) => {
     where += ` and ${condition}`;
@@ -107,18 +109,18 @@ export async function listReceipts(em: EntityManager, build: Build, filter: Rece
   if (filter.from) and('r.purchase_date >= ?', filter.from);
   if (filter.to) and('r.purchase_date <= ?', filter.to);
   if (filter.systemId) and('r.id in (select l.receipt_id from receipt_line l where l.system_id = ?)', filter.systemId);
-  // One query: the line count, systems and likely duplicates of each receipt come from subqueries on its own rows.
   const rows = await preparedRows<ReceiptSummaryRow>(
     em,
     `select r.id, r.purchase_date as "purchaseDate", r.receipt_number as "receiptNumber", r.total, r.state,
             r.reading_progress as "readingProgress", r.review_state as "reviewState", r.original_filename as "originalFilename",
             r.content_type as "contentType", ${isoTimeSql('r.created_at')} as "createdAt", r.version, v.name as "vendorName", u.display_name as "uploadedBy",
-            lines.count as "lineCount", coalesce(lines.systems, '{}') as "systemIds", ${LIKELY_DUPLICATES_OF_R} as "duplicateOf"
+            coalesce(lines.count, 0) as "lineCount", coalesce(lines.systems, '{}') as "systemIds", coalesce(duplicates.others, '{}') as "duplicateOf"
        from receipt r
        left join vendor v on v.id = r.vendor_id
        join app_user u on u.id = r.uploaded_by_id
-       cross join lateral (select count(*)::int as count, array_remove(array_agg(distinct l.system_id), null) as systems
-                             from receipt_line l where l.receipt_id = r.id) lines
+       left join (select l.receipt_id, count(*)::int as count, array_remove(array_agg(distinct l.system_id), null) as systems
+                    from receipt_line l where l.build_id = ? group by l.receipt_id) lines on lines.receipt_id = r.id
+       left join (${LIKELY_DUPLICATES_SQL}) duplicates on duplicates.id = r.id
       where ${where}
       order by r.purchase_date desc nulls first, r.created_at desc`,
     params,
