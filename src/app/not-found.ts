@@ -8,14 +8,6 @@ import { EmptyState } from './ui/empty-state';
   selector: 'th-not-found',
   imports: [EmptyState, MatButtonModule, RouterLink],
   changeDetection: ChangeDetectionStrategy.OnPush,
-  template: `
-    <div class="page">
-      <h1 class="page-heading">Page not found</h1>
-      <th-empty-state icon="wrong_location" heading="Nothing lives at this address">
-        <p>The link may be mistyped or out of date. Your builds are one click away.</p>
-        <a mat-flat-button emptyStateActions routerLink="/builds">Go to your builds</a>
-      </th-empty-state>
-    </div>
-  `,
+  templateUrl: './not-found.html',
 })
 export class NotFound {}

@@ -1,33 +1,17 @@
 // In Debian's chromium at phone size with touch: the builder photographs a five-line counter slip whose part numbers
 // are on the bill of materials, accepts the suggestions and files it, in a counted handful of taps; then every route is
 // visited by owner, crew and reviewer at 360, 390 and 414 px: nothing may widen the page, scroll sideways inside it or
-// stand cut at the window's edge, and axe finds nothing.
-import type { Browser, Locator, Page } from 'playwright-core';
-import { startReadingWorker } from '../../backend/src/jobs/worker';
-import { readWithPageImages } from '../../backend/src/receipts/read-with-pages';
-import { closeReaders } from '../../backend/src/receipts/reading/read-document';
+// stand cut at the window's edge, and axe finds nothing; the same holds for every page a signed-out person sees.
+import type { Locator, Page } from 'playwright-core';
 import { renderSlip, type SlipReceipt } from '../../backend/src/seed/receipt-slip';
-import { NEW_BUILD, signedUpClient, type ApiClient } from '../support/api-client';
-import { accessibilityViolations, cutAtEdge, launchBrowser, newPage, screenshot, sidewaysScroll, signIn } from '../support/browser';
+import { NEW_BUILD, signedUpClient, TEST_PASSWORD, uniqueEmail, type ApiClient } from '../support/api-client';
+import { accessibilityViolations, cutAtEdge, newPage, screenshot, sidewaysScroll, signIn } from '../support/browser';
+import { useBrowserApp } from '../support/browser-app';
 import { filedReceipt } from '../support/receipts';
-import { startTestApp, type TestApp } from '../support/test-app';
 
 jest.setTimeout(300_000);
 
-let t: TestApp;
-let browser: Browser;
-let stopWorker: (() => Promise<void>) | undefined;
-beforeAll(async () => {
-  t = await startTestApp({ serveClient: true, reading: true });
-  stopWorker = await startReadingWorker(t.queue, { orm: t.orm, store: t.store, read: readWithPageImages });
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await stopWorker?.();
-  await t?.close();
-  await closeReaders();
-});
+const e2e = useBrowserApp({ reading: true });
 
 /** Invented counter purchases for the swap: part number, description, system, price. */
 const PARTS = [
@@ -63,15 +47,15 @@ function counterSlip(): SlipReceipt {
 }
 
 async function invite(owner: ApiClient, buildId: string, role: 'reviewer' | 'crew') {
-  const person = await signedUpClient(t.app, `e2e-phone-${role}`);
+  const person = await signedUpClient(e2e.t.app, `e2e-phone-${role}`);
   await owner.post(`/api/builds/${buildId}/invites`, { email: person.email, role });
-  const mail = await t.mail.waitFor((m) => m.to.includes(person.email));
+  const mail = await e2e.t.mail.waitFor((m) => m.to.includes(person.email));
   expect((await person.client.post(`/api/invites/${/\/invites\/([\w-]+)/.exec(mail.text)![1]}/accept`)).status).toBe(200);
   return person;
 }
 
 async function buildWithParts() {
-  const owner = await signedUpClient(t.app, 'e2e-phone-owner');
+  const owner = await signedUpClient(e2e.t.app, 'e2e-phone-owner');
   const build = (await owner.client.post('/api/builds', { ...NEW_BUILD, name: 'Slate roadster swap', locale: 'en-US' })).body as { id: string };
   const systems = (await owner.client.get(`/api/builds/${build.id}/systems`)).body.systems as { id: string; name: string; version: number }[];
   const systemId = (name: string) => systems.find((system) => system.name === name)!.id;
@@ -94,9 +78,9 @@ async function buildWithParts() {
 
 it('files a five-line counter slip on a phone by touch in a handful of taps, with no typing', async () => {
   const { owner, build, parts } = await buildWithParts();
-  const page = await newPage(browser, { phone: true, touch: true });
-  await signIn(page, t.url, owner.email);
-  await page.goto(`${t.url}/builds/${build.id}/receipts`);
+  const page = await newPage(e2e.browser, { phone: true, touch: true });
+  await signIn(page, e2e.t.url, owner.email);
+  await page.goto(`${e2e.t.url}/builds/${build.id}/receipts`);
   await page.getByRole('heading', { name: 'Receipts', exact: true, level: 1 }).waitFor();
 
   // Every tap and keystroke from here on is counted.
@@ -187,7 +171,7 @@ it('widens no page and scrolls no region sideways on any route for owner, crew a
     expect((await owner.client.patch(`/api/builds/${build.id}/systems/${systemId(name)}`, { budget: amount, version: systemVersion(name) })).status).toBe(200);
   }
   // Rows on every list: a fitted part (the build sheet), one on hand (inventory) and a core deposit (cores).
-  const filed = await filedReceipt(t, owner.client, build.id, { vendorName: 'MERIDIAN COOLING WORKS', purchaseDate: '2026-11-02', total: '1207.75' }, [
+  const filed = await filedReceipt(e2e.t, owner.client, build.id, { vendorName: 'MERIDIAN COOLING WORKS', purchaseDate: '2026-11-02', total: '1207.75' }, [
     { kind: 'part', description: 'Electric water pump', partNumber: 'WP-4410', amount: '189.00', systemId: systemId('Cooling'), partId: parts.get('WP-4410') },
     { kind: 'part', description: 'Thermostat 180F', partNumber: 'TS-1190', amount: '18.75', systemId: systemId('Cooling'), partId: parts.get('TS-1190') },
     { kind: 'core_charge', description: 'Water pump core', amount: '1000.00', systemId: systemId('Cooling') },
@@ -211,11 +195,11 @@ it('widens no page and scrolls no region sideways on any route for owner, crew a
   // the narrowest width, then the window widens to the others: below 600 px the same phone layout applies.
   await Promise.all(
     people.map(async ([role, email]) => {
-      const page = await newPage(browser, { phone: true, width: PHONE_WIDTHS[0], touch: true });
-      await signIn(page, t.url, email);
+      const page = await newPage(e2e.browser, { phone: true, width: PHONE_WIDTHS[0], touch: true });
+      await signIn(page, e2e.t.url, email);
       for (const [path, heading] of routes(build.id, filed.id, role)) {
         await page.setViewportSize({ width: PHONE_WIDTHS[0], height: 844 });
-        await visit(page, `${t.url}${path}`, heading);
+        await visit(page, `${e2e.t.url}${path}`, heading);
         const screen = path === '/builds' ? '-builds' : path.replace(`/builds/${build.id}`, '').replace(filed.id, 'receipt').replace(/\//g, '-') || '-overview';
         for (const width of PHONE_WIDTHS) {
           if (width !== PHONE_WIDTHS[0]) {
@@ -245,3 +229,53 @@ it('widens no page and scrolls no region sideways on any route for owner, crew a
   expect(violations).toEqual([]);
   // Three people's passes side by side; on a loaded 2-core machine each route takes seconds, so more than the default.
 }, 600_000);
+
+/** The pages a signed-out person sees, with the heading each waits for; the made-up tokens show the refusal states. */
+const SIGNED_OUT: [string, string | RegExp][] = [
+  ['/sign-in', 'Sign in'],
+  ['/sign-up', 'Create an account'],
+  ['/sign-up/confirm/made-up-token-0000000000000000', "This link can't be used"],
+  ['/reset-password', 'Reset your password'],
+  ['/reset-password/made-up-token-0000000000000000', 'Set a new password'],
+  ['/invites/made-up-token-0000000000000000', "This invite can't be used"],
+  ['/no-such-page', 'Page not found'],
+];
+
+/** Sideways scrolling, regions, text cut at the edge at every phone width, and axe at the narrowest, on the page as it is. */
+async function phoneProblems(page: Page, where: string): Promise<string[]> {
+  const problems: string[] = [];
+  for (const width of PHONE_WIDTHS) {
+    await page.setViewportSize({ width, height: 844 });
+    await settle(page);
+    const at = `${where} at ${width} px`;
+    const scroll = await sidewaysScroll(page);
+    if (scroll.page) problems.push(`${at}: the page is wider than the window`);
+    problems.push(...scroll.regions.map((region) => `${at}: scrolls sideways: ${region}`));
+    problems.push(...(await cutAtEdge(page)).map((element) => `${at}: cut at the edge: ${element}`));
+    if (width === PHONE_WIDTHS[0]) problems.push(...(await accessibilityViolations(page)).map((violation) => `${at}: ${violation}`));
+  }
+  return problems;
+}
+
+it('fits every signed-out page, and the sign-up that waits for its mail, at 360, 390 and 414 px; axe finds nothing', async () => {
+  const page = await newPage(e2e.browser, { phone: true, width: PHONE_WIDTHS[0], touch: true });
+  const problems: string[] = [];
+  for (const [path, heading] of SIGNED_OUT) {
+    await page.setViewportSize({ width: PHONE_WIDTHS[0], height: 844 });
+    await visit(page, `${e2e.t.url}${path}`, heading);
+    problems.push(...(await phoneProblems(page, path)));
+    await screenshot(page, `phone-signed-out${path.replace(/\//g, '-').replace(/-made-up-token-0+/, '-refused')}`);
+  }
+  // The form filled in and sent: the "check your mail" state is what a new builder reads on the phone.
+  await page.setViewportSize({ width: PHONE_WIDTHS[0], height: 844 });
+  await visit(page, `${e2e.t.url}/sign-up`, 'Create an account');
+  await page.getByLabel('Your name').fill('Phone Sweep Builder');
+  await page.getByLabel('E-mail').fill(uniqueEmail('phone-sweep'));
+  await page.getByLabel('Password').fill(TEST_PASSWORD);
+  await page.getByRole('button', { name: 'Create account' }).click();
+  await page.getByRole('heading', { name: 'Check your mail', level: 1 }).waitFor();
+  problems.push(...(await phoneProblems(page, '/sign-up (sent)')));
+  await screenshot(page, 'phone-signed-out-sign-up-sent');
+  await page.context().close();
+  expect(problems).toEqual([]);
+}, 300_000);

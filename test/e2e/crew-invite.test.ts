@@ -1,27 +1,17 @@
 // In Debian's chromium: the owner signs in, creates a build and invites a reviewer by e-mail; the invite is read
 // from the fake SMTP server and accepted in a second browser; the reviewer sees the build without edit controls.
-import type { Browser } from 'playwright-core';
 import { signedUpClient, TEST_PASSWORD, uniqueEmail } from '../support/api-client';
-import { accessibilityViolations, launchBrowser, newPage, screenshot, signIn } from '../support/browser';
-import { startTestApp, type TestApp } from '../support/test-app';
+import { accessibilityViolations, newPage, screenshot, signIn } from '../support/browser';
+import { useBrowserApp } from '../support/browser-app';
 
 jest.setTimeout(120_000);
 
-let t: TestApp;
-let browser: Browser;
-beforeAll(async () => {
-  t = await startTestApp({ serveClient: true });
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await t?.close();
-});
+const e2e = useBrowserApp();
 
 it('takes a reviewer from invite mail to a read-only view of the build', async () => {
-  const owner = await signedUpClient(t.app, 'e2e-owner');
-  const page = await newPage(browser);
-  await signIn(page, t.url, owner.email);
+  const owner = await signedUpClient(e2e.t.app, 'e2e-owner');
+  const page = await newPage(e2e.browser);
+  await signIn(page, e2e.t.url, owner.email);
   await screenshot(page, 'builds-empty');
   expect(await accessibilityViolations(page)).toEqual([]);
 
@@ -49,12 +39,12 @@ it('takes a reviewer from invite mail to a read-only view of the build', async (
   await screenshot(page, 'crew-owner');
   expect(await accessibilityViolations(page)).toEqual([]);
 
-  const mail = await t.mail.waitFor((m) => m.to.includes(reviewerEmail));
+  const mail = await e2e.t.mail.waitFor((m) => m.to.includes(reviewerEmail));
   expect(mail.subject).toBe('Join "Roadster restomod" on Tallyhood');
   const link = /(http:\/\/127\.0\.0\.1:\d+\/invites\/[A-Za-z0-9_-]+)/.exec(mail.text)![1];
 
   // A second, separate browser context: the reviewer has no account yet.
-  const reviewer = await newPage(browser, { phone: true });
+  const reviewer = await newPage(e2e.browser, { phone: true });
   await reviewer.goto(link);
   await reviewer.getByText(/Roadster restomod/).first().waitFor();
   await screenshot(reviewer, 'invite-phone');

@@ -2,14 +2,10 @@
 // many shops send them) is mailed to it through the fake SMTP server, and it shows up in the receipts list with its
 // lines read from the body; the builder assigns and files it.
 import nodemailer from 'nodemailer';
-import type { Browser } from 'playwright-core';
-import { startReadingWorker } from '../../backend/src/jobs/worker';
-import { readWithPageImages } from '../../backend/src/receipts/read-with-pages';
-import { closeReaders } from '../../backend/src/receipts/reading/read-document';
 import { NEW_BUILD, signedUpClient } from '../support/api-client';
-import { accessibilityViolations, launchBrowser, newPage, screenshot, signIn } from '../support/browser';
+import { accessibilityViolations, newPage, screenshot, signIn } from '../support/browser';
+import { useBrowserApp } from '../support/browser-app';
 import { assignSystem } from '../support/check-screen';
-import { startTestApp, type TestApp } from '../support/test-app';
 
 jest.setTimeout(240_000);
 
@@ -31,28 +27,14 @@ const CONFIRMATION_HTML = `<html><body>
   </table>
 </body></html>`;
 
-let t: TestApp;
-let browser: Browser;
-let stopWorker: () => Promise<void>;
-
-beforeAll(async () => {
-  t = await startTestApp({ serveClient: true, reading: true });
-  stopWorker = await startReadingWorker(t.queue, { orm: t.orm, store: t.store, read: readWithPageImages });
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await stopWorker?.();
-  await t?.close();
-  await closeReaders();
-});
+const e2e = useBrowserApp({ reading: true });
 
 it('turns a mailed order confirmation into a receipt the builder checks and files', async () => {
-  const owner = await signedUpClient(t.app, 'e2e-inbox');
+  const owner = await signedUpClient(e2e.t.app, 'e2e-inbox');
   const build = (await owner.client.post('/api/builds', { ...NEW_BUILD, name: 'Copper coupe swap', locale: 'en-US' })).body;
-  const buildUrl = `${t.url}/builds/${build.id}`;
-  const page = await newPage(browser);
-  await signIn(page, t.url, owner.email);
+  const buildUrl = `${e2e.t.url}/builds/${build.id}`;
+  const page = await newPage(e2e.browser);
+  await signIn(page, e2e.t.url, owner.email);
 
   // Settings shows the build's own address; copying it says so.
   await page.goto(`${buildUrl}/settings`);
@@ -65,7 +47,7 @@ it('turns a mailed order confirmation into a receipt the builder checks and file
   expect(await accessibilityViolations(page)).toEqual([]);
 
   // The builder's shop mails the confirmation there (from the builder's own address, as a forward would).
-  const transport = nodemailer.createTransport({ host: '127.0.0.1', port: t.mail.smtpPort, secure: false, ignoreTLS: true });
+  const transport = nodemailer.createTransport({ host: '127.0.0.1', port: e2e.t.mail.smtpPort, secure: false, ignoreTLS: true });
   await transport.sendMail({ from: owner.email, to: address, subject: 'Your Copperfield order CG-5521', html: CONFIRMATION_HTML });
   transport.close();
 

@@ -1,31 +1,21 @@
 // In Debian's chromium: a build with two filed receipts; the ledger shows the API's totals formatted, a system's net
 // cost opens the lines behind it with links to their receipts, a bar of the chart does too, and an empty build says
 // what to do first. Screenshots at desktop and phone widths; axe finds no WCAG A/AA violation.
-import type { Browser } from 'playwright-core';
 import { formatMoney, toDecimal } from '../../shared/money';
 import { NEW_BUILD, signedUpClient } from '../support/api-client';
-import { accessibilityViolations, launchBrowser, newPage, screenshot, signIn } from '../support/browser';
+import { accessibilityViolations, newPage, screenshot, signIn } from '../support/browser';
+import { useBrowserApp } from '../support/browser-app';
 import { filedReceipt } from '../support/receipts';
-import { startTestApp, type TestApp } from '../support/test-app';
 
 jest.setTimeout(180_000);
 
-let t: TestApp;
-let browser: Browser;
-beforeAll(async () => {
-  t = await startTestApp({ serveClient: true });
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await t?.close();
-});
+const e2e = useBrowserApp();
 
 const usd = (amount: string) => formatMoney(toDecimal(amount), 'USD', 'en-US');
 
 /** A build with budgets on three systems, two calipers still to buy and two filed receipts (invented shops). */
 async function twoReceiptBuild(prefix: string) {
-  const owner = await signedUpClient(t.app, prefix);
+  const owner = await signedUpClient(e2e.t.app, prefix);
   const { client } = owner;
   const buildId = (await client.post('/api/builds', { ...NEW_BUILD, name: 'Teal wagon swap', locale: 'en-US' })).body.id as string;
   const systems = (await client.get(`/api/builds/${buildId}/systems`)).body.systems as { id: string; name: string; version: number }[];
@@ -37,14 +27,14 @@ async function twoReceiptBuild(prefix: string) {
   await client.post(`/api/builds/${buildId}/parts`, { systemId: system('Brakes').id, description: 'Front caliper, reman', quantity: '2', unit: 'each', estimatedUnitCost: '149.50' });
 
   // Receipt A (as in test/api/ledger-screen.test.ts): alternator 69.85, core 23.42 owed, coolant 34.93, fee 11.00.
-  await filedReceipt(t, client, buildId, { vendorName: 'Quayside Parts', purchaseDate: '2026-07-03', tax: '7.21', shipping: '9.99', total: '139.20' }, [
+  await filedReceipt(e2e.t, client, buildId, { vendorName: 'Quayside Parts', purchaseDate: '2026-07-03', tax: '7.21', shipping: '9.99', total: '139.20' }, [
     { kind: 'part', description: 'Alternator, reman', amount: '60.00', systemId: system('Engine').id },
     { kind: 'core_charge', description: 'Alternator core', amount: '22.00', systemId: system('Engine').id },
     { kind: 'part', description: 'Coolant', amount: '30.00', systemId: system('Cooling').id },
     { kind: 'fee', description: 'Bench test', amount: '10.00', taxable: false, systemId: system('Engine').id },
   ]);
   // Receipt B: discount 14.00 over 25 : 15 : 100 -> 2.50, 1.50, 10.00; thermostat 22.50, cap 13.50, starter 90.00.
-  await filedReceipt(t, client, buildId, { vendorName: 'Harbour Row Supply', purchaseDate: '2026-08-20', discount: '14.00', total: '126.00' }, [
+  await filedReceipt(e2e.t, client, buildId, { vendorName: 'Harbour Row Supply', purchaseDate: '2026-08-20', discount: '14.00', total: '126.00' }, [
     { kind: 'part', description: 'Thermostat', amount: '25.00', systemId: system('Cooling').id },
     { kind: 'part', description: 'Radiator cap', amount: '15.00', systemId: system('Cooling').id },
     { kind: 'part', description: 'Starter', amount: '100.00', systemId: system('Engine').id },
@@ -58,9 +48,9 @@ it('shows the ledger of two filed receipts and the lines behind a figure', async
   // Engine net 69.85 + 11.00 + 90.00 = 170.85; Cooling 34.93 + 22.50 + 13.50 = 70.93 (over its 60.00); build 241.78.
   expect(ledger.total.netCost).toBe('241.78');
 
-  const page = await newPage(browser);
-  await signIn(page, t.url, owner.email);
-  await page.goto(`${t.url}/builds/${buildId}/ledger`);
+  const page = await newPage(e2e.browser);
+  await signIn(page, e2e.t.url, owner.email);
+  await page.goto(`${e2e.t.url}/builds/${buildId}/ledger`);
   await page.getByRole('heading', { name: 'Ledger', level: 1 }).waitFor();
   // The total on screen is the API's figure, formatted (its hidden words say what the button opens).
   const netCost = page.locator('dt', { hasText: /^Net cost$/ }).locator('xpath=following-sibling::dd[1]').getByRole('button');
@@ -103,9 +93,9 @@ it('shows the ledger of two filed receipts and the lines behind a figure', async
   await page.getByRole('dialog').getByText('3 lines add up to $126.00').waitFor();
   await page.getByRole('button', { name: 'Close' }).click();
 
-  const phone = await newPage(browser, { phone: true });
-  await signIn(phone, t.url, owner.email);
-  await phone.goto(`${t.url}/builds/${buildId}`);
+  const phone = await newPage(e2e.browser, { phone: true });
+  await signIn(phone, e2e.t.url, owner.email);
+  await phone.goto(`${e2e.t.url}/builds/${buildId}`);
   await phone.getByRole('link', { name: 'Ledger', exact: true }).click();
   await phone.getByRole('heading', { name: 'By system' }).waitFor();
   // Nothing widens the page at 390 px: the wide table scrolls inside its own box.
@@ -119,7 +109,7 @@ it('shows the ledger of two filed receipts and the lines behind a figure', async
 
   // A build with nothing filed says what to do first.
   const empty = (await client.post('/api/builds', { ...NEW_BUILD, name: 'Empty shell' })).body.id as string;
-  await page.goto(`${t.url}/builds/${empty}/ledger`);
+  await page.goto(`${e2e.t.url}/builds/${empty}/ledger`);
   await page.getByRole('heading', { name: 'Upload a receipt to start the ledger' }).waitFor();
   await screenshot(page, 'ledger-empty');
   expect(await accessibilityViolations(page)).toEqual([]);
@@ -141,15 +131,15 @@ it('shows each named figure the same on the Overview, the Ledger and Budgets as 
   const apiValue = (name: string) =>
     name === 'contingency' ? ledger.contingencyBudget : name === 'budgetWithContingency' ? ledger.budgetWithContingency : ledger.total[name];
 
-  const page = await newPage(browser);
-  await signIn(page, t.url, owner.email);
+  const page = await newPage(e2e.browser);
+  await signIn(page, e2e.t.url, owner.email);
   const shown = new Map<string, Map<string, string>>();
   for (const [screen, path, heading] of [
     ['Overview', '', 'Teal wagon swap'],
     ['Ledger', '/ledger', 'Ledger'],
     ['Budgets', '/budgets', 'Budgets'],
   ] as const) {
-    await page.goto(`${t.url}/builds/${buildId}${path}`);
+    await page.goto(`${e2e.t.url}/builds/${buildId}${path}`);
     await page.getByRole('heading', { name: heading, level: 1 }).waitFor();
     await page.locator('[data-figure]').first().waitFor();
     const figures = await page.locator('[data-figure]').evaluateAll((elements) =>

@@ -4,36 +4,20 @@
 import path from 'node:path';
 import { readFileSync } from 'node:fs';
 import sharp from 'sharp';
-import type { Browser, Page } from 'playwright-core';
-import { startReadingWorker } from '../../backend/src/jobs/worker';
-import { readWithPageImages } from '../../backend/src/receipts/read-with-pages';
-import { closeReaders } from '../../backend/src/receipts/reading/read-document';
+import type { Page } from 'playwright-core';
 import { Receipt } from '../../backend/src/receipts/receipt.entity';
 import { NEW_BUILD, signedUpClient } from '../support/api-client';
-import { launchBrowser, newPage, screenshot, signIn } from '../support/browser';
+import { newPage, screenshot, signIn } from '../support/browser';
+import { useBrowserApp } from '../support/browser-app';
 import { phonePhoto } from '../support/phone-photo';
-import { startTestApp, type TestApp } from '../support/test-app';
 
 jest.setTimeout(240_000);
 
 const SMALL_SLIP = path.resolve(__dirname, '../fixtures/receipts/generated/core-1.png');
 
-let t: TestApp;
-let browser: Browser;
-let stopWorker: (() => Promise<void>) | undefined;
-beforeAll(async () => {
-  t = await startTestApp({ serveClient: true, reading: true });
-  stopWorker = await startReadingWorker(t.queue, { orm: t.orm, store: t.store, read: readWithPageImages });
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await stopWorker?.();
-  await t?.close();
-  await closeReaders();
-});
+const e2e = useBrowserApp({ reading: true });
 
-const receiptsOf = (buildId: string) => t.orm.em.fork().find(Receipt, { build: buildId }, { orderBy: { createdAt: 'asc' } });
+const receiptsOf = (buildId: string) => e2e.t.orm.em.fork().find(Receipt, { build: buildId }, { orderBy: { createdAt: 'asc' } });
 
 async function waitUntil<T>(what: () => Promise<T>, done: (value: T) => boolean, timeout = 120_000): Promise<T> {
   const until = Date.now() + timeout;
@@ -54,13 +38,13 @@ async function controlledByServiceWorker(page: Page): Promise<boolean> {
 }
 
 it('keeps two photos taken without signal through a reload and sends each once when the signal returns', async () => {
-  const owner = await signedUpClient(t.app, 'e2e-offline');
+  const owner = await signedUpClient(e2e.t.app, 'e2e-offline');
   const build = (await owner.client.post('/api/builds', { ...NEW_BUILD, name: 'Sage roadster', locale: 'en-US' })).body as { id: string };
-  const receiptsUrl = `${t.url}/builds/${build.id}/receipts`;
+  const receiptsUrl = `${e2e.t.url}/builds/${build.id}/receipts`;
   const bigPhoto = await phonePhoto();
 
-  const page = await newPage(browser, { phone: true, serviceWorker: true });
-  await signIn(page, t.url, owner.email);
+  const page = await newPage(e2e.browser, { phone: true, serviceWorker: true });
+  await signIn(page, e2e.t.url, owner.email);
   await page.goto(receiptsUrl);
   await page.getByRole('heading', { name: 'No receipts yet' }).waitFor();
   // Once the worker is installed, a visit with signal leaves the build's reads in its cache.
@@ -89,11 +73,11 @@ it('keeps two photos taken without signal through a reload and sends each once w
     ['core-1.png', 'to_check'],
   ]);
   // The phone photo was brought to a 2000 px long edge before it was queued; the small slip went as it was.
-  const sentPhoto = await t.store.get(receipts[0].documentKey);
+  const sentPhoto = await e2e.t.store.get(receipts[0].documentKey);
   const { width, height } = await sharp(sentPhoto).metadata();
   expect([width, height]).toEqual([2000, 1500]);
   expect(sentPhoto.length).toBeLessThan(bigPhoto.length / 3);
-  expect((await t.store.get(receipts[1].documentKey)).equals(readFileSync(SMALL_SLIP))).toBe(true);
+  expect((await e2e.t.store.get(receipts[1].documentKey)).equals(readFileSync(SMALL_SLIP))).toBe(true);
 
   // Nothing is sent twice: after another start the list holds the two and no chip is left.
   await page.reload();

@@ -4,25 +4,15 @@
 // independent CSV parser, then opens the printable build sheet with its safety caution.
 import { readFileSync } from 'node:fs';
 import Papa from 'papaparse';
-import type { Browser } from 'playwright-core';
 import { SAFETY_CAUTION } from '../../shared/safety';
 import { NEW_BUILD, signedUpClient, type ApiClient } from '../support/api-client';
-import { accessibilityViolations, launchBrowser, newPage, screenshot, signIn } from '../support/browser';
+import { accessibilityViolations, newPage, screenshot, signIn } from '../support/browser';
+import { useBrowserApp } from '../support/browser-app';
 import { filedReceipt } from '../support/receipts';
-import { startTestApp, type TestApp } from '../support/test-app';
 
 jest.setTimeout(240_000);
 
-let t: TestApp;
-let browser: Browser;
-beforeAll(async () => {
-  t = await startTestApp({ serveClient: true });
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await t?.close();
-});
+const e2e = useBrowserApp();
 
 /** The little of the DOM that `spoken` uses (this tsconfig has no DOM library: the function runs in the browser). */
 interface PageElement {
@@ -41,15 +31,15 @@ function spoken(elements: unknown[]): string[] {
 }
 
 async function invite(owner: ApiClient, buildId: string, role: 'reviewer' | 'crew') {
-  const person = await signedUpClient(t.app, `e2e-partner-${role}`);
+  const person = await signedUpClient(e2e.t.app, `e2e-partner-${role}`);
   await owner.post(`/api/builds/${buildId}/invites`, { email: person.email, role });
-  const mail = await t.mail.waitFor((m) => m.to.includes(person.email));
+  const mail = await e2e.t.mail.waitFor((m) => m.to.includes(person.email));
   expect((await person.client.post(`/api/invites/${/\/invites\/([\w-]+)/.exec(mail.text)![1]}/accept`)).status).toBe(200);
   return person;
 }
 
 it('lets the partner review receipts, export the tax ledger and print the build sheet', async () => {
-  const owner = await signedUpClient(t.app, 'e2e-partner-owner');
+  const owner = await signedUpClient(e2e.t.app, 'e2e-partner-owner');
   const build = (await owner.client.post('/api/builds', { ...NEW_BUILD, name: 'Teal wagon swap', vehicle: '1979 invented wagon, 3.1 L swap', locale: 'en-US' })).body;
   const systems = (await owner.client.get(`/api/builds/${build.id}/systems`)).body.systems as { id: string; name: string }[];
   const systemId = (name: string) => systems.find((s) => s.name === name)!.id;
@@ -57,22 +47,22 @@ it('lets the partner review receipts, export the tax ledger and print the build 
 
   // Three filed receipts (invented shops and prices), uploaded by the owner.
   const pump = (await owner.client.post(`/api/builds/${build.id}/parts`, { systemId: systemId('Fuel'), description: 'Fuel pump, in-tank', quantity: '1', unit: 'each', estimatedUnitCost: '140.00' })).body;
-  await filedReceipt(t, owner.client, build.id, { vendorName: 'Harbor Fuel Systems', purchaseDate: '2026-10-15', total: '150.00' }, [
+  await filedReceipt(e2e.t, owner.client, build.id, { vendorName: 'Harbor Fuel Systems', purchaseDate: '2026-10-15', total: '150.00' }, [
     { kind: 'part', description: 'In-tank pump', amount: '150.00', partId: pump.id },
   ]);
   const partVersion = (await owner.client.get(`/api/builds/${build.id}/parts`)).body.parts[0].version;
   expect((await owner.client.patch(`/api/builds/${build.id}/parts/${pump.id}`, { status: 'installed', version: partVersion })).status).toBe(200);
-  await filedReceipt(t, owner.client, build.id, { vendorName: 'Quayside Parts Counter', purchaseDate: '2026-11-01', tax: '0.96', total: '12.96' }, [
+  await filedReceipt(e2e.t, owner.client, build.id, { vendorName: 'Quayside Parts Counter', purchaseDate: '2026-11-01', tax: '0.96', total: '12.96' }, [
     { kind: 'part', description: 'Thermostat gasket', amount: '12.00', systemId: systemId('Cooling') },
   ]);
   // Tax 8.00 and shipping 10.00 over 80 : 20 (largest remainder, DESIGN §4): 6.40 + 1.60 and 8.00 + 2.00.
-  await filedReceipt(t, owner.client, build.id, { vendorName: 'Ridgeback Auto Supply', purchaseDate: '2026-11-02', tax: '8.00', shipping: '10.00', total: '118.00' }, [
+  await filedReceipt(e2e.t, owner.client, build.id, { vendorName: 'Ridgeback Auto Supply', purchaseDate: '2026-11-02', tax: '8.00', shipping: '10.00', total: '118.00' }, [
     { kind: 'part', description: 'Oil pressure gauge', amount: '80.00', systemId: systemId('Engine') },
     { kind: 'part', description: 'Gauge sender', amount: '20.00', systemId: systemId('Wiring harness') },
   ]);
 
-  const page = await newPage(browser);
-  await signIn(page, t.url, partner.email);
+  const page = await newPage(e2e.browser);
+  await signIn(page, e2e.t.url, partner.email);
   // The totals first, on the Ledger: net cost 150.00 + 12.96 + 118.00 = 280.96 (each receipt's printed total, all
   // purchases); by system, Engine 94.40 and Wiring harness 23.60 as allocated above.
   await page.getByRole('link', { name: 'Teal wagon swap' }).click();
@@ -107,7 +97,7 @@ it('lets the partner review receipts, export the tax ledger and print the build 
   await page.getByRole('button', { name: 'Send question' }).click();
   await page.getByText('Questioned: Ridgeback Auto Supply of Nov 2, 2026.').waitFor();
   await page.getByRole('heading', { name: 'Quayside Parts Counter' }).waitFor();
-  const mail = await t.mail.waitFor((m) => m.to.includes(owner.email) && m.text.includes('Is the gauge for the wagon or the race car?'));
+  const mail = await e2e.t.mail.waitFor((m) => m.to.includes(owner.email) && m.text.includes('Is the gauge for the wagon or the race car?'));
   expect(mail.subject).toContain('commented');
 
   await page.getByRole('button', { name: 'Approve' }).click();
@@ -165,14 +155,14 @@ it('lets the partner review receipts, export the tax ledger and print the build 
   await screenshot(page, 'build-sheet-print');
 
   // The same screens on a 390 px phone.
-  const phone = await newPage(browser, { phone: true });
-  await signIn(phone, t.url, partner.email);
+  const phone = await newPage(e2e.browser, { phone: true });
+  await signIn(phone, e2e.t.url, partner.email);
   for (const [path, heading, name] of [
     ['review', 'Waiting for review (1)', 'review-phone'],
     ['exports', 'Exports', 'exports-phone'],
     ['exports/build-sheet', 'Build sheet: Teal wagon swap', 'build-sheet-phone'],
   ] as const) {
-    await phone.goto(`${t.url}/builds/${build.id}/${path}`);
+    await phone.goto(`${e2e.t.url}/builds/${build.id}/${path}`);
     await phone.getByRole('heading', { name: heading }).waitFor();
     await phone.waitForLoadState('networkidle');
     await screenshot(phone, name);

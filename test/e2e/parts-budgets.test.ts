@@ -1,22 +1,13 @@
 // In Debian's chromium: the owner sets system budgets, adds parts through the dialog, imports a 50-row CSV (one bad
 // row left out) and reads each system's estimate against its budget on the Parts screen; then works the inventory.
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { NEW_BUILD, signedUpClient } from '../support/api-client';
-import { accessibilityViolations, launchBrowser, newPage, screenshot, signIn } from '../support/browser';
-import { startTestApp, type TestApp } from '../support/test-app';
+import { accessibilityViolations, newPage, screenshot, signIn } from '../support/browser';
+import { useBrowserApp } from '../support/browser-app';
 
 jest.setTimeout(180_000);
 
-let t: TestApp;
-let browser: Browser;
-beforeAll(async () => {
-  t = await startTestApp({ serveClient: true });
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await t?.close();
-});
+const e2e = useBrowserApp();
 
 const HEADER = 'system,description,part number,quantity,unit,estimated unit cost,status,storage location,source link,notes';
 
@@ -74,13 +65,13 @@ async function setBudget(page: Page, system: string, amount: string) {
 }
 
 it('budgets two systems, adds and imports parts, and shows each system against its budget', async () => {
-  const owner = await signedUpClient(t.app, 'e2e-parts');
+  const owner = await signedUpClient(e2e.t.app, 'e2e-parts');
   const created = await owner.client.post('/api/builds', { ...NEW_BUILD, name: 'Teal wagon swap', locale: 'en-US' });
   expect(created.status).toBe(201);
-  const buildUrl = `${t.url}/builds/${created.body.id}`;
+  const buildUrl = `${e2e.t.url}/builds/${created.body.id}`;
 
-  const page = await newPage(browser);
-  await signIn(page, t.url, owner.email);
+  const page = await newPage(e2e.browser);
+  await signIn(page, e2e.t.url, owner.email);
 
   // Budgets: two systems, and the live totals.
   await page.goto(`${buildUrl}/budgets`);
@@ -213,8 +204,8 @@ it('budgets two systems, adds and imports parts, and shows each system against i
   expect(await accessibilityViolations(page)).toEqual([]);
 
   // The same screens on a phone, 390 px wide: no sideways scrolling of the page.
-  const phone = await newPage(browser, { phone: true });
-  await signIn(phone, t.url, owner.email);
+  const phone = await newPage(e2e.browser, { phone: true });
+  await signIn(phone, e2e.t.url, owner.email);
   for (const section of ['parts', 'budgets', 'inventory']) {
     await phone.goto(`${buildUrl}/${section}`);
     await phone.getByRole('heading', { name: section[0].toUpperCase() + section.slice(1), level: 1 }).waitFor();

@@ -1,42 +1,25 @@
 // In Debian's chromium: the owner photographs a receipt (a generated slip with a core charge), watches it being read,
 // assigns its lines to systems on the check screen, files it, sees it Filed in the list, and records the core handed in.
 import path from 'node:path';
-import type { Browser } from 'playwright-core';
-import { startReadingWorker } from '../../backend/src/jobs/worker';
-import { readWithPageImages } from '../../backend/src/receipts/read-with-pages';
-import { closeReaders } from '../../backend/src/receipts/reading/read-document';
 import { NEW_BUILD, signedUpClient } from '../support/api-client';
-import { accessibilityViolations, isFocused, launchBrowser, newPage, screenshot, signIn } from '../support/browser';
+import { accessibilityViolations, isFocused, newPage, screenshot, signIn } from '../support/browser';
+import { useBrowserApp } from '../support/browser-app';
 import { assignSystem } from '../support/check-screen';
-import { startTestApp, type TestApp } from '../support/test-app';
 
 jest.setTimeout(240_000);
 
 const SLIP = path.resolve(__dirname, '../fixtures/receipts/generated/core-1.png');
 
-let t: TestApp;
-let browser: Browser;
-let stopWorker: (() => Promise<void>) | undefined;
-beforeAll(async () => {
-  t = await startTestApp({ serveClient: true, reading: true });
-  stopWorker = await startReadingWorker(t.queue, { orm: t.orm, store: t.store, read: readWithPageImages });
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await stopWorker?.();
-  await t?.close();
-  await closeReaders();
-});
+const e2e = useBrowserApp({ reading: true });
 
 it('reads an uploaded slip, checks and files it, and tracks its core deposit', async () => {
-  const owner = await signedUpClient(t.app, 'e2e-receipts');
+  const owner = await signedUpClient(e2e.t.app, 'e2e-receipts');
   const created = await owner.client.post('/api/builds', { ...NEW_BUILD, name: 'Teal wagon swap', locale: 'en-US' });
   expect(created.status).toBe(201);
-  const buildUrl = `${t.url}/builds/${created.body.id}`;
+  const buildUrl = `${e2e.t.url}/builds/${created.body.id}`;
 
-  const page = await newPage(browser);
-  await signIn(page, t.url, owner.email);
+  const page = await newPage(e2e.browser);
+  await signIn(page, e2e.t.url, owner.email);
   await page.goto(`${buildUrl}/receipts`);
   await page.getByRole('heading', { name: 'No receipts yet' }).waitFor();
   await screenshot(page, 'receipts-empty');
@@ -122,8 +105,8 @@ it('reads an uploaded slip, checks and files it, and tracks its core deposit', a
   await page.getByText('Old part handed in').waitFor();
 
   // On a phone Receipts is in the bottom bar.
-  const phone = await newPage(browser, { phone: true });
-  await signIn(phone, t.url, owner.email);
+  const phone = await newPage(e2e.browser, { phone: true });
+  await signIn(phone, e2e.t.url, owner.email);
   await phone.goto(buildUrl);
   await phone.getByRole('link', { name: 'Receipts', exact: true }).click();
   await phone.getByRole('link', { name: /BRACKENRIDGE/i }).waitFor();

@@ -2,42 +2,33 @@
 // another; the builder finds the question on the Overview and answers it in a comment; the partner sees it answered in
 // the Review queue; the two uploads of the same slip are marked "not a duplicate" and the warning leaves both.
 // Every step that tells someone arrives as mail through the fake SMTP server.
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { NEW_BUILD, signedUpClient } from '../support/api-client';
-import { accessibilityViolations, launchBrowser, newPage, screenshot, sidewaysScroll, signIn } from '../support/browser';
+import { accessibilityViolations, newPage, screenshot, sidewaysScroll, signIn } from '../support/browser';
+import { useBrowserApp } from '../support/browser-app';
 import { joinByInvite } from '../support/crew';
 import { filedReceipt } from '../support/receipts';
-import { startTestApp, type TestApp } from '../support/test-app';
 
 jest.setTimeout(120_000);
 
-let t: TestApp;
-let browser: Browser;
-beforeAll(async () => {
-  t = await startTestApp({ serveClient: true });
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await t?.close();
-});
+const e2e = useBrowserApp();
 
 it('closes the loop: approve and question on the receipt page, answer, the answer in the queue, not a duplicate', async () => {
-  const owner = await signedUpClient(t.app, 'e2e-loop-owner');
+  const owner = await signedUpClient(e2e.t.app, 'e2e-loop-owner');
   const build = (await owner.client.post('/api/builds', { ...NEW_BUILD, name: 'Sage roadster', locale: 'en-US' })).body;
   const engine = (await owner.client.get(`/api/builds/${build.id}/systems`)).body.systems[0].id;
-  const crew = await joinByInvite(t, owner.client, build.id, 'crew', 'e2e-loop-crew');
-  const partner = await joinByInvite(t, owner.client, build.id, 'reviewer', 'e2e-loop-partner');
+  const crew = await joinByInvite(e2e.t, owner.client, build.id, 'crew', 'e2e-loop-crew');
+  const partner = await joinByInvite(e2e.t, owner.client, build.id, 'reviewer', 'e2e-loop-partner');
   // The same slip uploaded twice by the builder (invented shops and prices): a likely duplicate of each other.
-  const harbor = await filedReceipt(t, crew.client, build.id, { vendorName: 'Harbor Gasket Works', purchaseDate: '2026-10-15', total: '18.00' }, [{ kind: 'part', description: 'Head gasket set', amount: '18.00', systemId: engine }]);
-  const quayside = await filedReceipt(t, crew.client, build.id, { vendorName: 'Quayside Parts Counter', purchaseDate: '2026-11-01', total: '12.00' }, [{ kind: 'part', description: 'Thermostat', amount: '12.00', systemId: engine }]);
-  const receiptUrl = (id: string) => `${t.url}/builds/${build.id}/receipts/${id}`;
-  const mailTo = (email: string, subject: string) => t.mail.waitFor((m) => m.to.includes(email) && m.subject.includes(subject));
+  const harbor = await filedReceipt(e2e.t, crew.client, build.id, { vendorName: 'Harbor Gasket Works', purchaseDate: '2026-10-15', total: '18.00' }, [{ kind: 'part', description: 'Head gasket set', amount: '18.00', systemId: engine }]);
+  const quayside = await filedReceipt(e2e.t, crew.client, build.id, { vendorName: 'Quayside Parts Counter', purchaseDate: '2026-11-01', total: '12.00' }, [{ kind: 'part', description: 'Thermostat', amount: '12.00', systemId: engine }]);
+  const receiptUrl = (id: string) => `${e2e.t.url}/builds/${build.id}/receipts/${id}`;
+  const mailTo = (email: string, subject: string) => e2e.t.mail.waitFor((m) => m.to.includes(email) && m.subject.includes(subject));
   const reviewState = (page: Page) => page.locator('.review-state .state-words');
 
   // The partner approves from the receipt's own page; the builder who uploaded it is told.
-  const partnerPage = await newPage(browser);
-  await signIn(partnerPage, t.url, partner.email);
+  const partnerPage = await newPage(e2e.browser);
+  await signIn(partnerPage, e2e.t.url, partner.email);
   await partnerPage.goto(receiptUrl(harbor.id));
   await partnerPage.getByRole('heading', { name: 'Harbor Gasket Works', level: 1 }).waitFor();
   await partnerPage.getByRole('button', { name: 'Approve' }).click();
@@ -55,9 +46,9 @@ it('closes the loop: approve and question on the receipt page, answer, the answe
 
   // The builder, on a phone: the Overview lists the question as a task; it opens the receipts filtered to it (the review
   // state in an icon and a word, nothing scrolling sideways), and a comment answers it.
-  const builderPage = await newPage(browser, { phone: true });
-  await signIn(builderPage, t.url, crew.email);
-  await builderPage.goto(`${t.url}/builds/${build.id}`);
+  const builderPage = await newPage(e2e.browser, { phone: true });
+  await signIn(builderPage, e2e.t.url, crew.email);
+  await builderPage.goto(`${e2e.t.url}/builds/${build.id}`);
   await builderPage.getByRole('link', { name: '1 question to answer' }).click();
   await builderPage.waitForURL(/\/receipts\?review=questioned$/);
   await builderPage.locator('.review').filter({ hasText: 'Questioned' }).waitFor();
@@ -71,7 +62,7 @@ it('closes the loop: approve and question on the receipt page, answer, the answe
   expect(answer.text).toContain('Answer: Yes: the 82 °C one, for the stock radiator.');
 
   // The partner finds it back in the queue, marked answered.
-  await partnerPage.goto(`${t.url}/builds/${build.id}/review`);
+  await partnerPage.goto(`${e2e.t.url}/builds/${build.id}/review`);
   await partnerPage.getByRole('heading', { name: 'Waiting for review (1)' }).waitFor();
   await partnerPage.getByRole('button', { name: /^Quayside Parts Counter\s*, Nov 1, 2026 · by .*, Answered\s*, \$12\.00$/ }).waitFor();
 

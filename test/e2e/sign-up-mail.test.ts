@@ -1,26 +1,17 @@
 // In Debian's chromium: sign-up answers "check your mail" alike for a new address and one that has an account; the
 // link mailed to the new address (read from the fake SMTP server) makes the account and opens the builds.
-import type { Browser, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { signedUpClient, TEST_PASSWORD, uniqueEmail } from '../support/api-client';
-import { accessibilityViolations, launchBrowser, newPage, screenshot } from '../support/browser';
+import { accessibilityViolations, newPage, screenshot } from '../support/browser';
+import { useBrowserApp } from '../support/browser-app';
 import { SIGN_UP_LINK_SUBJECT } from '../support/caught-mail';
-import { startTestApp, type TestApp } from '../support/test-app';
 
 jest.setTimeout(120_000);
 
-let t: TestApp;
-let browser: Browser;
-beforeAll(async () => {
-  t = await startTestApp({ serveClient: true });
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-  await t?.close();
-});
+const e2e = useBrowserApp();
 
 async function signUp(page: Page, email: string): Promise<string> {
-  await page.goto(`${t.url}/sign-up`);
+  await page.goto(`${e2e.t.url}/sign-up`);
   await page.getByLabel('Your name').fill('Noor Halvorsen');
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(TEST_PASSWORD);
@@ -30,19 +21,19 @@ async function signUp(page: Page, email: string): Promise<string> {
 }
 
 it('shows the same "check your mail" page for a new and a known address; the mailed link opens the builds', async () => {
-  const known = await signedUpClient(t.app, 'e2e-known');
+  const known = await signedUpClient(e2e.t.app, 'e2e-known');
   const fresh = uniqueEmail('e2e-fresh');
 
-  const page = await newPage(browser, { phone: true });
+  const page = await newPage(e2e.browser, { phone: true });
   const forFresh = await signUp(page, fresh);
   await screenshot(page, 'sign-up-check-mail-phone');
   expect(await accessibilityViolations(page)).toEqual([]);
-  const other = await newPage(browser, { phone: true });
+  const other = await newPage(e2e.browser, { phone: true });
   expect(await signUp(other, known.email)).toBe(forFresh);
   expect(forFresh).toContain('We sent a message to <address>. Open the link in it to finish creating your account; it works for 24 hours.');
 
-  expect((await t.mail.waitFor((m) => m.to.includes(known.email) && m.subject === 'You already have a Tallyhood account')).text).toContain('Nothing was changed.');
-  const mail = await t.mail.waitFor((m) => m.to.includes(fresh) && m.subject === SIGN_UP_LINK_SUBJECT);
+  expect((await e2e.t.mail.waitFor((m) => m.to.includes(known.email) && m.subject === 'You already have a Tallyhood account')).text).toContain('Nothing was changed.');
+  const mail = await e2e.t.mail.waitFor((m) => m.to.includes(fresh) && m.subject === SIGN_UP_LINK_SUBJECT);
   const link = /(http:\/\/127\.0\.0\.1:\d+\/sign-up\/confirm\/[A-Za-z0-9_-]+)/.exec(mail.text)![1];
 
   await page.goto(link);
@@ -51,7 +42,7 @@ it('shows the same "check your mail" page for a new and a known address; the mai
   expect(await accessibilityViolations(page)).toEqual([]);
 
   // The link works once: opened again, it says so and offers to sign in.
-  const again = await newPage(browser);
+  const again = await newPage(e2e.browser);
   await again.goto(link);
   await again.getByRole('alert').filter({ hasText: 'This sign-up link has expired or was already used.' }).waitFor();
   await screenshot(again, 'sign-up-link-used');

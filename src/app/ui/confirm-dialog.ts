@@ -14,16 +14,7 @@ export interface ConfirmDialogData {
   selector: 'th-confirm-dialog',
   imports: [MatDialogModule, MatButtonModule],
   changeDetection: ChangeDetectionStrategy.OnPush,
-  template: `
-    <h2 mat-dialog-title>{{ data.title }}</h2>
-    <mat-dialog-content>
-      <p>{{ data.message }}</p>
-    </mat-dialog-content>
-    <mat-dialog-actions align="end">
-      <button mat-button type="button" [mat-dialog-close]="false">Cancel</button>
-      <button mat-flat-button type="button" [mat-dialog-close]="true">{{ data.confirmLabel }}</button>
-    </mat-dialog-actions>
-  `,
+  templateUrl: './confirm-dialog.html',
 })
 export class ConfirmDialog {
   protected readonly data = inject<ConfirmDialogData>(MAT_DIALOG_DATA);

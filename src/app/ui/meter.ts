@@ -5,24 +5,8 @@ import { ChangeDetectionStrategy, Component, input } from '@angular/core';
   selector: 'th-meter',
   changeDetection: ChangeDetectionStrategy.OnPush,
   host: { 'aria-hidden': 'true' },
-  template: `<span class="fill" [class.over]="over()" [style.width]="fillPercent() + '%'"></span>`,
-  styles: `
-    :host {
-      display: block;
-      height: 8px;
-      border-radius: 4px;
-      background: var(--mat-sys-surface-container-highest);
-      overflow: hidden;
-    }
-    .fill {
-      display: block;
-      height: 100%;
-      background: var(--mat-sys-primary);
-    }
-    .fill.over {
-      background: var(--mat-sys-error);
-    }
-  `,
+  templateUrl: './meter.html',
+  styleUrl: './meter.css',
 })
 export class Meter {
   /** 0 to 100 as text for a CSS width (display only, never money). */

@@ -10,56 +10,8 @@ import { AlertsApi } from '../services/alerts-api';
   selector: 'th-alert-settings',
   imports: [MatProgressBarModule, MatSlideToggleModule],
   changeDetection: ChangeDetectionStrategy.OnPush,
-  template: `
-    @if (loading() || saving()) {
-      <mat-progress-bar mode="indeterminate" [attr.aria-label]="loading() ? 'Loading your alerts' : 'Saving'" />
-    }
-    <div class="page">
-      <h1 class="page-heading">Mail alerts</h1>
-      <p class="intro">
-        Choose what Tallyhood mails you about this build. These are your own choices: the rest of the crew choose theirs.
-        @if (loaded() && !chosen()) {
-          Until you change one, you get what your role usually needs.
-        }
-      </p>
-      @if (preferences(); as current) {
-        <ul class="kinds">
-          @for (kind of kinds; track kind) {
-            <li>
-              <mat-slide-toggle
-                [checked]="current[kind]"
-                [disabled]="saving()"
-                (change)="toggle(kind, $event)"
-                [attr.aria-describedby]="'alert-explanation-' + kind"
-              >
-                {{ labels[kind].label }}
-              </mat-slide-toggle>
-              <p class="explanation" [id]="'alert-explanation-' + kind">{{ labels[kind].explanation }}</p>
-            </li>
-          }
-        </ul>
-      }
-    </div>
-  `,
-  styles: `
-    .intro {
-      max-width: 640px;
-    }
-    .kinds {
-      list-style: none;
-      margin: 0;
-      padding: 0;
-      max-width: 640px;
-    }
-    .kinds li {
-      padding: 12px 0;
-      border-bottom: 1px solid var(--mat-sys-outline-variant);
-    }
-    .explanation {
-      margin: 4px 0 0 52px;
-      color: var(--mat-sys-on-surface-variant);
-    }
-  `,
+  templateUrl: './alert-settings.html',
+  styleUrl: './alert-settings.css',
 })
 export class AlertSettings {
   private readonly alertsApi = inject(AlertsApi);

@@ -15,31 +15,7 @@ import { AuthApi } from '../../../core/auth/auth-api';
   selector: 'th-reset-confirm',
   imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatProgressBarModule, RouterLink],
   changeDetection: ChangeDetectionStrategy.OnPush,
-  template: `
-    @if (submitting()) {
-      <mat-progress-bar mode="indeterminate" aria-label="Saving" />
-    }
-    <div class="page-narrow">
-      <h1 class="page-heading">Set a new password</h1>
-      @if (linkProblem()) {
-        <p class="notice notice-error" role="alert">{{ linkProblem() }}</p>
-      }
-      <form [formGroup]="form" (ngSubmit)="submit()" novalidate>
-        <mat-form-field class="full-width" subscriptSizing="dynamic">
-          <mat-label>New password</mat-label>
-          <input matInput formControlName="password" type="password" autocomplete="new-password" />
-          <mat-hint>At least 10 characters.</mat-hint>
-          <mat-error>{{ errorOf(form.controls.password) }}</mat-error>
-        </mat-form-field>
-        <div class="form-actions">
-          <button mat-flat-button class="cta" type="submit" [disabled]="submitting()">Set password</button>
-        </div>
-      </form>
-      <div class="form-links">
-        <a routerLink="/reset-password">Send a new link</a>
-      </div>
-    </div>
-  `,
+  templateUrl: './reset-confirm.html',
 })
 export class ResetConfirm {
   private readonly authApi = inject(AuthApi);

@@ -15,33 +15,7 @@ import { AuthApi } from '../../../core/auth/auth-api';
   selector: 'th-reset-request',
   imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatProgressBarModule, RouterLink],
   changeDetection: ChangeDetectionStrategy.OnPush,
-  template: `
-    @if (submitting()) {
-      <mat-progress-bar mode="indeterminate" aria-label="Sending" />
-    }
-    <div class="page-narrow">
-      <h1 class="page-heading">Reset your password</h1>
-      @if (sent()) {
-        <p class="notice" role="status">If an account exists for that address, a link is on its way.</p>
-        <p>The link works for a limited time. Check your spam folder if nothing arrives within a few minutes.</p>
-      } @else {
-        <p>Enter the e-mail address you sign in with and we will send a link to set a new password.</p>
-        <form [formGroup]="form" (ngSubmit)="submit()" novalidate>
-          <mat-form-field class="full-width" subscriptSizing="dynamic">
-            <mat-label>E-mail</mat-label>
-            <input matInput formControlName="email" type="email" autocomplete="email" />
-            <mat-error>{{ errorOf(form.controls.email) }}</mat-error>
-          </mat-form-field>
-          <div class="form-actions">
-            <button mat-flat-button class="cta" type="submit" [disabled]="submitting()">Send reset link</button>
-          </div>
-        </form>
-      }
-      <div class="form-links">
-        <a routerLink="/sign-in">Back to sign in</a>
-      </div>
-    </div>
-  `,
+  templateUrl: './reset-request.html',
 })
 export class ResetRequest {
   private readonly authApi = inject(AuthApi);

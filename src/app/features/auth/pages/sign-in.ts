@@ -21,36 +21,7 @@ const notices: Record<string, string> = {
   selector: 'th-sign-in',
   imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatProgressBarModule, RouterLink],
   changeDetection: ChangeDetectionStrategy.OnPush,
-  template: `
-    @if (submitting()) {
-      <mat-progress-bar mode="indeterminate" aria-label="Signing in" />
-    }
-    <div class="page-narrow">
-      <h1 class="page-heading">Sign in</h1>
-      @if (noticeText()) {
-        <p class="notice" role="status">{{ noticeText() }}</p>
-      }
-      <form [formGroup]="form" (ngSubmit)="submit()" novalidate>
-        <mat-form-field class="full-width" subscriptSizing="dynamic">
-          <mat-label>E-mail</mat-label>
-          <input matInput formControlName="email" type="email" autocomplete="email" />
-          <mat-error>{{ errorOf(form.controls.email) }}</mat-error>
-        </mat-form-field>
-        <mat-form-field class="full-width" subscriptSizing="dynamic">
-          <mat-label>Password</mat-label>
-          <input matInput formControlName="password" type="password" autocomplete="current-password" />
-          <mat-error>{{ errorOf(form.controls.password) }}</mat-error>
-        </mat-form-field>
-        <div class="form-actions">
-          <button mat-flat-button class="cta" type="submit" [disabled]="submitting()">Sign in</button>
-        </div>
-      </form>
-      <div class="form-links">
-        <a [routerLink]="signUpLink().path" [queryParams]="signUpLink().query">Create an account</a>
-        <a routerLink="/reset-password">Forgot your password?</a>
-      </div>
-    </div>
-  `,
+  templateUrl: './sign-in.html',
 })
 export class SignIn {
   private readonly authApi = inject(AuthApi);

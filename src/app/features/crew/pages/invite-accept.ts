@@ -14,33 +14,7 @@ import { CrewApi } from '../services/crew-api';
   selector: 'th-invite-accept',
   imports: [MatButtonModule, MatCardModule, MatProgressBarModule, RouterLink],
   changeDetection: ChangeDetectionStrategy.OnPush,
-  template: `
-    @if (loading() || joining()) {
-      <mat-progress-bar mode="indeterminate" [attr.aria-label]="joining() ? 'Joining the build' : 'Loading the invite'" />
-    }
-    <div class="page-narrow">
-      @if (invite(); as invite) {
-        <h1 class="page-heading">You're invited to {{ invite.buildName }} as {{ roleLabels[invite.role] }}</h1>
-        <p>
-          {{ invite.invitedBy }} invited {{ invite.email }}. The invite is good until
-          <span class="tabular">{{ formatDay(invite.expiresAt) }}</span>.
-        </p>
-        <p>The link works once: whoever joins with it first takes the place, so do not pass it on.</p>
-        <div class="form-actions">
-          @if (session.signedIn()) {
-            <button mat-flat-button class="cta" type="button" (click)="join()" [disabled]="joining()">Join build</button>
-          } @else {
-            <a mat-flat-button class="cta" routerLink="/sign-up" [queryParams]="{ invite: token() }">Create an account</a>
-            <a mat-stroked-button routerLink="/sign-in" [queryParams]="{ returnTo: '/invites/' + token() }">Sign in</a>
-          }
-        </div>
-      } @else if (problem()) {
-        <h1 class="page-heading">This invite can't be used</h1>
-        <p class="notice notice-error" role="alert">{{ problem() }}</p>
-        <a routerLink="/builds">Go to your builds</a>
-      }
-    </div>
-  `,
+  templateUrl: './invite-accept.html',
 })
 export class InviteAccept {
   private readonly crewApi = inject(CrewApi);

@@ -19,23 +19,7 @@ export interface SaleDialogData {
   selector: 'th-sale-dialog',
   imports: [ReactiveFormsModule, MatButtonModule, MatDialogModule, MatFormFieldModule, MatInputModule],
   changeDetection: ChangeDetectionStrategy.OnPush,
-  template: `
-    <h2 mat-dialog-title>Offer "{{ data.description }}" for sale</h2>
-    <mat-dialog-content>
-      <form id="sale-form" [formGroup]="form" (ngSubmit)="submit()" novalidate>
-        <mat-form-field subscriptSizing="dynamic" class="full-width">
-          <mat-label>Asking price</mat-label>
-          <input matInput formControlName="askingPrice" inputmode="decimal" autocomplete="off" class="tabular" />
-          <span matTextSuffix>{{ data.currency }}</span>
-          <mat-error>{{ errorOf(form.controls.askingPrice) }}</mat-error>
-        </mat-form-field>
-      </form>
-    </mat-dialog-content>
-    <mat-dialog-actions align="end">
-      <button mat-button type="button" mat-dialog-close>Cancel</button>
-      <button mat-flat-button class="cta" type="submit" form="sale-form">Offer for sale</button>
-    </mat-dialog-actions>
-  `,
+  templateUrl: './sale-dialog.html',
 })
 export class SaleDialog {
   protected readonly data = inject<SaleDialogData>(MAT_DIALOG_DATA);

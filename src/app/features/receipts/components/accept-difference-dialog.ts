@@ -17,23 +17,7 @@ export interface AcceptDifferenceData {
   selector: 'th-accept-difference-dialog',
   imports: [ReactiveFormsModule, MatButtonModule, MatDialogModule, MatFormFieldModule, MatInputModule],
   changeDetection: ChangeDetectionStrategy.OnPush,
-  template: `
-    <h2 mat-dialog-title>Accept the difference and file</h2>
-    <mat-dialog-content>
-      <p>The printed total is {{ data.differenceText }}. Say why, so the ledger explains it later.</p>
-      <form id="accept-form" [formGroup]="form" (ngSubmit)="submit()" novalidate>
-        <mat-form-field class="full-width">
-          <mat-label>Reason</mat-label>
-          <textarea matInput formControlName="reason" rows="3" placeholder="Rounding on the shop's till"></textarea>
-          <mat-error>{{ errorOf(form.controls.reason) }}</mat-error>
-        </mat-form-field>
-      </form>
-    </mat-dialog-content>
-    <mat-dialog-actions align="end">
-      <button mat-button type="button" mat-dialog-close>Cancel</button>
-      <button mat-flat-button class="cta" type="submit" form="accept-form">Accept and file</button>
-    </mat-dialog-actions>
-  `,
+  templateUrl: './accept-difference-dialog.html',
 })
 export class AcceptDifferenceDialog {
   protected readonly data = inject<AcceptDifferenceData>(MAT_DIALOG_DATA);

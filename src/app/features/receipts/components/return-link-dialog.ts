@@ -24,40 +24,8 @@ export interface ReturnLinkData {
   selector: 'th-return-link-dialog',
   imports: [MatButtonModule, MatDialogModule, MatFormFieldModule, MatInputModule],
   changeDetection: ChangeDetectionStrategy.OnPush,
-  template: `
-    <h2 mat-dialog-title>Which purchase does "{{ data.description }}" return?</h2>
-    <mat-dialog-content>
-      <mat-form-field class="full-width" subscriptSizing="dynamic">
-        <mat-label>Search earlier lines</mat-label>
-        <input matInput autocomplete="off" (input)="typed($any($event.target).value)" />
-      </mat-form-field>
-      <p class="hint" role="status">{{ status() }}</p>
-      <ul class="results">
-        @for (result of results(); track result.lineId) {
-          <li>
-            <button mat-stroked-button type="button" (click)="choose(result)">
-              {{ result.description }}{{ result.partNumber ? ' · ' + result.partNumber : '' }} ·
-              {{ result.vendorName || 'Unknown shop' }} · {{ dateOf(result) }} · {{ amountOf(result) }}
-            </button>
-          </li>
-        }
-      </ul>
-    </mat-dialog-content>
-    <mat-dialog-actions align="end">
-      <button mat-button type="button" mat-dialog-close>Cancel</button>
-    </mat-dialog-actions>
-  `,
-  styles: `
-    .results {
-      list-style: none;
-      padding: 0;
-      display: grid;
-      gap: 8px;
-    }
-    .hint {
-      color: var(--mat-sys-on-surface-variant);
-    }
-  `,
+  templateUrl: './return-link-dialog.html',
+  styleUrl: './return-link-dialog.css',
 })
 export class ReturnLinkDialog {
   protected readonly data = inject<ReturnLinkData>(MAT_DIALOG_DATA);

@@ -32,63 +32,8 @@ type ShareGroup = FormGroup<{ amount: FormControl<string>; systemId: FormControl
   selector: 'th-split-dialog',
   imports: [ReactiveFormsModule, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule],
   changeDetection: ChangeDetectionStrategy.OnPush,
-  template: `
-    <h2 mat-dialog-title>Split "{{ data.description }}"</h2>
-    <mat-dialog-content>
-      <p>Share {{ lineText }} between systems. The shares must add up to the line exactly.</p>
-      <form id="split-form" [formGroup]="form" (ngSubmit)="submit()" novalidate>
-        @for (share of shares.controls; track share; let index = $index) {
-          <div class="share" [formGroup]="share">
-            <mat-form-field subscriptSizing="dynamic">
-              <mat-label>Share {{ index + 1 }} amount</mat-label>
-              <input matInput formControlName="amount" inputmode="decimal" autocomplete="off" class="tabular" (input)="changed()" />
-            </mat-form-field>
-            <mat-form-field subscriptSizing="dynamic">
-              <mat-label>Share {{ index + 1 }} system</mat-label>
-              <mat-select formControlName="systemId">
-                @for (system of data.systems; track system.id) {
-                  <mat-option [value]="system.id">{{ system.name }}</mat-option>
-                }
-              </mat-select>
-            </mat-form-field>
-            @if (shares.length > 2) {
-              <button mat-icon-button type="button" (click)="remove(index)" [attr.aria-label]="'Remove share ' + (index + 1)">
-                <mat-icon aria-hidden="true">delete</mat-icon>
-              </button>
-            }
-          </div>
-        }
-        <button mat-button type="button" (click)="add()"><mat-icon aria-hidden="true">add</mat-icon> Add a share</button>
-      </form>
-      <p class="remaining" [class.off]="!balanced()" role="status">
-        @if (balanced()) {
-          <mat-icon aria-hidden="true">check_circle</mat-icon> The shares add up to the line.
-        } @else {
-          <mat-icon aria-hidden="true">error</mat-icon> {{ remainingText() }}
-        }
-      </p>
-    </mat-dialog-content>
-    <mat-dialog-actions align="end">
-      <button mat-button type="button" mat-dialog-close>Cancel</button>
-      <button mat-flat-button class="cta" type="submit" form="split-form">Split line</button>
-    </mat-dialog-actions>
-  `,
-  styles: `
-    .share {
-      display: flex;
-      gap: 8px;
-      align-items: center;
-      margin-bottom: 8px;
-    }
-    .remaining {
-      display: flex;
-      align-items: center;
-      gap: 4px;
-    }
-    .remaining.off {
-      color: var(--mat-sys-error);
-    }
-  `,
+  templateUrl: './split-dialog.html',
+  styleUrl: './split-dialog.css',
 })
 export class SplitDialog {
   protected readonly data = inject<SplitDialogData>(MAT_DIALOG_DATA);
