@@ -1,4 +1,5 @@
 // Accounts against the real PostgreSQL: sign-up by a mailed link, sign-in, sign-out, CSRF, rate limits and password reset.
+import { ACCOUNT_MAILS_PER_HOUR, mayMailAccount } from '../../backend/src/auth/account-mail-cap';
 import { PasswordReset } from '../../backend/src/auth/password-reset.entity';
 import { PendingSignUp } from '../../backend/src/auth/pending-sign-up.entity';
 import { User } from '../../backend/src/auth/user.entity';
@@ -336,5 +337,49 @@ describe('password reset', () => {
     expect(res.status).toBe(202);
     await new Promise((r) => setTimeout(r, 200));
     expect(t.mail.messages.filter((m) => m.to.includes(email))).toHaveLength(0);
+  });
+});
+
+describe('account mail to one address', () => {
+  it('counts at most five an hour per address, even asked for all at once; older ones and other addresses do not count', async () => {
+    const email = uniqueEmail('cap-unit');
+    const em = t.orm.em.fork();
+    const allowed = await Promise.all(Array.from({ length: 7 }, () => mayMailAccount(t.orm.em.fork(), email, 'password-reset')));
+    expect(allowed.filter(Boolean)).toHaveLength(ACCOUNT_MAILS_PER_HOUR);
+    expect(await mayMailAccount(em, uniqueEmail('cap-other'), 'password-reset')).toBe(true);
+    // Upper and lower case name one mailbox.
+    expect(await mayMailAccount(em, email.toUpperCase(), 'sign-up-link')).toBe(false);
+    // An hour later the address may be mailed again.
+    await em.execute(`update account_mail_sent set sent_at = now() - interval '61 minutes' where email = ?`, [email.toLowerCase()]);
+    expect(await mayMailAccount(em, email, 'sign-up-known-address')).toBe(true);
+  });
+
+  it('sends one address five account mails an hour however many client addresses ask, and answers every ask alike', async () => {
+    // Its sign-up link was the address's first account mail.
+    const { email } = await signedUpClient(t.app, 'cap-http');
+    // Each ask from a client address of its own, so no request limit applies: resets and sign-ups of the known address.
+    const asks = ['reset', 'sign-up', 'reset', 'sign-up', 'reset', 'sign-up', 'reset', 'sign-up'];
+    const answers = [];
+    for (const [i, ask] of asks.entries()) {
+      const client = await new ApiClient(t.app, { clientAddress: `198.51.100.${120 + i}` }).init();
+      answers.push(
+        ask === 'reset'
+          ? await client.post('/api/auth/password-reset', { email })
+          : await client.post('/api/auth/sign-up', { email, displayName: 'Someone Else', password: TEST_PASSWORD }),
+      );
+    }
+    expect(answers.map((answer) => answer.status)).toEqual(Array(asks.length).fill(202));
+    for (const kind of ['reset', 'sign-up']) {
+      expect(new Set(answers.filter((_, i) => asks[i] === kind).map((answer) => JSON.stringify(answer.body))).size).toBe(1);
+    }
+    const address = email.toLowerCase();
+    const toAddress = () => t.mail.messages.filter((m) => m.to.includes(address));
+    await t.mail.waitFor(() => toAddress().length >= ACCOUNT_MAILS_PER_HOUR - 1);
+    // The other asks ran after their answers too: given time, they still send nothing.
+    await new Promise((resolve) => setTimeout(resolve, 1500));
+    expect(toAddress()).toHaveLength(ACCOUNT_MAILS_PER_HOUR - 1);
+    expect(new Set(toAddress().map((m) => m.subject))).toEqual(new Set(['Reset your Tallyhood password', 'You already have a Tallyhood account']));
+    const [{ count }] = await t.orm.em.fork().execute(`select count(*)::int as count from account_mail_sent where email = ?`, [address]);
+    expect(count).toBe(ACCOUNT_MAILS_PER_HOUR);
   });
 });

@@ -8,6 +8,7 @@ import { acceptInvite, invitedAddress } from '../crew/crew.service';
 import { afterCommit } from '../http/request-transaction';
 import type { Mailer } from '../mail/mailer';
 import { passwordResetMail, signUpKnownAddressMail, signUpLinkMail } from '../mail/templates';
+import { mayMailAccount } from './account-mail-cap';
 import { hashPassword, hashToken, newToken } from './passwords';
 import { PasswordReset } from './password-reset.entity';
 import { PendingSignUp } from './pending-sign-up.entity';
@@ -69,9 +70,11 @@ export async function startSignUp(em: EntityManager, mailer: Mailer, config: App
 
 async function mailSignUp(em: EntityManager, mailer: Mailer, config: AppConfig, pending: Pick<PendingSignUp, 'email' | 'displayName' | 'passwordHash'>): Promise<void> {
   if (await em.count(User, { email: pending.email })) {
+    if (!(await mayMailAccount(em, pending.email, 'sign-up-known-address'))) return;
     await mailer.send(signUpKnownAddressMail({ to: pending.email, signInLink: `${config.appUrl}/sign-in`, resetLink: `${config.appUrl}/reset-password` }));
     return;
   }
+  if (!(await mayMailAccount(em, pending.email, 'sign-up-link'))) return;
   const { token, tokenHash } = newToken();
   // Expired sign-ups (everyone's) go here, so unconfirmed password hashes are kept a day at most past their expiry.
   await em.nativeDelete(PendingSignUp, { expiresAt: { $lte: new Date() } });
@@ -106,6 +109,7 @@ export async function requestPasswordReset(em: EntityManager, mailer: Mailer, co
   const { token, tokenHash } = newToken();
   const user = await em.findOne(User, { email: email.toLowerCase() });
   if (!user) return;
+  if (!(await mayMailAccount(em, user.email, 'password-reset'))) return;
   em.create(PasswordReset, { user, tokenHash, expiresAt: new Date(Date.now() + RESET_LIFETIME_MS) });
   await em.flush();
   await mailer.send(passwordResetMail({ to: user.email, link: `${config.appUrl}/reset-password/${token}` }));
