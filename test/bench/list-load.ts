@@ -14,9 +14,9 @@ const CLIENTS = 20;
  * The routes take turns, ROUNDS times, each for this long or until this many answers have come: other work on the
  * machine then weighs on every route alike, and the ratios to health stay fair.
  */
-const ROUNDS = 4;
-const SECONDS_PER_TURN = 2;
-const MAX_REQUESTS_PER_TURN = 2000;
+const ROUNDS = 8;
+const SECONDS_PER_TURN = 1;
+const MAX_REQUESTS_PER_TURN = 1000;
 const WARM_UP_REQUESTS = 100;
 
 /** All clients ask for `url` back to back until the time or the count runs out; every answer must be 200. */
