@@ -7,6 +7,10 @@ export const READ_RECEIPT = 'read-receipt';
 export const SEND_ALERTS = 'send-alerts';
 /** Every 15 minutes, in UTC: often enough for a 7-day warning, rare enough to cost nothing. */
 export const SEND_ALERTS_CRON = '*/15 * * * *';
+/** Expired account rows forgotten (backend/src/auth/forget-expired.job.ts). */
+export const FORGET_EXPIRED = 'forget-expired';
+/** Hourly, in UTC, off the quarter hours the alerts take. */
+export const FORGET_EXPIRED_CRON = '7 * * * *';
 
 export interface ReadReceiptJob {
   receiptId: string;
@@ -15,7 +19,10 @@ export interface ReadReceiptJob {
 export interface JobQueue {
   boss: PgBoss;
   readReceipt(receiptId: string): Promise<void>;
-  /** Puts the alerts job on pg-boss's cron; the clock runs in the process started with `schedule: true`. */
+  /**
+   * Puts the alerts job and the forgetting of expired account rows on pg-boss's cron; the clock runs in the process
+   * started with `schedule: true`.
+   */
   scheduleAlerts(): Promise<void>;
   stop(): Promise<void>;
 }
@@ -58,6 +65,7 @@ export async function startJobQueue(db: AppConfig['db'], options: { supervise?: 
   await ensureQueue(boss, READ_RECEIPT, { retryLimit: 3, retryDelay: 10, retryBackoff: true, expireInSeconds: 15 * 60 });
   // One alerts run at a time: a second one would find nothing new to send, so it is not worth queueing.
   await ensureQueue(boss, SEND_ALERTS, { policy: 'singleton', retryLimit: 2, retryDelay: 60, expireInSeconds: 10 * 60 });
+  await ensureQueue(boss, FORGET_EXPIRED, { policy: 'singleton', retryLimit: 2, retryDelay: 60, expireInSeconds: 10 * 60 });
   return {
     boss,
     async readReceipt(receiptId) {
@@ -65,6 +73,7 @@ export async function startJobQueue(db: AppConfig['db'], options: { supervise?: 
     },
     async scheduleAlerts() {
       await boss.schedule(SEND_ALERTS, SEND_ALERTS_CRON, {}, { tz: 'UTC' });
+      await boss.schedule(FORGET_EXPIRED, FORGET_EXPIRED_CRON, {}, { tz: 'UTC' });
     },
     async stop() {
       await boss.stop({ graceful: true, wait: true, timeout: 10_000 });

@@ -1,5 +1,6 @@
 // The receipt reading worker, its own process (npm start runs it): takes reading jobs from the PostgreSQL queue,
-// and runs the cron clock of the mail alerts job and works that queue too.
+// and runs the cron clock of the mail alerts job and of the forgetting of expired account rows, and works those
+// queues too.
 import { MikroORM } from '@mikro-orm/postgresql';
 import { loadConfig } from '../config';
 import { ormConfig } from '../db/mikro-orm.config';
@@ -8,6 +9,7 @@ import { closeReaders } from '../receipts/reading/read-document';
 import { readWithPageImages } from '../receipts/read-with-pages';
 import { createObjectStore } from '../storage/object-store';
 import { startAlertsWorker } from '../alerts/alerts.job';
+import { startForgettingWorker } from '../auth/forget-expired.job';
 import { createMailer } from '../mail/mailer';
 import { READ_RECEIPT, startJobQueue, type JobQueue, type ReadReceiptJob } from './queue';
 import { readQueuedReceipt, type ReadReceiptDeps } from './read-receipt.job';
@@ -40,10 +42,12 @@ if (require.main === module) {
     const mailer = createMailer(config.smtp);
     await queue.scheduleAlerts();
     const stopAlerts = await startAlertsWorker(queue, { orm, mailer, config });
-    console.log('[worker] reading receipts from the queue; mail alerts every 15 minutes');
+    const stopForgetting = await startForgettingWorker(queue, orm);
+    console.log('[worker] reading receipts from the queue; mail alerts every 15 minutes; expired sign-ups forgotten hourly');
     const shutdown = async () => {
       await stop();
       await stopAlerts();
+      await stopForgetting();
       mailer.close();
       await queue.stop();
       await closeReaders();
