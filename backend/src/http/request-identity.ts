@@ -38,6 +38,8 @@ function scalarColumns(manager: EntityManager, entityName: string): string[] {
 interface IdentityQueries {
   userColumns: string[];
   buildColumns: string[];
+  /** The user alone. */
+  user: string;
   /** The user with their membership of one build and the build ($1 the build, $2 the user). */
   userWithMembership: string;
   /** The membership of one build with the build ($1 the build, $2 the user). */
@@ -57,6 +59,7 @@ function identityQueries(manager: EntityManager): IdentityQueries {
     queries = {
       userColumns,
       buildColumns,
+      user: `select ${userColumns.join(', ')} from app_user where id = ?`,
       userWithMembership: `select ${userColumns.map((column) => `u.${column} as user_${column}`).join(', ')}, ${membershipColumns}
          from app_user u
          left join (membership m join build b on b.id = m.build_id) on m.user_id = u.id and m.build_id = ?
@@ -99,7 +102,7 @@ export async function signedInUser(req: Request, userId: string): Promise<User |
     readWithUser.set(req, { buildId, userId, membership });
     return user;
   }
-  const [row] = await preparedRows<Row>(manager, 'select * from app_user where id = ?', [userId]);
+  const [row] = await preparedRows<Row>(manager, identityQueries(manager).user, [userId]);
   return row ? manager.map(User, row) : null;
 }
 
