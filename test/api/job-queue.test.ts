@@ -31,7 +31,7 @@ it('starts four queues at once on a fresh database, each with every queue made o
       expect((await queue.boss.getQueue(FORGET_EXPIRED))?.policy).toBe('singleton');
     }
     expect((await queues[0].boss.getQueues()).map((queue) => queue.name).sort()).toEqual([READ_RECEIPT, SEND_ALERTS, FORGET_EXPIRED].sort());
-    await queues[0].scheduleAlerts();
+    await queues[0].scheduleCrons();
     const schedules = await queues[0].boss.getSchedules();
     expect(schedules.map((schedule) => [schedule.name, schedule.cron, schedule.options?.tz]).sort()).toEqual(
       [

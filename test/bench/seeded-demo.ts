@@ -57,7 +57,7 @@ export async function withDemoApp<T>(dbName: string, work: (app: { port: number;
   return withSeededDemo(dbName, async ({ orm, store, config, build }) => {
     const mail = await startFakeMailServer({ quiet: true });
     const mailer = createMailer({ ...config.smtp, port: mail.smtpPort });
-    const queue = { readReceipt: async () => undefined, scheduleAlerts: async () => undefined, stop: async () => undefined } as unknown as JobQueue;
+    const queue = { readReceipt: async () => undefined, scheduleCrons: async () => undefined, stop: async () => undefined } as unknown as JobQueue;
     const running = createApp({ orm, config, mailer, store, queue });
     let server: http.Server | undefined;
     try {

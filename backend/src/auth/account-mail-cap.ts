@@ -17,9 +17,11 @@ export async function mayMailAccount(em: EntityManager, email: string, kind: Acc
   const address = email.toLowerCase();
   return em.transactional(async (tx) => {
     await tx.execute(`select pg_advisory_xact_lock(hashtext('account-mail:' || ?))`, [address]);
-    // Counts older than the hour are of no use to anyone: they go as the next mail is counted.
-    await tx.execute(`delete from account_mail_sent where sent_at <= now() - interval '1 hour'`);
-    const [{ count }] = await tx.execute<{ count: number }[]>(`select count(*)::int as count from account_mail_sent where email = ?`, [address]);
+    // Counts older than the hour are left for the hourly forget-expired job (auth/forget-expired.job.ts).
+    const [{ count }] = await tx.execute<{ count: number }[]>(
+      `select count(*)::int as count from account_mail_sent where email = ? and sent_at > now() - interval '1 hour'`,
+      [address],
+    );
     if (count >= ACCOUNT_MAILS_PER_HOUR) {
       console.warn(`[mail] ${kind} mail held back: the address had ${count} account mails in the last hour`);
       return false;

@@ -76,8 +76,8 @@ async function mailSignUp(em: EntityManager, mailer: Mailer, config: AppConfig, 
   }
   if (!(await mayMailAccount(em, pending.email, 'sign-up-link'))) return;
   const { token, tokenHash } = newToken();
-  // Expired sign-ups (everyone's) go here as well as hourly (auth/forget-expired.job.ts): unconfirmed password
-  // hashes are not kept past their link's day.
+  // Expired sign-ups (everyone's) go here, and hourly when nobody signs up (auth/forget-expired.job.ts): unconfirmed
+  // password hashes are not kept past their link's day.
   await em.nativeDelete(PendingSignUp, { expiresAt: { $lte: new Date() } });
   em.create(PendingSignUp, { ...pending, tokenHash, expiresAt: new Date(Date.now() + SIGN_UP_LIFETIME_MS) });
   await em.flush();

@@ -1,5 +1,5 @@
 // The hourly forgetting of expired account rows: sign-ups whose link expired unused (each holds a password hash) and
-// the account-mail counts past their hour. Without it a pending sign-up would stay until someone else signed up.
+// the account-mail counts past their hour. The mail cap only reads the counts; sign-up clears expired sign-ups too.
 import type { QueryResult } from '@mikro-orm/core';
 import type { EntityManager, MikroORM } from '@mikro-orm/postgresql';
 import { FORGET_EXPIRED, type JobQueue } from '../jobs/queue';

@@ -23,7 +23,7 @@ export interface JobQueue {
    * Puts the alerts job and the forgetting of expired account rows on pg-boss's cron; the clock runs in the process
    * started with `schedule: true`.
    */
-  scheduleAlerts(): Promise<void>;
+  scheduleCrons(): Promise<void>;
   stop(): Promise<void>;
 }
 
@@ -71,7 +71,7 @@ export async function startJobQueue(db: AppConfig['db'], options: { supervise?: 
     async readReceipt(receiptId) {
       await boss.send(READ_RECEIPT, { receiptId } satisfies ReadReceiptJob);
     },
-    async scheduleAlerts() {
+    async scheduleCrons() {
       await boss.schedule(SEND_ALERTS, SEND_ALERTS_CRON, {}, { tz: 'UTC' });
       await boss.schedule(FORGET_EXPIRED, FORGET_EXPIRED_CRON, {}, { tz: 'UTC' });
     },

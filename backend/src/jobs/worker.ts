@@ -40,7 +40,7 @@ if (require.main === module) {
     await requeueStranded(orm, queue);
     const stop = await startReadingWorker(queue, { orm, store, read: readWithPageImages });
     const mailer = createMailer(config.smtp);
-    await queue.scheduleAlerts();
+    await queue.scheduleCrons();
     const stopAlerts = await startAlertsWorker(queue, { orm, mailer, config });
     const stopForgetting = await startForgettingWorker(queue, orm);
     console.log('[worker] reading receipts from the queue; mail alerts every 15 minutes; expired sign-ups forgotten hourly');
