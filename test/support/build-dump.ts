@@ -3,6 +3,8 @@
 import type { MikroORM } from '@mikro-orm/postgresql';
 
 const BUILD_TABLES = ['vehicle_system', 'part', 'vendor', 'receipt', 'receipt_line', 'core', 'audit_event', 'comment', 'not_duplicate', 'invite', 'membership', 'alert_sent', 'ledger_system_total', 'ledger_part_total', 'ledger_stale'];
+// Not list_stale nor build_list_version: the lists' bookkeeping (http/list-cache.ts), which a read of a list moves on.
+// A refused write leaves no mark there either, as its transaction is rolled back (test/api/list-cache.test.ts).
 
 export async function dumpBuild(orm: MikroORM, buildId: string): Promise<string> {
   const connection = orm.em.fork().getConnection();

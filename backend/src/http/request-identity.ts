@@ -55,6 +55,7 @@ function identityQueries(manager: EntityManager): IdentityQueries {
     const userColumns = scalarColumns(manager, User.name);
     const buildColumns = scalarColumns(manager, Build.name);
     const membershipColumns = `m.id as membership_id, m.role as membership_role, m.created_at as membership_created_at,
+            coalesce(lv.version, 0) as lists_version, exists (select 1 from list_stale s where s.build_id = m.build_id) as lists_stale,
             ${buildColumns.map((column) => `b.${column} as build_${column}`).join(', ')}`;
     queries = {
       userColumns,
@@ -63,9 +64,11 @@ function identityQueries(manager: EntityManager): IdentityQueries {
       userWithMembership: `select ${userColumns.map((column) => `u.${column} as user_${column}`).join(', ')}, ${membershipColumns}
          from app_user u
          left join (membership m join build b on b.id = m.build_id) on m.user_id = u.id and m.build_id = ?
+         left join build_list_version lv on lv.build_id = m.build_id
         where u.id = ?`,
       membership: `select ${membershipColumns}
          from membership m join build b on b.id = m.build_id
+         left join build_list_version lv on lv.build_id = m.build_id
         where m.build_id = ? and m.user_id = ?`,
     };
     queriesByMetadata.set(metadata, queries);
@@ -80,9 +83,26 @@ function columnsOf(row: Row, prefix: string, columns: string[]): Row {
   return own;
 }
 
+/** Where the build's lists stand, read with the membership (http/list-cache.ts). */
+export interface ListsStamp {
+  /** The build's lists version (a bigint, as text). */
+  version: string;
+  /** Writes since the version last moved on are marked: the version must move on before a list is answered from memory. */
+  stale: boolean;
+}
+
+const listsStamps = new WeakMap<Membership, ListsStamp>();
+
+/** The lists stamp read with the caller's membership of the build. */
+export function listsStampOf(membership: Membership): ListsStamp | undefined {
+  return listsStamps.get(membership);
+}
+
 function mapMembership(manager: EntityManager, queries: IdentityQueries, row: Row, userId: string): Membership {
   const build = manager.map(Build, columnsOf(row, 'build_', queries.buildColumns));
-  return manager.map(Membership, { id: row.membership_id, role: row.membership_role, created_at: row.membership_created_at, build_id: build.id, user_id: userId });
+  const membership = manager.map(Membership, { id: row.membership_id, role: row.membership_role, created_at: row.membership_created_at, build_id: build.id, user_id: userId });
+  listsStamps.set(membership, { version: String(row.lists_version), stale: row.lists_stale });
+  return membership;
 }
 
 async function userWithMembership(manager: EntityManager, userId: string, buildId: string): Promise<{ user: User | null; membership: Membership | null }> {

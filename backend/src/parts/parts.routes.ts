@@ -3,6 +3,7 @@ import express, { Router, type Request } from 'express';
 import { bulkPartsRequest, createPartRequest, updatePartRequest } from '../../../shared/api/parts';
 import { ANY_MEMBER, buildRole, em, isUuid, membershipOf } from '../http/build-access';
 import { NotFound, ValidationFailed } from '../http/errors';
+import { sendList } from '../http/list-cache';
 import { multipartUpload } from '../http/uploads';
 import { validBody } from '../http/validate';
 import { commitImport, previewDto, previewImport } from './parts-import';
@@ -26,7 +27,7 @@ export function partsRoutes(): Router {
     const build = membershipOf(res).build;
     const systemId = typeof req.query.systemId === 'string' && isUuid(req.query.systemId) ? req.query.systemId : undefined;
     const status = typeof req.query.status === 'string' ? req.query.status : undefined;
-    res.json({ parts: await listParts(em(), build, { systemId, status }) });
+    await sendList(req, res, `parts ${systemId ?? ''} ${status ?? ''}`, async () => ({ parts: await listParts(em(), build, { systemId, status }) }));
   });
 
   router.post('/parts', buildRole(...EDITORS), validBody(createPartRequest), async (req, res) => {

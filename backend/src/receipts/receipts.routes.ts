@@ -17,6 +17,7 @@ import {
 import { RECEIPT_STATES, REVIEW_STATES, type ReceiptState, type ReviewState } from '../../../shared/enums';
 import { ANY_MEMBER, buildRole, em, isUuid, membershipOf } from '../http/build-access';
 import { NotFound, ValidationFailed } from '../http/errors';
+import { sendList } from '../http/list-cache';
 import { multipartUpload } from '../http/uploads';
 import { parseInput, validBody } from '../http/validate';
 import { dateRangeQuery } from '../../../shared/api/dates';
@@ -54,15 +55,15 @@ export function receiptsRoutes(deps: { store: ObjectStore; queue: JobQueue }): R
     if (review !== undefined && !REVIEW_STATES.includes(review as ReviewState)) throw new ValidationFailed({ review: `Choose one of: ${REVIEW_STATES.join(', ')}.` });
     const systemId = req.query.systemId === undefined ? undefined : id(req.query.systemId, 'That system');
     const { from, to } = parseInput(dateRangeQuery, { from: req.query.from, to: req.query.to });
-    const receipts = await listReceipts(em(), membershipOf(res).build, {
+    const filter = {
       state: state as ReceiptState | undefined,
       vendor: typeof req.query.vendor === 'string' ? req.query.vendor : undefined,
       from,
       to,
       systemId,
       review: review as ReviewState | undefined,
-    });
-    res.json({ receipts });
+    };
+    await sendList(req, res, `receipts ${JSON.stringify(filter)}`, async () => ({ receipts: await listReceipts(em(), membershipOf(res).build, filter) }));
   });
 
   router.post(
