@@ -9,6 +9,7 @@ import { FIGURE_LABELS, type LinesRequest } from '../models/ledger-words';
 import { FIGURE_WORDS, compareWithBudget, type BudgetComparison } from '../../../../../shared/build-figures';
 import { BarChart, type BarClick, type ChartMarker, type ChartSeries } from './bar-chart';
 import { LEDGER_COLORS } from './ledger-colors';
+import { FigureButton } from '../../../ui/figure-button/figure-button';
 
 const FIGURES_SHOWN = ['budget', 'spent', 'netCost', 'forecast', 'coreDepositsOutstanding', 'returnsAwaitingRefund'] as const;
 
@@ -20,7 +21,7 @@ const LINKED: LedgerLineFigure[] = ['spent', 'netCost', 'coreDepositsOutstanding
 
 @Component({
   selector: 'th-system-bars',
-  imports: [MatIconModule, MoneyPipe, BarChart],
+  imports: [MatIconModule, MoneyPipe, BarChart, FigureButton],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './system-bars.html',
   styleUrls: ['../figure-table.css', './system-bars.css'],
@@ -77,9 +78,6 @@ export class SystemBars {
     return compareWithBudget('forecast', system.forecast, system.budget);
   }
 
-  protected isZero(amount: string): boolean {
-    return toDecimal(amount).isZero();
-  }
 
   protected openFigure(system: LedgerSystemDto, figure: LedgerLineFigure): void {
     this.open.emit({ figure, systemId: system.systemId, title: `${FIGURE_LABELS[figure]} of ${system.name}` });

@@ -9,9 +9,9 @@ import { RouterLink } from '@angular/router';
 import { forkJoin } from 'rxjs';
 import { OVERRUN_MIN_SAMPLE, type LedgerDto, type LedgerLineFigure, type SpendPeriod, type SpendResponse, type VendorSpendDto, type VendorsResponse } from '../../../../../shared/api/ledger';
 import type { FigureName } from '../../../../../shared/build-figures';
-import { toDecimal } from '../../../../../shared/money';
 import { EmptyState } from '../../../ui/empty-state';
-import { MoneyPipe, moneyText, wholeMoneyText } from '../../../ui/money';
+import { moneyText, wholeMoneyText } from '../../../ui/money';
+import { FigureButton } from '../../../ui/figure-button/figure-button';
 import { CurrentBuild } from '../../builds/services/current-build';
 import { BarChart, type BarClick, type ChartSeries } from '../components/bar-chart';
 import { LEDGER_COLORS } from '../components/ledger-colors';
@@ -35,7 +35,7 @@ function periodWords(period: string, short: boolean): string {
 
 @Component({
   selector: 'th-ledger-page',
-  imports: [SafetyNote, MatButtonToggleModule, MatIconModule, MatProgressBarModule, RouterLink, BarChart, EmptyState, MoneyPipe, SystemBars, MoneySummary],
+  imports: [SafetyNote, MatButtonToggleModule, MatIconModule, MatProgressBarModule, RouterLink, BarChart, EmptyState, FigureButton, SystemBars, MoneySummary],
   changeDetection: ChangeDetectionStrategy.OnPush,
   templateUrl: './ledger-page.html',
   styleUrls: ['../figure-table.css', './ledger-page.css'],
@@ -118,10 +118,6 @@ export class LedgerPage {
 
   protected vendorName(vendor: VendorSpendDto): string {
     return vendor.vendor ?? 'Shop not named';
-  }
-
-  protected isZero(amount: string): boolean {
-    return toDecimal(amount).isZero();
   }
 
   protected setPeriod(by: SpendPeriod): void {
