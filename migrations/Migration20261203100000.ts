@@ -1,10 +1,16 @@
 // Each build's lists version (backend/src/http/list-cache.ts): the parts and receipts lists are answered from memory
 // while the version is unchanged. Triggers mark a build (list_stale) on every write to a table its lists are read
-// from; the next list read of a marked build clears the marks and moves the version on, in one transaction.
+// from; the next list read of a marked build clears the marks and moves the version on, in one statement.
 import { Migration } from '@mikro-orm/migrations';
 
-/** Marks the builds of the rows a statement inserted, updated or deleted (`build` says how a row names its build). */
-function markingFunction(name: string, build: (row: string) => string, changed = 'true'): string {
+/**
+ * Marks the builds of the rows a statement inserted, updated or deleted (`build` says how a row names its build).
+ * With `changed`, only updated rows where it holds (n the new row, o the old) mark their build.
+ */
+function markingFunction(name: string, build: (row: string) => string, changed?: string): string {
+  const updated = changed
+    ? `select distinct ${build('n')} from new_rows n join old_rows o on o.id = n.id where ${changed}`
+    : `select distinct ${build('t')} from new_rows t`;
   return `create function "${name}"() returns trigger language plpgsql as $$
 begin
   if tg_op = 'INSERT' then
@@ -12,7 +18,7 @@ begin
   elsif tg_op = 'DELETE' then
     insert into list_stale (build_id) select distinct ${build('t')} from old_rows t;
   else
-    insert into list_stale (build_id) select distinct ${build('n')} from new_rows n join old_rows o on o.id = n.id where ${changed};
+    insert into list_stale (build_id) ${updated};
   end if;
   return null;
 end $$;`;
