@@ -1,7 +1,7 @@
 // The parts and receipts lists answered from memory (http/list-cache.ts), against the real PostgreSQL: an unchanged
 // build's list is not read again, and after every kind of write (through the API, or straight to the database as a
 // job or another server process writes) the answer equals a fresh read of the list.
-import { NEW_BUILD, signedUpClient, type ApiClient } from '../support/api-client';
+import { ApiClient, NEW_BUILD, TEST_PASSWORD, signedUpClient } from '../support/api-client';
 import { filedReceipt } from '../support/receipts';
 import { startTestApp, type TestApp } from '../support/test-app';
 import { Build } from '../../backend/src/builds/build.entity';
@@ -138,6 +138,30 @@ it('shows receipts, their lines, shops, duplicates and uploaders as soon as they
     previous = after.body;
   }
   expect(previous.receipts.map((r: { uploadedBy: string }) => r.uploadedBy)).toEqual(['Rook Hallam', 'Rook Hallam']);
+});
+
+it('answers readers asking at once after each edit with the edit, reading the list once or a few times, not once each', async () => {
+  const { owner, build, systems } = await newBuild('lists-together');
+  const url = `/api/builds/${build.id}/parts`;
+  let part = (await owner.client.post(url, { ...HOSE, systemId: systems[1].id })).body;
+  // Eight tabs of the owner's, signed in on their own.
+  const readers = await Promise.all(
+    Array.from({ length: 8 }, async () => {
+      const reader = await new ApiClient(t.app).init();
+      expect((await reader.post('/api/auth/sign-in', { email: owner.email, password: TEST_PASSWORD })).status).toBe(200);
+      return reader;
+    }),
+  );
+  const before = listCacheCounts();
+  for (let edit = 1; edit <= 6; edit += 1) {
+    part = (await owner.client.patch(`${url}/${part.id}`, { notes: `Checked ${edit} times`, version: part.version })).body;
+    const answers = await Promise.all(readers.map((reader) => reader.get(url)));
+    expect(answers.map((res) => [res.status, res.body.parts[0].notes])).toEqual(readers.map(() => [200, `Checked ${edit} times`]));
+  }
+  const after = listCacheCounts();
+  expect(after.fromMemory + after.read - before.fromMemory - before.read).toBe(48);
+  // Shared, about one read per edit (6 to 8 of 48 answers here); each reader reading for itself, 43 of 48.
+  expect(after.read - before.read).toBeLessThanOrEqual(18);
 });
 
 it('never answers one build with another build’s list', async () => {

@@ -26,7 +26,7 @@ const answers = new LRUCache<string, Answer>({ maxSize: MAX_CHARACTERS, sizeCalc
 
 const counts = { fromMemory: 0, read: 0 };
 
-/** How many list answers came from memory and how many were read (tests and the bench). */
+/** How many list answers came from memory (kept, or being read for another request) and how many were read (tests and the bench). */
 export function listCacheCounts(): { fromMemory: number; read: number } {
   return { ...counts };
 }
@@ -44,6 +44,25 @@ async function moveVersionOn(buildId: string): Promise<string> {
 }
 
 /**
+ * The work of this process still under way, shared by the requests that need the same: after a write, every reader
+ * of the build finds it marked, and each moving the version on and reading the list again would be many reads of one
+ * list. Joining keeps the rule above: a version still being moved on ends after the joiner's identity read, and the
+ * list is read after it; a list being read at version V began after V was made, so it sees every write whose marks V
+ * cleared, and a write still marked would have sent the joiner to move the version on instead.
+ */
+const versionsMoving = new Map<string, Promise<string>>();
+const listsBeingRead = new Map<string, Promise<Answer>>();
+
+function shared<T>(work: Map<string, Promise<T>>, key: string, start: () => Promise<T>): Promise<T> {
+  let promise = work.get(key);
+  if (!promise) {
+    promise = start().finally(() => work.delete(key));
+    work.set(key, promise);
+  }
+  return promise;
+}
+
+/**
  * Answers the build's list named `key` (the route and its checked filters): from memory when it was read at the
  * build's current lists version, else from `read`, kept for the next caller.
  */
@@ -51,17 +70,21 @@ export async function sendList(req: Request, res: Response, key: string, read: (
   const membership = membershipOf(res);
   const buildId = membership.build.id;
   const stamp = listsStampOf(membership);
-  const version = !stamp || stamp.stale ? await moveVersionOn(buildId) : stamp.version;
+  const version = !stamp || stamp.stale ? await shared(versionsMoving, buildId, () => moveVersionOn(buildId)) : stamp.version;
   const cacheKey = `${buildId} ${version} ${key}`;
   let answer = answers.get(cacheKey);
-  if (answer) {
+  if (answer || listsBeingRead.has(cacheKey)) {
     counts.fromMemory += 1;
-  } else {
-    counts.read += 1;
-    const body = JSON.stringify(await read());
-    const etagOf = req.app.get('etag fn') as ((body: string, encoding: string) => string) | undefined;
-    answer = { body, etag: etagOf?.(body, 'utf8') };
-    answers.set(cacheKey, answer);
+  }
+  if (!answer) {
+    answer = await shared(listsBeingRead, cacheKey, async () => {
+      counts.read += 1;
+      const body = JSON.stringify(await read());
+      const etagOf = req.app.get('etag fn') as ((body: string, encoding: string) => string) | undefined;
+      const made = { body, etag: etagOf?.(body, 'utf8') };
+      answers.set(cacheKey, made);
+      return made;
+    });
   }
   if (answer.etag) res.set('ETag', answer.etag);
   res.type('json').send(answer.body);
