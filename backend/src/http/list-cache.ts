@@ -71,7 +71,9 @@ export async function sendList(req: Request, res: Response, key: string, read: (
   const buildId = membership.build.id;
   const stamp = listsStampOf(membership);
   const version = !stamp || stamp.stale ? await shared(versionsMoving, buildId, () => moveVersionOn(buildId)) : stamp.version;
-  const cacheKey = `${buildId} ${version} ${key}`;
+  // The lists take the build's currency from the identity read, which may be older than the version a request moved
+  // on: the currency is in the key, so a list made with an older one is never answered to a request that read a newer.
+  const cacheKey = `${buildId} ${version} ${membership.build.currency} ${key}`;
   let answer = answers.get(cacheKey);
   if (answer || listsBeingRead.has(cacheKey)) {
     counts.fromMemory += 1;
