@@ -50,11 +50,11 @@ export class Migration20261203100000 extends Migration {
     this.addSql(`create trigger "build_list_stale_update" after update on "build" referencing ${REFERENCING.update} for each statement execute function "list_stale_by_build"();`);
     // A person's name is on the receipts they uploaded (members or former members): a new name marks those builds.
     this.addSql(`create function "list_stale_by_user"() returns trigger language plpgsql as $$
+declare
+  renamed uuid[] := array(select n.id from new_rows n join old_rows o on o.id = n.id where n.display_name is distinct from o.display_name);
 begin
-  if exists (select 1 from new_rows n join old_rows o on o.id = n.id where n.display_name is distinct from o.display_name) then
-    insert into list_stale (build_id)
-      select distinct r.build_id from receipt r
-       where r.uploaded_by_id in (select n.id from new_rows n join old_rows o on o.id = n.id where n.display_name is distinct from o.display_name);
+  if cardinality(renamed) > 0 then
+    insert into list_stale (build_id) select distinct r.build_id from receipt r where r.uploaded_by_id = any(renamed);
   end if;
   return null;
 end $$;`);

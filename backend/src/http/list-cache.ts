@@ -8,7 +8,7 @@
 // build's version moves on (and its marks are cleared) in one statement before the list is read; an unmarked build's
 // list is the one read at its version. So an answer from memory was read after every write committed before the
 // request began: a reader never misses a write another request or a job has committed.
-import type { Request, Response } from 'express';
+import type { Response } from 'express';
 import { LRUCache } from 'lru-cache';
 import { em, membershipOf } from './build-access';
 import { listsStampOf } from './request-identity';
@@ -63,31 +63,29 @@ function shared<T>(work: Map<string, Promise<T>>, key: string, start: () => Prom
 }
 
 /**
- * Answers the build's list named `key` (the route and its checked filters): from memory when it was read at the
+ * Answers the build's list (`list` names the route, `filter` its checked filters): from memory when it was read at the
  * build's current lists version, else from `read`, kept for the next caller.
  */
-export async function sendList(req: Request, res: Response, key: string, read: () => Promise<object>): Promise<void> {
+export async function sendList(res: Response, list: string, filter: object, read: () => Promise<object>): Promise<void> {
   const membership = membershipOf(res);
   const buildId = membership.build.id;
   const stamp = listsStampOf(membership);
   const version = !stamp || stamp.stale ? await shared(versionsMoving, buildId, () => moveVersionOn(buildId)) : stamp.version;
   // The lists take the build's currency from the identity read, which may be older than the version a request moved
   // on: the currency is in the key, so a list made with an older one is never answered to a request that read a newer.
-  const cacheKey = `${buildId} ${version} ${membership.build.currency} ${key}`;
-  let answer = answers.get(cacheKey);
-  if (answer || listsBeingRead.has(cacheKey)) {
-    counts.fromMemory += 1;
-  }
-  if (!answer) {
-    answer = await shared(listsBeingRead, cacheKey, async () => {
+  const cacheKey = `${buildId} ${version} ${membership.build.currency} ${list} ${JSON.stringify(filter)}`;
+  const kept = answers.get(cacheKey);
+  if (kept || listsBeingRead.has(cacheKey)) counts.fromMemory += 1;
+  const answer =
+    kept ??
+    (await shared(listsBeingRead, cacheKey, async () => {
       counts.read += 1;
       const body = JSON.stringify(await read());
-      const etagOf = req.app.get('etag fn') as ((body: string, encoding: string) => string) | undefined;
+      const etagOf = res.app.get('etag fn') as ((body: string, encoding: string) => string) | undefined;
       const made = { body, etag: etagOf?.(body, 'utf8') };
       answers.set(cacheKey, made);
       return made;
-    });
-  }
+    }));
   if (answer.etag) res.set('ETag', answer.etag);
   res.type('json').send(answer.body);
 }

@@ -27,7 +27,8 @@ export function partsRoutes(): Router {
     const build = membershipOf(res).build;
     const systemId = typeof req.query.systemId === 'string' && isUuid(req.query.systemId) ? req.query.systemId : undefined;
     const status = typeof req.query.status === 'string' ? req.query.status : undefined;
-    await sendList(req, res, `parts ${systemId ?? ''} ${status ?? ''}`, async () => ({ parts: await listParts(em(), build, { systemId, status }) }));
+    const filter = { systemId, status };
+    await sendList(res, 'parts', filter, async () => ({ parts: await listParts(em(), build, filter) }));
   });
 
   router.post('/parts', buildRole(...EDITORS), validBody(createPartRequest), async (req, res) => {

@@ -63,7 +63,7 @@ export function receiptsRoutes(deps: { store: ObjectStore; queue: JobQueue }): R
       systemId,
       review: review as ReviewState | undefined,
     };
-    await sendList(req, res, `receipts ${JSON.stringify(filter)}`, async () => ({ receipts: await listReceipts(em(), membershipOf(res).build, filter) }));
+    await sendList(res, 'receipts', filter, async () => ({ receipts: await listReceipts(em(), membershipOf(res).build, filter) }));
   });
 
   router.post(
